@@ -1,0 +1,363 @@
+import { z } from "zod";
+import { integerIn, numberIn, requiredText, tagSchema, text } from "./fields";
+
+/**
+ * Sundocket's project file: the whole design record the check engine reads.
+ * The same schema validates forms, route handlers, the command line and
+ * imported files. Units are in the field names. Ratings are optional so a
+ * record can be saved half-entered; a check that needs a missing rating
+ * reports "needs input" naming the field.
+ */
+
+export const NEC_EDITIONS = ["2017", "2020", "2023"] as const;
+export const necEditionSchema = z.enum(NEC_EDITIONS, { error: "must be one of 2017, 2020, 2023" });
+export type NecEdition = z.infer<typeof necEditionSchema>;
+
+export const SYSTEM_KINDS = ["stand-alone", "stand-alone-generator", "hybrid"] as const;
+export const systemKindSchema = z.enum(SYSTEM_KINDS, {
+  error: "must be one of stand-alone, stand-alone-generator, hybrid",
+});
+
+export const OCCUPANCIES = ["one-two-family-dwelling", "other-building"] as const;
+export const MOUNTINGS = ["ground", "roof"] as const;
+
+/** Where the batteries stand; drives the storage siting limits (IRC R328/R330, NFPA 855 ch. 15). */
+export const BATTERY_LOCATIONS = [
+  "utility-closet",
+  "basement",
+  "storage-room",
+  "garage",
+  "accessory-building",
+  "exterior-wall",
+  "outdoors",
+  "habitable-room",
+] as const;
+
+export const RESIDENTIAL_CODES = ["IRC-2018", "IRC-2021", "IRC-2024", "none"] as const;
+
+export const siteSchema = z.object({
+  address: text(300).default(""),
+  occupancy: z.enum(OCCUPANCIES, { error: "must be one-two-family-dwelling or other-building" }),
+  mounting: z.enum(MOUNTINGS, { error: "must be ground or roof" }),
+  /** Height of PV raceways above the roof, for the rooftop temperature adder. */
+  roofClearanceIn: numberIn(0, 120, "in").optional(),
+  designLowTempC: numberIn(-60, 70, "°C").optional(),
+  designLowTempSource: text(300).default(""),
+  designHighTempC: numberIn(-60, 70, "°C").optional(),
+  designHighTempSource: text(300).default(""),
+  /** Peak sun hours per day for the stand-alone energy balance (worst month by common practice). */
+  sunHoursPerDay: numberIn(0.5, 12, "h").optional(),
+  batteryLocation: z.enum(BATTERY_LOCATIONS).optional(),
+  batteryLocationNote: text(300).default(""),
+  /** Clear spacing between storage units, for the 3 ft rule unless fire testing supports less. */
+  batterySpacingIn: numberIn(0, 600, "in").optional(),
+  hasSmokeOrHeatDetection: z.boolean().optional(),
+  hasVehicleImpactProtection: z.boolean().optional(),
+});
+export type Site = z.infer<typeof siteSchema>;
+
+export const jurisdictionRulesSchema = z.object({
+  name: requiredText(200),
+  necEdition: necEditionSchema,
+  residentialCode: z.enum(RESIDENTIAL_CODES).default("none"),
+  /** Stricter local voltage-drop limit; the engine defaults to 3 % (common practice). */
+  voltageDropLimitPct: numberIn(0.5, 10, "%").optional(),
+  /** Local cap on total stored energy per location, overriding the code table. */
+  storageAggregateLimitKWh: numberIn(0, 10000, "kWh").optional(),
+  requiredDocuments: z
+    .array(z.enum(["equipment-datasheets", "storage-listing", "site-plan", "structural-letter"]))
+    .default(["equipment-datasheets", "storage-listing", "site-plan"]),
+});
+export type JurisdictionRules = z.infer<typeof jurisdictionRulesSchema>;
+
+const equipmentBase = {
+  tag: tagSchema,
+  manufacturer: text(120).default(""),
+  model: text(120).default(""),
+  quantity: integerIn(1, 500).default(1),
+  /** The organisation library item this instance was taken from, if any. */
+  libraryItemId: z.string().max(64).optional(),
+  /** Listing standard(s) the item carries, e.g. "UL 1741", "UL 9540". */
+  listing: text(200).default(""),
+};
+
+export const pvModuleSchema = z.object({
+  ...equipmentBase,
+  kind: z.literal("pv-module"),
+  pmaxW: numberIn(1, 1000, "W").optional(),
+  vocV: numberIn(0.5, 150, "V").optional(),
+  iscA: numberIn(0.1, 30, "A").optional(),
+  vmpV: numberIn(0.5, 150, "V").optional(),
+  impA: numberIn(0.1, 30, "A").optional(),
+  tempCoeffVocPctPerC: numberIn(-1, 0, "%/°C").optional(),
+  tempCoeffVmpPctPerC: numberIn(-1, 0, "%/°C").optional(),
+  maxSeriesFuseA: numberIn(1, 60, "A").optional(),
+  maxSystemVoltageV: numberIn(12, 1500, "V").optional(),
+});
+
+export const chargeControllerSchema = z.object({
+  ...equipmentBase,
+  kind: z.literal("charge-controller"),
+  controllerType: z.enum(["pwm", "mppt"]).optional(),
+  maxPvInputVoltageV: numberIn(10, 1500, "V").optional(),
+  maxPvInputCurrentA: numberIn(1, 500, "A").optional(),
+  /** Lowest PV voltage at which the controller still tracks. */
+  mpptMinVoltageV: numberIn(0, 1500, "V").optional(),
+  ratedOutputCurrentA: numberIn(1, 500, "A").optional(),
+  batteryVoltagesV: z.array(numberIn(6, 1000, "V")).default([]),
+  hasPvDisconnect: z.boolean().default(false),
+  hasOvercurrentProtection: z.boolean().default(false),
+});
+
+export const mpptInputSchema = z.object({
+  id: requiredText(8),
+  maxVoltageV: numberIn(10, 1500, "V").optional(),
+  maxCurrentA: numberIn(1, 200, "A").optional(),
+  minOperatingVoltageV: numberIn(0, 1500, "V").optional(),
+  maxOperatingVoltageV: numberIn(0, 1500, "V").optional(),
+});
+
+export const INVERTER_KINDS = ["inverter", "inverter-charger", "hybrid-inverter"] as const;
+
+export const inverterSchema = z.object({
+  ...equipmentBase,
+  kind: z.enum(INVERTER_KINDS),
+  continuousW: numberIn(50, 100000, "W").optional(),
+  surgeW: numberIn(50, 300000, "W").optional(),
+  nominalBatteryVoltageV: numberIn(6, 1000, "V").optional(),
+  /** Lowest battery voltage the inverter runs at (its low-voltage cut-out); sets DC input current. */
+  minBatteryVoltageV: numberIn(5, 1000, "V").optional(),
+  maxDcInputCurrentA: numberIn(1, 2000, "A").optional(),
+  acOutputVoltageV: numberIn(100, 480, "V").optional(),
+  acOutput: z.enum(["120", "240", "120/240", "208", "277/480"]).optional(),
+  acOutputPhases: integerIn(1, 3).default(1),
+  maxAcOutputCurrentA: numberIn(0.1, 1000, "A").optional(),
+  acInputCurrentLimitA: numberIn(1, 400, "A").optional(),
+  idleW: numberIn(0, 500, "W").optional(),
+  efficiencyPct: numberIn(50, 100, "%").optional(),
+  mpptInputs: z.array(mpptInputSchema).default([]),
+  hasPvDisconnect: z.boolean().default(false),
+  hasOvercurrentProtection: z.boolean().default(false),
+  listedMode: z.enum(["stand-alone", "multimode", "interactive"]).optional(),
+});
+
+export const batterySchema = z.object({
+  ...equipmentBase,
+  kind: z.literal("battery"),
+  chemistry: z.enum(["lfp", "nmc", "lead-acid-flooded", "lead-acid-agm", "nickel-iron", "other"]).optional(),
+  nominalVoltageV: numberIn(2, 1000, "V").optional(),
+  capacityAh: numberIn(1, 10000, "Ah").optional(),
+  capacityKWh: numberIn(0.01, 1000, "kWh").optional(),
+  maxContinuousDischargeA: numberIn(1, 5000, "A").optional(),
+  shortCircuitCurrentA: numberIn(1, 200000, "A").optional(),
+  usableDodPct: numberIn(10, 100, "%").optional(),
+  maxConnectionsPerTerminal: integerIn(1, 12).optional(),
+  /** Large-scale fire testing (UL 9540A) supports spacing closer than 3 ft. */
+  largeScaleFireTested: z.boolean().default(false),
+});
+
+export const generatorSchema = z.object({
+  ...equipmentBase,
+  kind: z.literal("generator"),
+  ratedKW: numberIn(0.1, 2000, "kW").optional(),
+  voltageV: numberIn(100, 480, "V").optional(),
+  output: z.enum(["120", "240", "120/240", "208", "277/480"]).optional(),
+  fuel: z.enum(["gasoline", "diesel", "propane", "natural-gas", "other"]).optional(),
+  hasOutputDisconnect: z.boolean().default(false),
+  outputBreakerA: numberIn(1, 2000, "A").optional(),
+});
+
+export const protectiveDeviceSchema = z.object({
+  ...equipmentBase,
+  kind: z.enum(["disconnect", "fuse", "breaker"]),
+  ratingA: numberIn(0.5, 4000, "A").optional(),
+  voltageRatingV: numberIn(12, 1500, "V").optional(),
+  currentType: z.enum(["ac", "dc", "ac-dc"]).optional(),
+  interruptingRatingA: numberIn(100, 300000, "A").optional(),
+  /** Distance from the battery terminals, for devices protecting a battery circuit. */
+  distanceFromBatteryFt: numberIn(0, 1000, "ft").optional(),
+});
+
+export const rapidShutdownSchema = z.object({
+  ...equipmentBase,
+  kind: z.literal("rapid-shutdown"),
+  method: z.enum(["module-level", "array-boundary", "listed-pv-hazard-control", "other"]).optional(),
+  controls: text(300).default(""),
+});
+
+export const panelSchema = z.object({
+  ...equipmentBase,
+  kind: z.enum(["ac-panel", "busbar"]),
+  busRatingA: numberIn(1, 5000, "A").optional(),
+  mainBreakerA: numberIn(1, 5000, "A").optional(),
+  voltage: z.enum(["12", "24", "48", "120", "240", "120/240", "208", "277/480", "other"]).optional(),
+  hasMultiwireBranchCircuits: z.boolean().optional(),
+  /** Sum of the ratings of all breakers on the bus, for the sum-of-breakers rule. */
+  sumOfBreakersA: numberIn(0, 20000, "A").optional(),
+});
+
+export const equipmentSchema = z.discriminatedUnion("kind", [
+  pvModuleSchema,
+  chargeControllerSchema,
+  inverterSchema,
+  batterySchema,
+  generatorSchema,
+  protectiveDeviceSchema,
+  rapidShutdownSchema,
+  panelSchema,
+]);
+export type Equipment = z.infer<typeof equipmentSchema>;
+export type EquipmentKind = Equipment["kind"];
+export const EQUIPMENT_KINDS = [
+  "pv-module",
+  "charge-controller",
+  "inverter",
+  "inverter-charger",
+  "hybrid-inverter",
+  "battery",
+  "generator",
+  "disconnect",
+  "fuse",
+  "breaker",
+  "rapid-shutdown",
+  "ac-panel",
+  "busbar",
+] as const satisfies readonly EquipmentKind[];
+
+export const arraySchema = z.object({
+  tag: tagSchema,
+  moduleTag: tagSchema,
+  modulesInSeries: integerIn(1, 100),
+  stringsInParallel: integerIn(1, 200),
+  /** Controller or inverter it feeds; for an inverter, the MPPT input id. */
+  feedsTag: tagSchema,
+  mpptInputId: z.string().max(8).optional(),
+});
+export type PvArray = z.infer<typeof arraySchema>;
+
+export const CIRCUIT_KINDS = [
+  "pv-source",
+  "pv-output",
+  "battery",
+  "inverter-dc-input",
+  "inverter-ac-output",
+  "generator-output",
+  "ac-branch",
+] as const;
+
+/** AWG 18…4/0 and kcmil 250…2000, as written on a schedule. */
+export const CONDUCTOR_SIZES = [
+  "18", "16", "14", "12", "10", "8", "6", "4", "3", "2", "1",
+  "1/0", "2/0", "3/0", "4/0",
+  "250", "300", "350", "400", "500", "600", "700", "750", "800", "900", "1000", "1250", "1500", "1750", "2000",
+] as const;
+export const conductorSizeSchema = z.enum(CONDUCTOR_SIZES, {
+  error: "must be an AWG size (18 … 4/0) or kcmil size (250 … 2000)",
+});
+export type ConductorSize = z.infer<typeof conductorSizeSchema>;
+
+export const TEMP_RATINGS_C = [60, 75, 90] as const;
+const tempRatingSchema = z.union([z.literal(60), z.literal(75), z.literal(90)], {
+  error: "must be 60, 75 or 90 °C",
+});
+
+export const circuitSchema = z
+  .object({
+    tag: tagSchema,
+    fromTag: tagSchema,
+    toTag: tagSchema,
+    kind: z.enum(CIRCUIT_KINDS, { error: `must be one of ${CIRCUIT_KINDS.join(", ")}` }),
+    /** For PV circuits: the array whose current and voltage the circuit carries. */
+    arrayTag: tagSchema.optional(),
+    /** For a PV source circuit: how many strings it carries (1 unless strings are paralleled in the array). */
+    stringsCarried: integerIn(1, 200).optional(),
+    /** For an AC branch circuit: the load current it serves. */
+    loadCurrentA: numberIn(0, 2000, "A").optional(),
+    material: z.enum(["cu", "al"], { error: "must be cu or al" }).default("cu"),
+    size: conductorSizeSchema.optional(),
+    parallelSets: integerIn(1, 8).default(1),
+    insulation: text(20).default(""),
+    insulationTempRatingC: tempRatingSchema.optional(),
+    currentCarryingConductors: integerIn(1, 60).optional(),
+    racewayType: text(40).default(""),
+    racewaySize: text(20).default(""),
+    lengthFt: numberIn(0, 5000, "ft").optional(),
+    /** Ambient where the conductor runs; defaults to the site's design high temperature. */
+    ambientTempC: numberIn(-60, 70, "°C").optional(),
+    /** Raceway or cable exposed to sunlight on or above a roof. */
+    onRooftop: z.boolean().default(false),
+    roofClearanceIn: numberIn(0, 120, "in").optional(),
+    terminalTempRatingC: tempRatingSchema.optional(),
+    /** Equipment tag of the fuse or breaker that protects the circuit. */
+    ocpdTag: tagSchema.optional(),
+    /** Equipment tags of disconnects placed on the circuit. */
+    disconnectTags: z.array(tagSchema).default([]),
+    egcSize: conductorSizeSchema.optional(),
+    egcMaterial: z.enum(["cu", "al"]).default("cu"),
+  })
+  .refine((c) => c.fromTag !== c.toTag, {
+    message: "a circuit cannot run from a device to itself",
+    path: ["toTag"],
+  });
+export type Circuit = z.infer<typeof circuitSchema>;
+
+export const loadSchema = z.object({
+  name: requiredText(120),
+  watts: numberIn(0, 100000, "W"),
+  quantity: integerIn(1, 1000).default(1),
+  hoursPerDay: numberIn(0, 24, "h"),
+  surgeW: numberIn(0, 300000, "W").optional(),
+  voltageV: z.union([z.literal(120), z.literal(240)]).default(120),
+  /** Runs at the same time as the others (for the peak simultaneous power). */
+  simultaneous: z.boolean().default(true),
+});
+export type Load = z.infer<typeof loadSchema>;
+
+export const ATTACHMENT_KINDS = [
+  "datasheet",
+  "site-plan",
+  "storage-listing",
+  "structural-letter",
+  "photo",
+  "stamp",
+  "other",
+] as const;
+
+export const attachmentRefSchema = z.object({
+  id: z.string().max(64).optional(),
+  kind: z.enum(ATTACHMENT_KINDS),
+  equipmentTag: tagSchema.optional(),
+  fileName: text(255).default(""),
+  pageCount: integerIn(0, 10000).optional(),
+  sha256: z
+    .string()
+    .regex(/^[0-9a-f]{64}$/, { message: "must be 64 lowercase hex digits" })
+    .optional(),
+});
+export type AttachmentRef = z.infer<typeof attachmentRefSchema>;
+
+export const PROJECT_FILE_FORMAT = "sundocket-project" as const;
+export const PROJECT_FILE_VERSION = 1 as const;
+
+export const projectRecordSchema = z.object({
+  format: z.literal(PROJECT_FILE_FORMAT).default(PROJECT_FILE_FORMAT),
+  formatVersion: z.literal(PROJECT_FILE_VERSION).default(PROJECT_FILE_VERSION),
+  name: requiredText(200),
+  client: text(200).default(""),
+  systemKind: systemKindSchema,
+  site: siteSchema,
+  jurisdiction: jurisdictionRulesSchema,
+  /** Days the storage must carry the loads without sun (two to three by common practice). */
+  daysOfAutonomy: numberIn(0.5, 14, "days").optional(),
+  /** The rapid-shutdown method named for PV circuits on or in a building. */
+  rapidShutdownMethod: z
+    .enum(["module-level", "array-boundary", "listed-pv-hazard-control", "none"])
+    .optional(),
+  equipment: z.array(equipmentSchema).default([]),
+  arrays: z.array(arraySchema).default([]),
+  circuits: z.array(circuitSchema).default([]),
+  loads: z.array(loadSchema).default([]),
+  attachments: z.array(attachmentRefSchema).default([]),
+});
+export type ProjectRecord = z.infer<typeof projectRecordSchema>;
+export type ProjectRecordInput = z.input<typeof projectRecordSchema>;
