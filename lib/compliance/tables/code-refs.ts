@@ -1,0 +1,143 @@
+/**
+ * Code references by topic and NEC edition, so every check cites the section
+ * numbers of the edition the jurisdiction adopted.
+ *
+ * The large renumberings:
+ *   - 2020 moved medium-voltage conductors to Article 311, so the 310.15(B)
+ *     tables of 2017 became 310.16 and 310.15(B)(1) / 310.15(C)(1); 2023
+ *     added "(1)" to the 30 °C ambient table, Table 310.15(B)(1)(1).
+ *   - 2020 rewrote Article 706: the disconnect moved from 706.7 to 706.15.
+ *   - 2023 moved the DC source label from 690.53 into 690.7(D) and the
+ *     building rapid-shutdown label from 690.56(C) into 690.12(D), and put
+ *     the standard ratings of 240.6(A) into Table 240.6(A).
+ * Entries marked "from memory" are the most likely numbering without the
+ * edition's text at hand; an AHJ reviewer should confirm them.
+ */
+import type { NecEdition } from "../../schemas/project-record";
+
+export type CodeTopic =
+  | "ampacity-table"
+  | "ambient-correction"
+  | "conductor-adjustment"
+  | "rooftop-adder"
+  | "conditions-of-use"
+  | "voltage-correction-table"
+  | "max-voltage"
+  | "pv-circuit-current"
+  | "pv-conductor-sizing"
+  | "pv-ocpd"
+  | "standard-ratings"
+  | "small-conductor"
+  | "terminal-rating"
+  | "dc-resistance"
+  | "egc-table"
+  | "pv-egc"
+  | "dc-gec"
+  | "pv-disconnect"
+  | "pv-equipment-disconnect"
+  | "ess-disconnect"
+  | "generator-disconnect"
+  | "rapid-shutdown"
+  | "rapid-shutdown-label"
+  | "dc-source-label"
+  | "raceway-marking"
+  | "ess-label"
+  | "stand-alone-supply"
+  | "stand-alone-label"
+  | "busbar"
+  | "arc-flash-label"
+  | "field-marking"
+  | "listing-use"
+  | "interrupting-rating"
+  | "pv-listing"
+  | "ess-listing"
+  | "stand-alone-plaque"
+  | "source-directory"
+  | "voltage-drop"
+  | "building-voltage-limit"
+  | "string-fuse"
+  | "ess-ocpd";
+
+type ByEdition = Readonly<Record<NecEdition, string>>;
+
+/** Same section number in all three editions. */
+function same(section: string): ByEdition {
+  return { "2017": section, "2020": section, "2023": section };
+}
+
+export const CODE_REFS: Readonly<Record<CodeTopic, ByEdition>> = {
+  "ampacity-table": { "2017": "Table 310.15(B)(16)", "2020": "Table 310.16", "2023": "Table 310.16" },
+  "ambient-correction": {
+    "2017": "Table 310.15(B)(2)(a)",
+    "2020": "Table 310.15(B)(1)",
+    "2023": "Table 310.15(B)(1)(1)",
+  },
+  "conductor-adjustment": {
+    "2017": "Table 310.15(B)(3)(a)",
+    "2020": "Table 310.15(C)(1)",
+    "2023": "Table 310.15(C)(1)",
+  },
+  "rooftop-adder": { "2017": "310.15(B)(3)(c)", "2020": "310.15(B)(2)", "2023": "310.15(B)(2)" },
+  // 690.8(B)(2): the ampacity after correction and adjustment must carry the
+  // current; the general rule for non-PV circuits is 310.15 in every edition.
+  "conditions-of-use": same("690.8(B)(2)"),
+  "voltage-correction-table": same("Table 690.7(A)"),
+  "max-voltage": same("690.7(A)"),
+  "pv-circuit-current": same("690.8(A)"),
+  "pv-conductor-sizing": same("690.8(B)"),
+  "pv-ocpd": same("690.9"),
+  "standard-ratings": { "2017": "240.6(A)", "2020": "240.6(A)", "2023": "Table 240.6(A)" },
+  "small-conductor": same("240.4(D)"),
+  "terminal-rating": same("110.14(C)"),
+  "dc-resistance": same("Chapter 9, Table 8"),
+  "egc-table": same("Table 250.122"),
+  "pv-egc": same("690.45"),
+  "dc-gec": same("250.166"),
+  "pv-disconnect": same("690.13"),
+  "pv-equipment-disconnect": same("690.15"),
+  // 2017 Article 706 was new and numbered its disconnect 706.7 (from memory).
+  "ess-disconnect": { "2017": "706.7", "2020": "706.15", "2023": "706.15" },
+  "generator-disconnect": same("445.18"),
+  "rapid-shutdown": same("690.12"),
+  "rapid-shutdown-label": { "2017": "690.56(C)", "2020": "690.56(C)", "2023": "690.12(D)" },
+  "dc-source-label": { "2017": "690.53", "2020": "690.53", "2023": "690.7(D)" },
+  // 2017 690.31(G)(3)/(G)(4); 2020 regrouped DC circuits in buildings under
+  // 690.31(D) (from memory for 2020 and 2023).
+  "raceway-marking": { "2017": "690.31(G)(3)", "2020": "690.31(D)(2)", "2023": "690.31(D)(2)" },
+  // Marking of the storage disconnect: 706.7(D) in 2017 (from memory), 706.15(C) in 2020/2023.
+  "ess-label": { "2017": "706.7(D)", "2020": "706.15(C)", "2023": "706.15(C)" },
+  "stand-alone-supply": same("710.15"),
+  // The single 120 V supply warning.
+  "stand-alone-label": same("710.15(C)"),
+  // Busbar rules: 2017 705.12(B)(2)(3); 2020 restructured to 705.12(B)(3) (from memory, 2023 kept it).
+  busbar: { "2017": "705.12(B)(2)(3)", "2020": "705.12(B)(3)", "2023": "705.12(B)(3)" },
+  "arc-flash-label": same("110.16"),
+  "field-marking": same("110.21(B)"),
+  "listing-use": same("110.3(B)"),
+  "interrupting-rating": same("110.9"),
+  "pv-listing": same("690.4(B)"),
+  "ess-listing": same("706.5"),
+  // Plaque or directory at the building showing the power sources.
+  "stand-alone-plaque": same("710.10"),
+  "source-directory": same("705.10"),
+  // The branch-circuit informational note suggesting 3 % / 5 %: a recommendation,
+  // not a requirement. 2023 renumbered 210.19's notes (from memory).
+  "voltage-drop": {
+    "2017": "210.19(A)(1) Informational Note No. 4",
+    "2020": "210.19(A)(1) Informational Note No. 4",
+    "2023": "210.19(A) Informational Note",
+  },
+  // 600 V limit on one- and two-family dwellings.
+  "building-voltage-limit": same("690.7"),
+  // Series fuse rating of modules; paralleled strings feeding a fault.
+  "string-fuse": same("690.9(A)"),
+  // Battery overcurrent protection near the battery: 706.31 in 2020/2023, 706.21 in 2017 (from memory).
+  "ess-ocpd": { "2017": "706.21", "2020": "706.31", "2023": "706.31" },
+};
+
+export const CODE_TOPICS = Object.keys(CODE_REFS) as readonly CodeTopic[];
+
+/** "NEC <edition> <section>", e.g. codeRef("2017", "ampacity-table") → "NEC 2017 Table 310.15(B)(16)". */
+export function codeRef(edition: NecEdition, topic: CodeTopic): string {
+  return `NEC ${edition} ${CODE_REFS[topic][edition]}`;
+}

@@ -1,0 +1,137 @@
+/**
+ * Energy storage siting limits for one- and two-family dwellings and
+ * townhouses, as data per residential code edition.
+ *
+ *   IRC 2021 R328 "Energy Storage Systems": R328.3.1 spacing, R328.4
+ *     locations, R328.5 energy ratings, R328.7 fire detection, R328.8
+ *     protection from impact.
+ *   IRC 2024 R330: the same section renumbered; the limits below are the
+ *     same as 2021 (from memory: confirm subsection numbers with the AHJ).
+ *   NFPA 855 (2020) chapter 15: the source of the IRC text; the same unit,
+ *     aggregate, spacing, detection and impact values. Used where the
+ *     jurisdiction names no IRC edition with storage rules (IRC 2018 has none).
+ *
+ * Energy ratings: a unit is at most 20 kWh; aggregate at most 40 kWh in a
+ * utility closet, basement, storage or utility space, 80 kWh in an attached or
+ * detached garage or detached accessory structure, 80 kWh on an exterior
+ * wall, 80 kWh outdoors on the ground. Larger installations fall under the
+ * fire code (IFC 1207 / NFPA 855 outside chapter 15), which Sundocket does
+ * not check. Never in sleeping rooms, closets or spaces opening into them, or
+ * habitable spaces.
+ */
+
+export const STORAGE_LOCATION_KINDS = [
+  "utility-closet",
+  "basement",
+  "storage-room",
+  "garage",
+  "accessory-building",
+  "exterior-wall",
+  "outdoors",
+  "habitable-room",
+] as const;
+export type StorageLocationKind = (typeof STORAGE_LOCATION_KINDS)[number];
+
+export interface StorageSitingRules {
+  code: "IRC-2021" | "IRC-2024" | "NFPA-855";
+  section: string;
+  /** Largest single unit, kWh. */
+  maxUnitKWh: number;
+  /** Aggregate kWh per location kind; null = storage not permitted there. */
+  aggregateKWhByLocation: Record<string, number | null>;
+  /** Clear spacing between units, in, unless large-scale fire testing (UL 9540A) documented to the building official supports less. */
+  minSpacingIn: number;
+  /** Smoke alarms in the room or area (a listed heat detector interconnected with them where smoke alarms cannot go). */
+  requiresDetection: boolean;
+  /** Location kinds where vehicle impact protection is required. */
+  requiresImpactProtectionIn: string[];
+  /** Units on an exterior wall or outdoors stand at least this far from doors and windows into the dwelling, in. */
+  minFromDoorsAndWindowsIn: number;
+  /** Subsection per rule, for citations. */
+  sections: {
+    spacing: string;
+    locations: string;
+    energyRatings: string;
+    detection: string;
+    impactProtection: string;
+  };
+}
+
+const AGGREGATE_KWH: Readonly<Record<StorageLocationKind, number | null>> = {
+  "utility-closet": 40,
+  basement: 40,
+  "storage-room": 40,
+  garage: 80,
+  "accessory-building": 80,
+  "exterior-wall": 80,
+  outdoors: 80,
+  "habitable-room": null,
+};
+
+const SHARED_LIMITS = {
+  maxUnitKWh: 20,
+  minSpacingIn: 36,
+  requiresDetection: true,
+  // Garages are where vehicles travel; a detached garage recorded as an
+  // accessory building is not caught here, so the check should attest it.
+  requiresImpactProtectionIn: ["garage"],
+  minFromDoorsAndWindowsIn: 36,
+} as const;
+
+function rules(
+  code: StorageSitingRules["code"],
+  section: string,
+  sections: StorageSitingRules["sections"],
+): StorageSitingRules {
+  return {
+    code,
+    section,
+    ...SHARED_LIMITS,
+    aggregateKWhByLocation: { ...AGGREGATE_KWH },
+    requiresImpactProtectionIn: [...SHARED_LIMITS.requiresImpactProtectionIn],
+    sections,
+  };
+}
+
+export const STORAGE_SITING_RULES: Readonly<Record<StorageSitingRules["code"], StorageSitingRules>> = {
+  "IRC-2021": rules("IRC-2021", "IRC 2021 R328", {
+    spacing: "IRC 2021 R328.3.1",
+    locations: "IRC 2021 R328.4",
+    energyRatings: "IRC 2021 R328.5",
+    detection: "IRC 2021 R328.7",
+    impactProtection: "IRC 2021 R328.8",
+  }),
+  "IRC-2024": rules("IRC-2024", "IRC 2024 R330", {
+    spacing: "IRC 2024 R330.3.1",
+    locations: "IRC 2024 R330.4",
+    energyRatings: "IRC 2024 R330.5",
+    detection: "IRC 2024 R330.7",
+    impactProtection: "IRC 2024 R330.8",
+  }),
+  // Subsection numbers within chapter 15 are not cited (from memory only).
+  "NFPA-855": rules("NFPA-855", "NFPA 855 chapter 15", {
+    spacing: "NFPA 855 chapter 15",
+    locations: "NFPA 855 chapter 15",
+    energyRatings: "NFPA 855 chapter 15",
+    detection: "NFPA 855 chapter 15",
+    impactProtection: "NFPA 855 chapter 15",
+  }),
+};
+
+/**
+ * Rules for the record's residential code. IRC 2018 has no storage section
+ * and "none" names no code, so both fall back to NFPA 855 chapter 15.
+ * Returns a fresh copy: callers may not alter the shared data.
+ */
+export function storageSitingRules(residentialCode: "IRC-2018" | "IRC-2021" | "IRC-2024" | "none"): StorageSitingRules {
+  const base =
+    residentialCode === "IRC-2021" || residentialCode === "IRC-2024"
+      ? STORAGE_SITING_RULES[residentialCode]
+      : STORAGE_SITING_RULES["NFPA-855"];
+  return {
+    ...base,
+    aggregateKWhByLocation: { ...base.aggregateKWhByLocation },
+    requiresImpactProtectionIn: [...base.requiresImpactProtectionIn],
+    sections: { ...base.sections },
+  };
+}
