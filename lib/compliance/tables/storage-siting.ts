@@ -47,6 +47,11 @@ export interface StorageSitingRules {
   requiresImpactProtectionIn: string[];
   /** Units on an exterior wall or outdoors stand at least this far from doors and windows into the dwelling, in. */
   minFromDoorsAndWindowsIn: number;
+  /**
+   * An exemption the edition grants that the check cannot verify from the
+   * record (a reviewer or the AHJ must confirm it applies), if any.
+   */
+  exemption?: string;
   /** Subsection per rule, for citations. */
   sections: {
     spacing: string;
@@ -82,10 +87,12 @@ function rules(
   code: StorageSitingRules["code"],
   section: string,
   sections: StorageSitingRules["sections"],
+  exemption?: string,
 ): StorageSitingRules {
   return {
     code,
     section,
+    ...(exemption === undefined ? {} : { exemption }),
     ...SHARED_LIMITS,
     aggregateKWhByLocation: { ...AGGREGATE_KWH },
     requiresImpactProtectionIn: [...SHARED_LIMITS.requiresImpactProtectionIn],
@@ -100,7 +107,9 @@ export const STORAGE_SITING_RULES: Readonly<Record<StorageSitingRules["code"], S
     energyRatings: "IRC 2021 R328.5",
     detection: "IRC 2021 R328.7",
     impactProtection: "IRC 2021 R328.8",
-  }),
+  },
+  // From memory; the exact scope of the exception is for the AHJ to confirm.
+  "IRC 2021 R328.1 exception: storage listed and labelled to UL 9540, marked for use in residential dwelling units and installed per the manufacturer's instructions and NFPA 70"),
   "IRC-2024": rules("IRC-2024", "IRC 2024 R330", {
     spacing: "IRC 2024 R330.3.1",
     locations: "IRC 2024 R330.4",
