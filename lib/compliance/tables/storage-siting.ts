@@ -9,7 +9,8 @@
  *     same as 2021 (from memory: confirm subsection numbers with the AHJ).
  *   NFPA 855 (2020) chapter 15: the source of the IRC text; the same unit,
  *     aggregate, spacing, detection and impact values. Used where the
- *     jurisdiction names no IRC edition with storage rules (IRC 2018 has none).
+ *     jurisdiction names no IRC edition with storage limits (IRC 2018 R327
+ *     sets no per-location energy limits, from memory).
  *
  * Energy ratings: a unit is at most 20 kWh; aggregate at most 40 kWh in a
  * utility closet, basement, storage or utility space, 80 kWh in an attached or
