@@ -68,7 +68,7 @@ export interface OneLineEdge {
   heading: string;
   /** OCPD first, then disconnects, as equipment tags. */
   devices: string[];
-  /** One line per device: "F-1 fuse 15 A 600 V DC". */
+  /** Per device, "F-1 fuse" then its ratings "  15 A 600 V DC" (indented). */
   deviceLines: string[];
   deviceMarks: DeviceMark[];
   trouble: string[];
@@ -159,13 +159,14 @@ function deviceKindOf(e: Equipment | undefined): DeviceKind {
   return "other";
 }
 
-function deviceLine(tag: string, e: Equipment | undefined, role: "ocpd" | "disconnect"): string {
-  if (!e) return `${tag} ${role === "ocpd" ? "OCPD" : "disconnect"}`;
+/** Tag and kind on one line, ratings on the next, to keep callouts narrow. */
+function deviceLines(tag: string, e: Equipment | undefined, role: "ocpd" | "disconnect"): string[] {
+  if (!e) return [`${tag} ${role === "ocpd" ? "OCPD" : "disconnect"}`];
   if (e.kind === "fuse" || e.kind === "breaker" || e.kind === "disconnect") {
     const rating = deviceRating(e);
-    return `${tag} ${e.kind}${rating ? ` ${rating}` : ""}`;
+    return rating ? [`${tag} ${e.kind}`, `  ${rating}`] : [`${tag} ${e.kind}`];
   }
-  return `${tag} ${role === "ocpd" ? "OCPD in" : "disconnect in"} ${equipmentTitle(e).toLowerCase()}`;
+  return [`${tag} ${role === "ocpd" ? "OCPD" : "disconnect"} in`, `  ${equipmentTitle(e).toLowerCase()}`];
 }
 
 interface EdgeSpec {
@@ -176,7 +177,7 @@ interface EdgeSpec {
   heading: string;
   callout: string[];
   trouble: string[];
-  devices: { tag: string; kind: DeviceKind; line: string; missing: boolean }[];
+  devices: { tag: string; kind: DeviceKind; lines: string[]; missing: boolean }[];
   labelWidth: number;
   labelHeight: number;
 }
@@ -207,8 +208,8 @@ const ROOT_OPTIONS: Record<string, string> = {
   "elk.spacing.edgeEdge": "12",
   "elk.spacing.edgeLabel": "3",
   "elk.spacing.componentComponent": "40",
-  "elk.layered.spacing.nodeNodeBetweenLayers": "40",
-  "elk.layered.spacing.edgeNodeBetweenLayers": "16",
+  "elk.layered.spacing.nodeNodeBetweenLayers": "24",
+  "elk.layered.spacing.edgeNodeBetweenLayers": "10",
   "elk.layered.spacing.edgeEdgeBetweenLayers": "12",
   "elk.layered.considerModelOrder.strategy": "NODES_AND_EDGES",
   "elk.layered.crossingMinimization.strategy": "LAYER_SWEEP",
@@ -270,7 +271,15 @@ function placeDevices(points: Point[], label: Box, devices: EdgeSpec["devices"])
   });
 }
 
-export async function layoutOneLine(record: ProjectRecord): Promise<OneLineLayout> {
+export interface LayoutOptions {
+  /** Width over height of the space the drawing will fill (default: a tabloid sheet's drawing area). */
+  aspectRatio?: number;
+  /** Allow the flow to wrap into rows when that draws it much larger (default true). */
+  wrap?: boolean;
+}
+
+export async function layoutOneLine(record: ProjectRecord, options: LayoutOptions = {}): Promise<OneLineLayout> {
+  const aspect = options.aspectRatio ?? 1.6;
   const equipment = record.equipment ?? [];
   const arrays = record.arrays ?? [];
   const circuits = record.circuits ?? [];
@@ -294,14 +303,14 @@ export async function layoutOneLine(record: ProjectRecord): Promise<OneLineLayou
     const devices = devTags.map(({ tag, role }) => {
       protectiveUse.add(tag);
       const e = byTag.get(tag);
-      return { tag, kind: deviceKindOf(e), line: deviceLine(tag, e, role), missing: !e };
+      return { tag, kind: deviceKindOf(e), lines: deviceLines(tag, e, role), missing: !e };
     });
     const trouble = [...text.trouble];
     for (const d of devices) if (d.missing) trouble.push(`${d.tag} not in the equipment list`);
     const size = labelSize(
       text.heading,
       text.callout,
-      devices.map((d) => d.line),
+      devices.flatMap((d) => d.lines),
       trouble,
       devices.length,
     );
@@ -354,7 +363,7 @@ export async function layoutOneLine(record: ProjectRecord): Promise<OneLineLayou
     const toNode = flowSpecs.find((n) => n.tag === spec.to);
     if (fromNode?.kind === "unknown" || toNode?.kind === "unknown") {
       spec.trouble.push("runs to a tag not in the record");
-      const size = labelSize(spec.heading, spec.callout, spec.devices.map((d) => d.line), spec.trouble, spec.devices.length);
+      const size = labelSize(spec.heading, spec.callout, spec.devices.flatMap((d) => d.lines), spec.trouble, spec.devices.length);
       spec.labelWidth = size.width;
       spec.labelHeight = size.height;
     }
@@ -406,7 +415,26 @@ export async function layoutOneLine(record: ProjectRecord): Promise<OneLineLayou
   };
 
   const elk = new ELK();
-  const result = flowNodes.length > 0 ? await elk.layout(graph) : { ...graph, width: 0, height: 0 };
+  let result: ElkNode = { ...graph, width: 0, height: 0 };
+  if (flowNodes.length > 0) {
+    // A long chain drawn in one row shrinks to unreadable lettering on a sheet;
+    // wrapped into rows it reads larger but with wires that turn back. Keep the
+    // single row unless wrapping gains a clear fifth in scale at the sheet's shape.
+    const straight = await elk.layout(structuredClone(graph));
+    result = straight;
+    if (options.wrap !== false) {
+      const wrapped = await elk.layout({
+        ...structuredClone(graph),
+        layoutOptions: {
+          ...ROOT_OPTIONS,
+          "elk.layered.wrapping.strategy": "MULTI_EDGE",
+          "elk.aspectRatio": String(aspect),
+        },
+      });
+      const fit = (g: ElkNode) => Math.min(aspect / (g.width ?? 1), 1 / (g.height ?? 1));
+      if (fit(wrapped) > 1.2 * fit(straight)) result = wrapped;
+    }
+  }
 
   const nodes: OneLineNode[] = [];
   const positions = new Map((result.children ?? []).map((c) => [c.id, c]));
@@ -458,7 +486,7 @@ export async function layoutOneLine(record: ProjectRecord): Promise<OneLineLayou
       calloutBox,
       heading: s.heading,
       devices: s.devices.map((d) => d.tag),
-      deviceLines: s.devices.map((d) => d.line),
+      deviceLines: s.devices.flatMap((d) => d.lines),
       deviceMarks: placeDevices(points, calloutBox, s.devices),
       trouble: s.trouble,
     };
@@ -499,16 +527,22 @@ export async function layoutOneLine(record: ProjectRecord): Promise<OneLineLayou
     }
     y += rowHeight;
   }
+  // The legend sits at the foot, or beside the unconnected row when there is room.
+  const lastRow = nodes.filter((n) => n.placement === "unconnected");
+  const lastRight = lastRow.length > 0 ? Math.max(...lastRow.map((n) => n.x + n.width)) : MARGIN;
+  const lastTop = lastRow.length > 0 ? Math.max(...lastRow.map((n) => n.y)) : y;
+  const besideX = lastRight + ROW_GAP * 2;
+  const fitsBeside = lastRow.length > 0 && besideX + LEGEND_SIZE.width <= Math.max(right, MARGIN + rowWidth);
   const legend: Box = {
-    x: MARGIN,
-    y: y + ROW_GAP,
+    x: fitsBeside ? Math.max(besideX, right - LEGEND_SIZE.width) : MARGIN,
+    y: fitsBeside ? lastTop : y + ROW_GAP,
     width: LEGEND_SIZE.width,
     height: LEGEND_SIZE.height,
   };
   right = Math.max(right, legend.x + legend.width);
   return {
     width: Math.ceil(right + MARGIN),
-    height: Math.ceil(legend.y + legend.height + MARGIN),
+    height: Math.ceil(Math.max(y, legend.y + legend.height) + MARGIN),
     nodes,
     edges,
     unconnectedHeading,
