@@ -1,0 +1,38 @@
+"use server";
+
+import { AuthError, CredentialsSignin } from "next-auth";
+import { signIn } from "@/auth";
+import { env } from "@/lib/env";
+
+export interface SignInState {
+  error?: string;
+  email?: string;
+}
+
+function messageFor(code: string | undefined): string {
+  switch (code) {
+    case "locked":
+      return `This account is locked for ${env().SIGNIN_LOCK_MINUTES} minutes after repeated failed sign-ins. Try again later, or ask your administrator to unlock it.`;
+    case "inactive":
+      return "This account has been deactivated. Ask your administrator if you still need access.";
+    default:
+      return "That e-mail and password do not match an account. Check both and try again.";
+  }
+}
+
+export async function signInAction(_prev: SignInState, formData: FormData): Promise<SignInState> {
+  const email = String(formData.get("email") ?? "");
+  const password = String(formData.get("password") ?? "");
+  const next = String(formData.get("next") ?? "/");
+  if (!email.trim() || !password) return { error: "Enter your e-mail and password.", email };
+  // Only same-site paths, so the sign-in page cannot be used to send people elsewhere.
+  const redirectTo = next.startsWith("/") && !next.startsWith("//") ? next : "/";
+  try {
+    await signIn("credentials", { email, password, redirectTo });
+    return {};
+  } catch (error) {
+    if (error instanceof CredentialsSignin) return { error: messageFor(error.code), email };
+    if (error instanceof AuthError) return { error: messageFor(undefined), email };
+    throw error; // the redirect after a successful sign-in
+  }
+}

@@ -1,0 +1,38 @@
+import type { Metadata } from "next";
+import localFont from "next/font/local";
+import "./globals.css";
+
+const plexSans = localFont({
+  variable: "--font-plex-sans",
+  display: "swap",
+  src: [
+    { path: "../fonts/web/ibm-plex-sans-latin-400-normal.woff2", weight: "400", style: "normal" },
+    { path: "../fonts/web/ibm-plex-sans-latin-400-italic.woff2", weight: "400", style: "italic" },
+    { path: "../fonts/web/ibm-plex-sans-latin-500-normal.woff2", weight: "500", style: "normal" },
+    { path: "../fonts/web/ibm-plex-sans-latin-600-normal.woff2", weight: "600", style: "normal" },
+    { path: "../fonts/web/ibm-plex-sans-latin-700-normal.woff2", weight: "700", style: "normal" },
+  ],
+});
+
+const plexMono = localFont({
+  variable: "--font-plex-mono",
+  display: "swap",
+  src: [
+    { path: "../fonts/web/ibm-plex-mono-latin-400-normal.woff2", weight: "400", style: "normal" },
+    { path: "../fonts/web/ibm-plex-mono-latin-500-normal.woff2", weight: "500", style: "normal" },
+    { path: "../fonts/web/ibm-plex-mono-latin-600-normal.woff2", weight: "600", style: "normal" },
+  ],
+});
+
+export const metadata: Metadata = {
+  title: { default: "Sundocket", template: "%s · Sundocket" },
+  description: "Code checks and permit packets for solar + battery systems",
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
+      <body className="min-h-screen">{children}</body>
+    </html>
+  );
+}

@@ -1,0 +1,34 @@
+import type { NextAuthConfig } from "next-auth";
+
+/**
+ * The part of the auth configuration the proxy needs: no database, no
+ * password hashing. Providers are added in auth.ts.
+ */
+export const authConfig = {
+  pages: { signIn: "/sign-in" },
+  trustHost: true,
+  session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
+  providers: [],
+  callbacks: {
+    authorized({ auth, request }) {
+      const path = request.nextUrl.pathname;
+      const isPublic = path === "/sign-in" || path.startsWith("/api/auth") || path.startsWith("/api/health");
+      if (isPublic) return true;
+      return !!auth?.user;
+    },
+    jwt({ token, user }) {
+      if (user) {
+        token.userId = user.id;
+        token.orgId = (user as { orgId?: string }).orgId;
+      }
+      return token;
+    },
+    session({ session, token }) {
+      if (session.user) {
+        session.user.id = String(token.userId ?? "");
+        (session.user as { orgId?: string }).orgId = token.orgId as string | undefined;
+      }
+      return session;
+    },
+  },
+} satisfies NextAuthConfig;

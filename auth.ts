@@ -1,0 +1,44 @@
+import NextAuth, { CredentialsSignin } from "next-auth";
+import Credentials from "next-auth/providers/credentials";
+import { z } from "zod";
+import { authConfig } from "./auth.config";
+import { getDb } from "./db/client";
+import { env } from "./lib/env";
+import { verifyCredentials } from "./lib/services/auth/verify-credentials";
+
+class LockedSignIn extends CredentialsSignin {
+  code = "locked";
+}
+class InactiveSignIn extends CredentialsSignin {
+  code = "inactive";
+}
+class WrongCredentials extends CredentialsSignin {
+  code = "credentials";
+}
+
+const credentialsSchema = z.object({
+  email: z.string().trim().email().max(254),
+  password: z.string().min(1).max(200),
+});
+
+export const { handlers, auth, signIn, signOut } = NextAuth({
+  ...authConfig,
+  providers: [
+    Credentials({
+      credentials: { email: { label: "E-mail" }, password: { label: "Password", type: "password" } },
+      async authorize(raw) {
+        const parsed = credentialsSchema.safeParse(raw);
+        if (!parsed.success) throw new WrongCredentials();
+        const { SIGNIN_MAX_FAILURES, SIGNIN_LOCK_MINUTES } = env();
+        const outcome = await verifyCredentials(getDb(), parsed.data.email, parsed.data.password, {
+          maxFailures: SIGNIN_MAX_FAILURES,
+          lockMinutes: SIGNIN_LOCK_MINUTES,
+        });
+        if (outcome.ok) return { id: outcome.user.id, name: outcome.user.name, email: outcome.user.email, orgId: outcome.user.orgId };
+        if (outcome.reason === "locked") throw new LockedSignIn();
+        if (outcome.reason === "inactive") throw new InactiveSignIn();
+        throw new WrongCredentials();
+      },
+    }),
+  ],
+});

@@ -1,0 +1,76 @@
+import { index, sqliteTable, text } from "drizzle-orm/sqlite-core";
+import { createdAt, id, version } from "./columns";
+import { jurisdictions } from "./jurisdictions";
+import { organisations } from "./organisations";
+import { packetRevisions } from "./packet-revisions";
+import { projects } from "./projects";
+import { users } from "./users";
+
+export const SUBMISSION_EVENT_KINDS = [
+  "submitted",
+  "in-plan-review",
+  "on-hold",
+  "corrections-requested",
+  "resubmitted",
+  "approved",
+  "permit-issued",
+  "fee-paid",
+  "inspection-scheduled",
+  "inspection-passed",
+  "inspection-failed",
+  "finaled",
+  "expired",
+  "cancelled",
+] as const;
+export type SubmissionEventKind = (typeof SUBMISSION_EVENT_KINDS)[number];
+
+export const submissions = sqliteTable(
+  "submissions",
+  {
+    id: id(),
+    orgId: text("org_id")
+      .notNull()
+      .references(() => organisations.id),
+    projectId: text("project_id")
+      .notNull()
+      .references(() => projects.id),
+    jurisdictionId: text("jurisdiction_id")
+      .notNull()
+      .references(() => jurisdictions.id),
+    revisionId: text("revision_id")
+      .notNull()
+      .references(() => packetRevisions.id),
+    method: text("method", { enum: ["portal", "email", "counter"] }).notNull(),
+    referenceNumber: text("reference_number").notNull().default(""),
+    /** Kind of the latest event, kept for the queue; the events are the record. */
+    status: text("status", { enum: SUBMISSION_EVENT_KINDS }).notNull().default("submitted"),
+    createdBy: text("created_by").references(() => users.id),
+    createdAt: createdAt(),
+    version: version(),
+  },
+  (t) => [index("submissions_org_idx").on(t.orgId, t.status)],
+);
+export type Submission = typeof submissions.$inferSelect;
+
+/** Append-only: events are never updated or deleted. */
+export const submissionEvents = sqliteTable(
+  "submission_events",
+  {
+    id: id(),
+    orgId: text("org_id")
+      .notNull()
+      .references(() => organisations.id),
+    submissionId: text("submission_id")
+      .notNull()
+      .references(() => submissions.id),
+    kind: text("kind", { enum: SUBMISSION_EVENT_KINDS }).notNull(),
+    occurredOn: text("occurred_on").notNull(),
+    userId: text("user_id").references(() => users.id),
+    note: text("note").notNull().default(""),
+    /** Permit number and expiry, fee amount, inspection kind (rough, final, fire final) … */
+    data: text("data", { mode: "json" }).$type<Record<string, unknown>>().notNull().default({}),
+    createdAt: createdAt(),
+  },
+  (t) => [index("submission_events_submission_idx").on(t.submissionId)],
+);
+export type SubmissionEvent = typeof submissionEvents.$inferSelect;

@@ -1,0 +1,24 @@
+import "server-only";
+import { auth } from "../../auth";
+import { getDb } from "../../db/client";
+import { contextForUser, type ServiceContext } from "../services/context";
+import { ServiceError } from "../services/errors";
+
+/** The service context of the signed-in user, or null when signed out or deactivated. */
+export async function currentContext(): Promise<ServiceContext | null> {
+  const session = await auth();
+  const userId = session?.user?.id;
+  if (!userId) return null;
+  try {
+    return contextForUser(getDb(), userId);
+  } catch (error) {
+    if (error instanceof ServiceError && error.code === "unauthenticated") return null;
+    throw error;
+  }
+}
+
+/** As currentContext, but throws the typed 401 for route handlers and actions. */
+export async function requireContext(): Promise<ServiceContext> {
+  const session = await auth();
+  return contextForUser(getDb(), session?.user?.id);
+}

@@ -1,0 +1,52 @@
+import { and, eq } from "drizzle-orm";
+import type { Db } from "../../db/client";
+import { auditLog, userRoles, users } from "../../db/schema";
+import { can, type Permission } from "../auth/permissions";
+import { isRole, type Role } from "../auth/roles";
+import { forbidden, unauthenticated } from "./errors";
+
+/** Who is acting, for which organisation, with which database. Every service takes one. */
+export interface ServiceContext {
+  db: Db;
+  user: { id: string; name: string; email: string };
+  orgId: string;
+  roles: Role[];
+}
+
+export function requirePermission(ctx: ServiceContext, permission: Permission, what?: string): void {
+  if (!can(ctx.roles, permission)) throw forbidden(what ?? permission.replace(":", " "));
+}
+
+/**
+ * Builds the context from the signed-in user's id, re-reading the user so a
+ * deactivated account or a changed role takes effect on the next request,
+ * whatever the session token still says.
+ */
+export function contextForUser(db: Db, userId: string | undefined | null): ServiceContext {
+  if (!userId) throw unauthenticated();
+  const user = db.select().from(users).where(eq(users.id, userId)).get();
+  if (!user || !user.active) throw unauthenticated();
+  const roles = db
+    .select({ role: userRoles.role })
+    .from(userRoles)
+    .where(eq(userRoles.userId, user.id))
+    .all()
+    .map((r) => r.role)
+    .filter(isRole);
+  return { db, user: { id: user.id, name: user.name, email: user.email }, orgId: user.orgId, roles };
+}
+
+type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+
+export function audit(
+  tx: Tx | Db,
+  ctx: ServiceContext,
+  action: string,
+  entity: string,
+  entityId: string | null,
+  detail: Record<string, unknown> = {},
+): void {
+  tx.insert(auditLog).values({ orgId: ctx.orgId, userId: ctx.user.id, action, entity, entityId, detail }).run();
+}
+
+export { and, eq };

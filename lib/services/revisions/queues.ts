@@ -1,0 +1,83 @@
+import { and, desc, eq, inArray } from "drizzle-orm";
+import { jurisdictions, packetRevisions, projects, submissions } from "../../../db/schema";
+import { requirePermission, type ServiceContext } from "../context";
+
+export interface RevisionQueueRow {
+  revisionId: string;
+  projectId: string;
+  projectName: string;
+  address: string;
+  number: number;
+  reviewState: string;
+  isDraft: boolean;
+  createdAt: string;
+  jurisdictionName: string | null;
+}
+
+function revisionRows(ctx: ServiceContext, states: ("draft" | "in-review" | "returned" | "approved")[]): RevisionQueueRow[] {
+  return ctx.db
+    .select({
+      revisionId: packetRevisions.id,
+      projectId: projects.id,
+      projectName: projects.name,
+      address: projects.address,
+      number: packetRevisions.number,
+      reviewState: packetRevisions.reviewState,
+      isDraft: packetRevisions.isDraft,
+      createdAt: packetRevisions.createdAt,
+      jurisdictionName: jurisdictions.name,
+    })
+    .from(packetRevisions)
+    .innerJoin(projects, and(eq(projects.id, packetRevisions.projectId), eq(projects.orgId, ctx.orgId)))
+    .leftJoin(jurisdictions, eq(jurisdictions.id, projects.jurisdictionId))
+    .where(and(eq(packetRevisions.orgId, ctx.orgId), inArray(packetRevisions.reviewState, states)))
+    .orderBy(desc(packetRevisions.createdAt))
+    .all();
+}
+
+/** Revisions waiting for a reviewer, newest first. */
+export function listReviewQueue(ctx: ServiceContext): RevisionQueueRow[] {
+  requirePermission(ctx, "review:read", "read the review queue");
+  return revisionRows(ctx, ["in-review", "returned", "approved"]);
+}
+
+/** Approved revisions an installer works from. */
+export function listApprovedForInstall(ctx: ServiceContext): RevisionQueueRow[] {
+  requirePermission(ctx, "install:read", "open approved sets");
+  return revisionRows(ctx, ["approved"]);
+}
+
+export interface SubmissionQueueRow {
+  submissionId: string;
+  projectId: string;
+  projectName: string;
+  jurisdictionName: string;
+  method: string;
+  referenceNumber: string;
+  status: string;
+  revisionNumber: number;
+  createdAt: string;
+}
+
+export function listSubmissions(ctx: ServiceContext): SubmissionQueueRow[] {
+  requirePermission(ctx, "submission:read", "read submissions");
+  return ctx.db
+    .select({
+      submissionId: submissions.id,
+      projectId: projects.id,
+      projectName: projects.name,
+      jurisdictionName: jurisdictions.name,
+      method: submissions.method,
+      referenceNumber: submissions.referenceNumber,
+      status: submissions.status,
+      revisionNumber: packetRevisions.number,
+      createdAt: submissions.createdAt,
+    })
+    .from(submissions)
+    .innerJoin(projects, eq(projects.id, submissions.projectId))
+    .innerJoin(jurisdictions, eq(jurisdictions.id, submissions.jurisdictionId))
+    .innerJoin(packetRevisions, eq(packetRevisions.id, submissions.revisionId))
+    .where(eq(submissions.orgId, ctx.orgId))
+    .orderBy(desc(submissions.createdAt))
+    .all();
+}

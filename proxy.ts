@@ -1,0 +1,12 @@
+import NextAuth from "next-auth";
+import { authConfig } from "./auth.config";
+
+/**
+ * Sends signed-out visitors to sign-in. This is navigation, not
+ * authorisation: every service checks the actor's permission itself.
+ */
+export default NextAuth(authConfig).auth;
+
+export const config = {
+  matcher: ["/((?!_next/static|_next/image|favicon.ico|fonts/).*)"],
+};
