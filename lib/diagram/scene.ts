@@ -13,8 +13,8 @@ import { TEXT, lineHeight } from "./text";
 export type Ink = "ink" | "muted" | "trouble" | "paper" | "band";
 
 export const PALETTE: Record<Ink, string> = {
-  ink: "#1b1f24",
-  muted: "#4b525b",
+  ink: "#1c2230",
+  muted: "#4a5262",
   trouble: "#b3261e",
   paper: "#ffffff",
   band: "#eef0f2",
