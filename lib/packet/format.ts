@@ -1,0 +1,51 @@
+import type { CheckStatus, CheckValue, CheckInput } from "../compliance/types";
+
+/** Each status is a word and a shape as well as a colour, so it survives grey-scale printing. */
+export const STATUS_WORD: Record<CheckStatus, string> = {
+  fail: "FAIL",
+  "needs-input": "NEEDS INPUT",
+  warning: "WARNING",
+  attest: "ATTEST",
+  pass: "PASS",
+  "not-applicable": "N/A",
+};
+
+export const STATUS_SHAPE: Record<CheckStatus, string> = {
+  fail: "■",
+  "needs-input": "○",
+  warning: "▲",
+  attest: "◆",
+  pass: "✓",
+  "not-applicable": "–",
+};
+
+export function statusLabel(status: CheckStatus): string {
+  return `${STATUS_SHAPE[status]} ${STATUS_WORD[status]}`;
+}
+
+/** Figures as the engine gave them, trimmed to three decimals (the engine rounds its own results). */
+export function formatNumber(value: number): string {
+  if (!Number.isFinite(value)) return String(value);
+  const rounded = Math.round(value * 1000) / 1000;
+  return Object.is(rounded, -0) ? "0" : String(rounded);
+}
+
+export function formatValue(value: number | string | boolean | null, unit: string): string {
+  if (value === null) return "— (missing)";
+  const text = typeof value === "number" ? formatNumber(value) : typeof value === "boolean" ? (value ? "yes" : "no") : value;
+  return unit ? `${text} ${unit}` : text;
+}
+
+export function formatCheckValue(v: CheckValue | CheckInput): string {
+  return formatValue(v.value, v.unit);
+}
+
+export function isoDate(iso: string): string {
+  return iso.slice(0, 10);
+}
+
+export function dash(v: string | number | undefined | null, unit = ""): string {
+  if (v === undefined || v === null || v === "") return "—";
+  const text = typeof v === "number" ? formatNumber(v) : v;
+  return unit ? `${text} ${unit}` : text;
+}

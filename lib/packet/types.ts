@@ -1,0 +1,83 @@
+import type { CheckRun } from "../compliance/types";
+import type { LabelRequirement } from "../labels/types";
+import type { ProjectRecord } from "../schemas/project-record";
+
+export const SHEET_TEMPLATE_NAMES = [
+  "cover",
+  "general-notes",
+  "site-plan",
+  "one-line",
+  "energy-storage",
+  "calculations",
+  "schedules",
+  "label-schedule",
+  "review-record",
+] as const;
+export type SheetTemplateName = (typeof SHEET_TEMPLATE_NAMES)[number];
+
+export interface PacketRevision {
+  number: number;
+  /** ISO 8601, supplied by the caller so rendering stays free of the clock. */
+  createdAt: string;
+  preparedBy: string;
+  organisation: string;
+}
+
+export interface PacketApproval {
+  reviewerName: string;
+  licenceNumber: string;
+  licenceState: string;
+  licenceDiscipline: string;
+  /** ISO 8601. */
+  approvedAt: string;
+  stampImage?: { bytes: Uint8Array; type: "png" | "jpeg" };
+  /** The approval is bound to this hash of the revision's record snapshot. */
+  recordSha256: string;
+}
+
+export interface ReviewNote {
+  /** A check result id or a sheet code. */
+  target: string;
+  text: string;
+  author: string;
+}
+
+export interface SitePlanAttachment {
+  bytes: Uint8Array;
+  type: "pdf" | "png" | "jpeg";
+  fileName: string;
+}
+
+export interface DatasheetAttachment {
+  title: string;
+  equipmentTag?: string;
+  /** A PDF. */
+  bytes: Uint8Array;
+}
+
+export interface PacketInput {
+  record: ProjectRecord;
+  run: CheckRun;
+  labels: LabelRequirement[];
+  revision: PacketRevision;
+  approval?: PacketApproval;
+  reviewNotes?: ReviewNote[];
+  sitePlan?: SitePlanAttachment;
+  datasheets: DatasheetAttachment[];
+  /** Handlebars sources replacing the shipped sheet templates (a jurisdiction's cover letter, general notes). */
+  templateOverrides?: Partial<Record<SheetTemplateName, string>>;
+}
+
+export interface SheetPages {
+  sheet: string;
+  title: string;
+  /** 1-based page number in the packet. */
+  firstPage: number;
+  pageCount: number;
+}
+
+export interface PacketPdf {
+  bytes: Uint8Array;
+  pageCount: number;
+  sheetPages: SheetPages[];
+}
