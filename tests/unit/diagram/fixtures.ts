@@ -104,3 +104,39 @@ export function danglingRecord(): ProjectRecord {
 
 export const emptyRecord = (): ProjectRecord =>
   parseRecord({ name: "Empty", systemKind: "stand-alone", site, jurisdiction });
+
+/**
+ * A larger stand-alone system: two arrays on two controllers, each string its
+ * own fused source circuit, two battery banks on a bus bar, a generator, a
+ * main panel and a sub-panel. Parallel circuits between the same two boxes
+ * and a wide fan-in are where a layout shows its seams.
+ */
+export const largeInput: ProjectRecordInput = {
+  ...standAloneInput,
+  name: "Quarry Road workshop",
+  equipment: [
+    ...(standAloneInput.equipment ?? []).filter((e) => e.tag !== "RSD-1"),
+    { tag: "CC-2", kind: "charge-controller", manufacturer: "Northgate", model: "NG-250/100", controllerType: "mppt", maxPvInputVoltageV: 250, maxPvInputCurrentA: 100, ratedOutputCurrentA: 100, batteryVoltagesV: [48] },
+    { tag: "F-S1", kind: "fuse", ratingA: 20, voltageRatingV: 600, currentType: "dc" },
+    { tag: "F-S2", kind: "fuse", ratingA: 20, voltageRatingV: 600, currentType: "dc" },
+    { tag: "CB-CC2", kind: "breaker", ratingA: 125, voltageRatingV: 150, currentType: "dc", interruptingRatingA: 10000 },
+    { tag: "BAT-2", kind: "battery", manufacturer: "Stillwater", model: "SW-5100", chemistry: "lfp", nominalVoltageV: 51.2, capacityAh: 100, capacityKWh: 5.12, quantity: 3, listing: "UL 9540" },
+    { tag: "F-BAT2", kind: "fuse", ratingA: 250, voltageRatingV: 160, currentType: "dc", interruptingRatingA: 20000 },
+    { tag: "SUB-1", kind: "ac-panel", manufacturer: "Kestrel", model: "KLC-70", busRatingA: 70, mainBreakerA: 40, voltage: "120/240" },
+    { tag: "CB-SUB", kind: "breaker", ratingA: 40, voltageRatingV: 240, currentType: "ac" },
+  ],
+  arrays: [
+    { tag: "PV-1", moduleTag: "PV-M1", modulesInSeries: 3, stringsInParallel: 2, feedsTag: "CC-1" },
+    { tag: "PV-2", moduleTag: "PV-M1", modulesInSeries: 4, stringsInParallel: 2, feedsTag: "CC-2" },
+  ],
+  circuits: [
+    ...(standAloneInput.circuits ?? []),
+    { tag: "S-1", fromTag: "PV-2", toTag: "CC-2", kind: "pv-source", arrayTag: "PV-2", size: "10", insulation: "PV WIRE", insulationTempRatingC: 90, racewayType: "PVC", racewaySize: "1", currentCarryingConductors: 4, lengthFt: 80, egcSize: "10", ocpdTag: "F-S1" },
+    { tag: "S-2", fromTag: "PV-2", toTag: "CC-2", kind: "pv-source", arrayTag: "PV-2", size: "10", insulation: "PV WIRE", insulationTempRatingC: 90, racewayType: "PVC", racewaySize: "1", currentCarryingConductors: 4, lengthFt: 80, egcSize: "10", ocpdTag: "F-S2" },
+    { tag: "C-7", fromTag: "CC-2", toTag: "BUS-1", kind: "battery", size: "2", insulation: "THWN-2", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "1", lengthFt: 6, egcSize: "6", ocpdTag: "CB-CC2" },
+    { tag: "C-8", fromTag: "BUS-1", toTag: "BAT-2", kind: "battery", size: "4/0", insulation: "THHN", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "1-1/4", lengthFt: 4, egcSize: "4", ocpdTag: "F-BAT2" },
+    { tag: "C-9", fromTag: "PNL-1", toTag: "SUB-1", kind: "ac-branch", size: "8", insulation: "THWN-2", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "3/4", lengthFt: 70, egcSize: "10", ocpdTag: "CB-SUB" },
+  ],
+};
+
+export const large = (): ProjectRecord => parseRecord(largeInput);

@@ -3,7 +3,7 @@ import fc from "fast-check";
 import { layoutOneLine, type Box, type OneLineLayout } from "@/lib/diagram/layout";
 import { circuitText, conductorsPerSet, sizeText } from "@/lib/diagram/describe";
 import type { ProjectRecord } from "@/lib/schemas/project-record";
-import { danglingRecord, emptyRecord, hybrid, parseRecord, standAlone } from "./fixtures";
+import { danglingRecord, emptyRecord, hybrid, large, parseRecord, standAlone } from "./fixtures";
 
 function overlaps(a: Box, b: Box, gap = 0): boolean {
   return a.x < b.x + b.width + gap && b.x < a.x + a.width + gap && a.y < b.y + b.height + gap && b.y < a.y + a.height + gap;
@@ -60,8 +60,8 @@ describe("one-line layout", () => {
     for (const t of ["PV-1", "CC-1", "BUS-1", "BAT-1", "INV-1", "GEN-1", "PNL-1"]) expect(tags).toContain(t);
   });
 
-  it("does the same for the hybrid system and the single-row layout", async () => {
-    for (const record of [hybrid(), standAlone()]) {
+  it("does the same for the hybrid and the larger system, wrapped or in a single row", async () => {
+    for (const record of [hybrid(), standAlone(), large(), danglingRecord()]) {
       expectSoundGeometry(await layoutOneLine(record, { wrap: false }), record);
       expectSoundGeometry(await layoutOneLine(record), record);
     }
