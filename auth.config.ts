@@ -14,7 +14,12 @@ export const authConfig = {
       const path = request.nextUrl.pathname;
       const isPublic = path === "/sign-in" || path.startsWith("/api/auth") || path.startsWith("/api/health");
       if (isPublic) return true;
-      return !!auth?.user;
+      if (auth?.user) return true;
+      // Route handlers answer JSON, not a redirect, so client code can show the refusal.
+      if (path.startsWith("/api/")) {
+        return Response.json({ error: "Sign in to continue.", code: "unauthenticated", issues: [] }, { status: 401 });
+      }
+      return false;
     },
     jwt({ token, user }) {
       if (user) {

@@ -45,5 +45,6 @@ export function env(): Env {
 
 /** Resolves a configured path against the project root (the process's working directory). */
 export function resolvePath(p: string): string {
-  return path.isAbsolute(p) ? p : path.resolve(process.cwd(), p);
+  // Configured at run time; the build need not trace these folders.
+  return path.isAbsolute(p) ? p : path.resolve(/*turbopackIgnore: true*/ process.cwd(), p);
 }

@@ -1,0 +1,65 @@
+/**
+ * `npm test`: every test the project has, in the order that fails fastest —
+ * types, lint, unit and integration tests, then the production build and the
+ * end-to-end suite in Debian's Chromium against a freshly seeded database.
+ */
+import fs from "node:fs";
+import path from "node:path";
+import { migrateDatabase, openDatabase } from "../db/client";
+import { seed } from "../db/seed";
+import { ensureAuthSecret } from "./lib/ensure-secret";
+import { commandExists, run } from "./lib/run";
+
+const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+
+async function ensureChromium(): Promise<void> {
+  if (fs.existsSync(CHROMIUM)) return;
+  const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
+  if (isRoot && commandExists("apt-get")) {
+    console.log("Chromium is missing; installing Debian's chromium package for the browser tests…");
+    const update = await run("apt-get", ["update", "-qq"]);
+    const install = update === 0 ? await run("apt-get", ["install", "-y", "-qq", "chromium"]) : update;
+    if (install === 0 && fs.existsSync(CHROMIUM)) return;
+  }
+  console.error(
+    `The browser tests need Chromium at ${CHROMIUM}.\n` +
+      "Install it with `sudo apt-get install -y chromium` (Debian/Ubuntu), or set CHROMIUM_PATH to a Chromium binary.",
+  );
+  process.exit(1);
+}
+
+async function step(name: string, command: string, args: string[], env: NodeJS.ProcessEnv = process.env) {
+  console.log(`\n── ${name} ──`);
+  const started = Date.now();
+  const code = await run(command, args, env);
+  console.log(`── ${name}: ${code === 0 ? "ok" : `failed (exit ${code})`} in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+  if (code !== 0) process.exit(code);
+}
+
+async function prepareE2eDatabase(): Promise<void> {
+  const dir = path.resolve("data/e2e");
+  fs.rmSync(dir, { recursive: true, force: true });
+  fs.mkdirSync(dir, { recursive: true });
+  const db = openDatabase(path.join(dir, "sundocket.db"));
+  migrateDatabase(db);
+  await seed(db);
+  db.$client.close();
+}
+
+async function main() {
+  ensureAuthSecret();
+  await ensureChromium();
+  await step("Type check", "npx", ["tsc", "--noEmit"]);
+  await step("Lint", "npx", ["eslint", "--max-warnings", "0", "."]);
+  await step("Unit and integration tests", "npx", ["vitest", "run"]);
+  await step("Production build", "npx", ["next", "build"]);
+  console.log("\n── Seeding the end-to-end database ──");
+  await prepareE2eDatabase();
+  await step("End-to-end tests (Chromium)", "npx", ["playwright", "test"]);
+  console.log("\nAll tests passed.");
+}
+
+main().catch((error) => {
+  console.error(error);
+  process.exit(1);
+});

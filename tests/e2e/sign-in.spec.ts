@@ -1,0 +1,118 @@
+import { expect, test } from "@playwright/test";
+import { DEMO_JURISDICTIONS } from "../../db/demo-scenario";
+import { demoUser, signIn, signInAs } from "./helpers";
+
+test.describe("each role lands on the page that serves it, with the seeded rows", () => {
+  test("designer → projects, fetched from the projects route", async ({ page }) => {
+    await signInAs(page, "designer");
+    await expect(page).toHaveURL(/\/projects$/);
+    const table = page.getByRole("table", { name: "Projects" });
+    await expect(table).toBeVisible();
+    for (const j of DEMO_JURISDICTIONS) await expect(table.getByText(j.name)).toBeVisible();
+    await expect(table.locator("tbody tr")).toHaveCount(3);
+  });
+
+  test("reviewer → review queue with the revision awaiting review", async ({ page }) => {
+    await signInAs(page, "reviewer");
+    await expect(page).toHaveURL(/\/reviews$/);
+    const waiting = page.getByRole("table", { name: "Awaiting review" });
+    await expect(waiting.getByText("Alder Bay County")).toBeVisible();
+    await expect(waiting.getByText("Rev 1")).toBeVisible();
+  });
+
+  test("office → submissions with the permit tracked", async ({ page }) => {
+    await signInAs(page, "office");
+    await expect(page).toHaveURL(/\/submissions$/);
+    const table = page.getByRole("table", { name: "Submissions" });
+    await expect(table.getByText("KF-ELEC-2026-0417")).toBeVisible();
+    await expect(table.getByText("permit-issued")).toBeVisible();
+  });
+
+  test("installer → approved sets only", async ({ page }) => {
+    await signInAs(page, "installer");
+    await expect(page).toHaveURL(/\/install$/);
+    const table = page.getByRole("table", { name: "Approved sets" });
+    await expect(table.locator("tbody tr")).toHaveCount(1);
+    await expect(table.getByText("City of Kestrel Falls")).toBeVisible();
+    await expect(page.getByRole("link", { name: "Projects" })).toHaveCount(0);
+  });
+
+  test("admin → users of the organisation", async ({ page }) => {
+    await signInAs(page, "admin");
+    await expect(page).toHaveURL(/\/admin\/users$/);
+    await expect(page.getByRole("table", { name: "Users" }).getByText(demoUser("designer").name)).toBeVisible();
+  });
+
+  test("every signed-in page carries the caution that checks do not approve", async ({ page }) => {
+    await signInAs(page, "designer");
+    await expect(page.getByRole("note")).toContainText("do not approve anything");
+  });
+});
+
+test.describe("refusals", () => {
+  test("a signed-out visit redirects to sign-in", async ({ page }) => {
+    await page.goto("/projects");
+    await expect(page).toHaveURL(/\/sign-in/);
+    await expect(page.getByRole("heading", { name: "Sign in" })).toBeVisible();
+  });
+
+  test("a signed-out request to a route handler gets 401 JSON, not a page", async ({ request }) => {
+    const response = await request.get("/api/projects", { maxRedirects: 0 });
+    expect(response.status()).toBe(401);
+    expect(await response.json()).toMatchObject({ code: "unauthenticated" });
+  });
+
+  test("a wrong password shows a clear message and does not sign in", async ({ page }) => {
+    await signIn(page, demoUser("designer").email, "not the password");
+    await expect(page.getByRole("alert")).toContainText("do not match an account");
+    await expect(page).toHaveURL(/\/sign-in/);
+  });
+
+  test("an unknown e-mail gets the same message", async ({ page }) => {
+    await signIn(page, "nobody@quillfeather.test", "whatever-it-is");
+    await expect(page.getByRole("alert")).toContainText("do not match an account");
+  });
+
+  test("a forged session cookie is treated as signed out", async ({ page, context, baseURL }) => {
+    await context.addCookies([{ name: "authjs.session-token", value: "forged.token.value", url: baseURL! }]);
+    await page.goto("/projects");
+    await expect(page).toHaveURL(/\/sign-in/);
+  });
+
+  test("a designer opening the users page is refused without a stack trace", async ({ page }) => {
+    await signInAs(page, "designer");
+    await page.goto("/admin/users");
+    await expect(page.getByRole("alert")).toContainText("Only administrators");
+    await expect(page.locator("body")).not.toContainText("at ");
+  });
+
+  test("an unknown project id is a plain not-found", async ({ page }) => {
+    await signInAs(page, "designer");
+    const response = await page.request.get("/api/projects/00000000-0000-0000-0000-000000000000/checks");
+    expect([404]).toContain(response.status());
+  });
+});
+
+test("an admin adds a user, who is locked out after repeated wrong passwords and cannot sign in once deactivated", async ({ page, browser }) => {
+  await signInAs(page, "admin");
+  const form = page.getByRole("form", { name: "Add a user" });
+  await form.getByLabel("Name").fill("Pat Lindqvist");
+  await form.getByLabel("E-mail").fill("pat@quillfeather.test");
+  await form.getByLabel("First password (12+ characters)").fill("first-password-pat");
+  await form.getByLabel("Installer").check();
+  await form.getByRole("button", { name: "Add user" }).click();
+  await expect(page.getByRole("table", { name: "Users" }).getByText("pat@quillfeather.test")).toBeVisible();
+
+  const other = await browser.newPage();
+  for (let i = 0; i < 5; i++) await signIn(other, "pat@quillfeather.test", `wrong-${i}`);
+  await expect(other.getByRole("alert")).toContainText("locked");
+  await signIn(other, "pat@quillfeather.test", "first-password-pat");
+  await expect(other.getByRole("alert")).toContainText("locked");
+
+  await page.reload();
+  await page.getByRole("form", { name: "Deactivate Pat Lindqvist" }).getByRole("button").click();
+  await expect(page.getByRole("form", { name: "Reactivate Pat Lindqvist" })).toBeVisible();
+  await signIn(other, "pat@quillfeather.test", "first-password-pat");
+  await expect(other.getByRole("alert")).toContainText(/deactivated|locked/);
+  await other.close();
+});
