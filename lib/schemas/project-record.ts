@@ -45,6 +45,11 @@ export const siteSchema = z.object({
   designLowTempSource: text(300).default(""),
   designHighTempC: numberIn(-60, 70, "°C").optional(),
   designHighTempSource: text(300).default(""),
+  /**
+   * Module temperature above ambient at the design high temperature, for the MPPT window.
+   * About 30 °C for rack and roof mounts by common practice; used when this is left empty.
+   */
+  moduleTempRiseC: numberIn(0, 50, "°C").optional(),
   /** Peak sun hours per day for the stand-alone energy balance (worst month by common practice). */
   sunHoursPerDay: numberIn(0.5, 12, "h").optional(),
   batteryLocation: z.enum(BATTERY_LOCATIONS).optional(),
@@ -152,6 +157,8 @@ export const batterySchema = z.object({
   shortCircuitCurrentA: numberIn(1, 200000, "A").optional(),
   usableDodPct: numberIn(10, 100, "%").optional(),
   maxConnectionsPerTerminal: integerIn(1, 12).optional(),
+  /** Highest charge (absorption) voltage; the battery circuits' maximum voltage and the MPPT headroom. */
+  maxChargeVoltageV: numberIn(2, 1200, "V").optional(),
   /** Large-scale fire testing (UL 9540A) supports spacing closer than 3 ft. */
   largeScaleFireTested: z.boolean().default(false),
 });
@@ -273,6 +280,14 @@ export const circuitSchema = z
     stringsCarried: integerIn(1, 200).optional(),
     /** For an AC branch circuit: the load current it serves. */
     loadCurrentA: numberIn(0, 2000, "A").optional(),
+    /**
+     * Continuous current where the engine cannot derive it from the equipment
+     * (e.g. a battery circuit to a bus bar serving several devices). Taken as
+     * the circuit's current when given.
+     */
+    designCurrentA: numberIn(0, 5000, "A").optional(),
+    /** Nominal voltage of an AC branch circuit (for voltage drop), where no inverter sets it. */
+    nominalVoltageV: numberIn(12, 600, "V").optional(),
     material: z.enum(["cu", "al"], { error: "must be cu or al" }).default("cu"),
     size: conductorSizeSchema.optional(),
     parallelSets: integerIn(1, 8).default(1),
@@ -339,7 +354,7 @@ export type AttachmentRef = z.infer<typeof attachmentRefSchema>;
 export const PROJECT_FILE_FORMAT = "sundocket-project" as const;
 export const PROJECT_FILE_VERSION = 1 as const;
 
-export const projectRecordSchema = z.object({
+export const projectRecordObjectSchema = z.object({
   format: z.literal(PROJECT_FILE_FORMAT).default(PROJECT_FILE_FORMAT),
   formatVersion: z.literal(PROJECT_FILE_VERSION).default(PROJECT_FILE_VERSION),
   name: requiredText(200),
@@ -359,5 +374,136 @@ export const projectRecordSchema = z.object({
   loads: z.array(loadSchema).default([]),
   attachments: z.array(attachmentRefSchema).default([]),
 });
+
+type RecordShape = z.output<typeof projectRecordObjectSchema>;
+
+const PV_CIRCUIT_KINDS: readonly string[] = ["pv-source", "pv-output"];
+const PV_FED_KINDS: readonly string[] = ["charge-controller", ...INVERTER_KINDS];
+const OCPD_KINDS: readonly string[] = ["fuse", "breaker"];
+const DISCONNECT_KINDS: readonly string[] = ["disconnect", "breaker", "fuse"];
+
+/**
+ * Refuses references that point at nothing or at the wrong kind of thing, so
+ * the engine never has to guess what a tag means. Tags are unique across
+ * equipment, arrays and circuits: a tag names one thing on the one-line diagram.
+ */
+function checkReferences(record: RecordShape, ctx: z.RefinementCtx): void {
+  const equipmentByTag = new Map<string, Equipment>();
+  const arrayTags = new Set<string>();
+  const seen = new Map<string, string>();
+  const claim = (tag: string, path: (string | number)[]) => {
+    const first = seen.get(tag);
+    if (first !== undefined) {
+      ctx.addIssue({ code: "custom", path, message: `duplicate tag "${tag}" (already used at ${first})` });
+    } else {
+      seen.set(tag, path.slice(0, 2).join("."));
+    }
+  };
+  record.equipment.forEach((e, i) => {
+    claim(e.tag, ["equipment", i, "tag"]);
+    if (!equipmentByTag.has(e.tag)) equipmentByTag.set(e.tag, e);
+  });
+  record.arrays.forEach((a, i) => {
+    claim(a.tag, ["arrays", i, "tag"]);
+    arrayTags.add(a.tag);
+  });
+  record.circuits.forEach((c, i) => claim(c.tag, ["circuits", i, "tag"]));
+
+  record.arrays.forEach((a, i) => {
+    const module = equipmentByTag.get(a.moduleTag);
+    if (!module) {
+      ctx.addIssue({ code: "custom", path: ["arrays", i, "moduleTag"], message: `names no equipment: "${a.moduleTag}"` });
+    } else if (module.kind !== "pv-module") {
+      ctx.addIssue({
+        code: "custom",
+        path: ["arrays", i, "moduleTag"],
+        message: `"${a.moduleTag}" is a ${module.kind}, not a pv-module`,
+      });
+    }
+    const fed = equipmentByTag.get(a.feedsTag);
+    if (!fed) {
+      ctx.addIssue({ code: "custom", path: ["arrays", i, "feedsTag"], message: `names no equipment: "${a.feedsTag}"` });
+    } else if (!PV_FED_KINDS.includes(fed.kind)) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["arrays", i, "feedsTag"],
+        message: `"${a.feedsTag}" is a ${fed.kind}, not a charge controller or inverter`,
+      });
+    } else if (a.mpptInputId !== undefined && a.mpptInputId !== "") {
+      const inputs = fed.kind === "charge-controller" ? [] : (fed as { mpptInputs: { id: string }[] }).mpptInputs;
+      if (!inputs.some((m) => m.id === a.mpptInputId)) {
+        const have = inputs.map((m) => m.id).join(", ");
+        ctx.addIssue({
+          code: "custom",
+          path: ["arrays", i, "mpptInputId"],
+          message: `string on an MPPT input that does not exist: "${a.feedsTag}" has no input "${a.mpptInputId}"${have ? ` (it has ${have})` : ""}`,
+        });
+      }
+    }
+  });
+
+  record.circuits.forEach((c, i) => {
+    const pv = PV_CIRCUIT_KINDS.includes(c.kind);
+    for (const end of ["fromTag", "toTag"] as const) {
+      const tag = c[end];
+      if (equipmentByTag.has(tag)) continue;
+      if (arrayTags.has(tag)) {
+        if (!pv) {
+          ctx.addIssue({
+            code: "custom",
+            path: ["circuits", i, end],
+            message: `"${tag}" is a PV array; only pv-source and pv-output circuits may start or end at an array`,
+          });
+        }
+        continue;
+      }
+      ctx.addIssue({
+        code: "custom",
+        path: ["circuits", i, end],
+        message: `names no equipment${pv ? " or array" : ""}: "${tag}"`,
+      });
+    }
+    if (c.arrayTag !== undefined && !arrayTags.has(c.arrayTag)) {
+      const e = equipmentByTag.get(c.arrayTag);
+      ctx.addIssue({
+        code: "custom",
+        path: ["circuits", i, "arrayTag"],
+        message: e ? `"${c.arrayTag}" is a ${e.kind}, not an array` : `names no array: "${c.arrayTag}"`,
+      });
+    }
+    if (c.ocpdTag !== undefined) {
+      const e = equipmentByTag.get(c.ocpdTag);
+      if (!e || !OCPD_KINDS.includes(e.kind)) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["circuits", i, "ocpdTag"],
+          message: e ? `"${c.ocpdTag}" is a ${e.kind}, not a fuse or breaker` : `names no equipment: "${c.ocpdTag}"`,
+        });
+      }
+    }
+    c.disconnectTags.forEach((tag, j) => {
+      const e = equipmentByTag.get(tag);
+      if (!e || !DISCONNECT_KINDS.includes(e.kind)) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["circuits", i, "disconnectTags", j],
+          message: e ? `"${tag}" is a ${e.kind}, not a disconnect, breaker or fuse` : `names no equipment: "${tag}"`,
+        });
+      }
+    });
+  });
+
+  record.attachments.forEach((a, i) => {
+    if (a.equipmentTag !== undefined && !equipmentByTag.has(a.equipmentTag)) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["attachments", i, "equipmentTag"],
+        message: `names no equipment: "${a.equipmentTag}"`,
+      });
+    }
+  });
+}
+
+export const projectRecordSchema = projectRecordObjectSchema.superRefine(checkReferences);
 export type ProjectRecord = z.infer<typeof projectRecordSchema>;
 export type ProjectRecordInput = z.input<typeof projectRecordSchema>;

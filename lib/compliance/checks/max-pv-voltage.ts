@@ -1,0 +1,81 @@
+/** 1. Maximum PV system voltage at the design low temperature (690.7). */
+import { Trace, v, type CheckContext } from "../context";
+import { arrayMaxVoltage, arrayParts, pvInputOf } from "../derive/pv";
+import { refs } from "../refs";
+import { makeResult, needsInput, type CheckDefinition } from "../result";
+import type { CheckResult } from "../types";
+
+export const maxPvVoltage: CheckDefinition = {
+  id: "max-pv-voltage",
+  title: "Maximum PV system voltage at the design low temperature",
+  run(ctx: CheckContext): CheckResult[] {
+    const codeRefs = refs(ctx.edition, "max-voltage", "voltage-correction-table", "building-voltage-limit");
+    const out: CheckResult[] = [];
+    for (const { item: array } of ctx.arrays.values()) {
+      const t = new Trace();
+      const d = arrayMaxVoltage(ctx, array.tag);
+      t.merge(d);
+      const parts = arrayParts(ctx, array.tag)!;
+      const input = pvInputOf(ctx, parts);
+      if (input?.unresolved) t.need(input.unresolved, "MPPT input the string lands on", undefined);
+      if (!d.ok || input?.unresolved) {
+        out.push(needsInput(this, { subject: array.tag, inputs: t.inputs, missing: t.missing, codeRefs, ...(d.ok ? {} : { reason: d.reason }) }));
+        continue;
+      }
+      const vmax = d.value.maxVoltageV;
+      const limits: { label: string; limitV: number }[] = [];
+      const dwelling = ctx.record.site.occupancy === "one-two-family-dwelling";
+      t.read("site.occupancy", "Occupancy", ctx.record.site.occupancy);
+      // 690.7: up to 600 V on or in one- and two-family dwellings, 1000 V on or in other buildings.
+      limits.push({ label: dwelling ? "one- and two-family dwelling limit" : "limit on or in other buildings", limitV: dwelling ? 600 : 1000 });
+      if (input) {
+        const max = t.need(input.maxVoltagePath, `Maximum input voltage of ${input.label}`, input.maxVoltageV, "V");
+        if (max !== undefined) limits.push({ label: `${input.label} maximum input`, limitV: max });
+      }
+      const modRating = parts.module
+        ? t.need(`${parts.module.path}.maxSystemVoltageV`, `Maximum system voltage of ${parts.module.item.tag}`, parts.module.item.maxSystemVoltageV, "V")
+        : undefined;
+      if (modRating !== undefined) limits.push({ label: `module ${parts.module!.item.tag} system voltage rating`, limitV: modRating });
+      for (const c of ctx.circuitsByArray.get(array.tag) ?? []) {
+        for (const tag of c.item.disconnectTags) {
+          const dev = ctx.equipment.get(tag);
+          if (!dev || !("voltageRatingV" in dev.item)) continue;
+          const rating = t.need(`${dev.path}.voltageRatingV`, `Voltage rating of ${tag}`, dev.item.voltageRatingV, "V");
+          if (rating !== undefined) limits.push({ label: `disconnect ${tag} on ${c.item.tag}`, limitV: rating });
+        }
+      }
+      const values = [...d.values, ...limits.map((l, i) => v(`limit${i}`, l.label, l.limitV, "V"))];
+      const exceeded = limits.filter((l) => vmax > l.limitV);
+      if (exceeded.length > 0) {
+        out.push(
+          makeResult(this, {
+            subject: array.tag,
+            status: "fail",
+            message: `${array.tag}: ${vmax.toFixed(1)} V at ${d.value.lowTempC} °C exceeds the ${exceeded.map((l) => `${l.label} (${l.limitV} V)`).join(", ")}.`,
+            reason: `maximum string voltage ${vmax.toFixed(1)} V is above ${exceeded.map((l) => `${l.limitV} V`).join(", ")}; fewer modules in series or equipment rated higher`,
+            values,
+            formula: d.formula,
+            inputs: t.inputs,
+            codeRefs,
+          }),
+        );
+      } else if (t.missing.length > 0) {
+        out.push(needsInput(this, { subject: array.tag, values, formula: d.formula, inputs: t.inputs, missing: t.missing, codeRefs }));
+      } else {
+        const tightest = limits.reduce((a, b) => (b.limitV < a.limitV ? b : a));
+        out.push(
+          makeResult(this, {
+            subject: array.tag,
+            status: "pass",
+            message: `${array.tag}: ${vmax.toFixed(1)} V at ${d.value.lowTempC} °C, within the ${tightest.label} of ${tightest.limitV} V.`,
+            values,
+            formula: d.formula,
+            inputs: t.inputs,
+            codeRefs,
+          }),
+        );
+      }
+    }
+    return out;
+  },
+};

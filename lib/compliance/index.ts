@@ -1,0 +1,44 @@
+/**
+ * Sundocket's check engine: a project record in, traceable results out.
+ * Pure and deterministic — no framework, database, file system, clock or
+ * randomness — so the live panel, the packet, the command line and the route
+ * handlers all get the same answer. The results are an aid for the designer
+ * and the licensed reviewer; the AHJ and licensed practice decide.
+ */
+import { formatIssues } from "../schemas/fields";
+import { projectRecordSchema, type NecEdition, type ProjectRecord } from "../schemas/project-record";
+import { buildContext } from "./context";
+import { CHECKS } from "./registry";
+import { CHECK_STATUSES, type CheckResult, type CheckRun, type CheckRunOptions, type CheckStatus } from "./types";
+
+export type { CheckInput, CheckResult, CheckRun, CheckRunOptions, CheckStatus, CheckValue } from "./types";
+export { CHECK_STATUSES } from "./types";
+export { loadSummary, type LoadSummary } from "./load-summary";
+export { CHECKS } from "./registry";
+
+const SEVERITY: Record<CheckStatus, number> = Object.fromEntries(CHECK_STATUSES.map((s, i) => [s, i])) as Record<CheckStatus, number>;
+
+export function runChecks(record: ProjectRecord, options: CheckRunOptions = {}): CheckRun {
+  const edition: NecEdition = options.edition ?? record.jurisdiction.necEdition;
+  const ctx = buildContext(record, edition);
+  const tagged: { r: CheckResult; order: number; seq: number }[] = [];
+  let seq = 0;
+  CHECKS.forEach((check, order) => {
+    for (const r of check.run(ctx)) tagged.push({ r, order, seq: seq++ });
+  });
+  tagged.sort((a, b) => SEVERITY[a.r.status] - SEVERITY[b.r.status] || a.order - b.order || a.seq - b.seq);
+  const counts = Object.fromEntries(CHECK_STATUSES.map((s) => [s, 0])) as Record<CheckStatus, number>;
+  for (const { r } of tagged) counts[r.status] += 1;
+  return { edition, results: tagged.map((x) => x.r), counts };
+}
+
+export type ParseResult =
+  | { ok: true; record: ProjectRecord }
+  | { ok: false; issues: { path: string; message: string }[] };
+
+/** Validates a parsed project file; every refusal names its field path. */
+export function parseProjectFile(json: unknown): ParseResult {
+  const parsed = projectRecordSchema.safeParse(json);
+  if (parsed.success) return { ok: true, record: parsed.data };
+  return { ok: false, issues: formatIssues(parsed.error) };
+}

@@ -1,0 +1,70 @@
+/** Daily energy, peak power and storage of a stand-alone system (common practice sizing). */
+import type { ProjectRecord } from "../schemas/project-record";
+
+export interface LoadSummary {
+  /** Σ watts × quantity × hours per day, Wh. */
+  dailyLoadWh: number;
+  /** Inverter idle draw over 24 h, Wh (0 where no idle figure is recorded). */
+  idleWh: number;
+  dailyTotalWh: number;
+  /** Σ watts × quantity of the loads that run together, W. */
+  peakSimultaneousW: number;
+  /** The largest starting surge of a single load, W. */
+  largestSurgeW: number;
+  /** The largest running load of a single unit, W. */
+  largestSingleLoadW: number;
+  perLoad: { name: string; dailyWh: number }[];
+  /** Σ unit energy × quantity × usable depth of discharge, Wh; null when a battery lacks its energy or depth of discharge. */
+  usableStorageWh: number | null;
+  /** Usable storage ÷ daily total, days; null when either is unknown or the daily total is zero. */
+  autonomyDays: number | null;
+  /** Inverters lacking an idle figure (their tags). */
+  inverterIdleMissing: string[];
+}
+
+const INVERTER_KINDS = new Set(["inverter", "inverter-charger", "hybrid-inverter"]);
+
+export function loadSummary(record: ProjectRecord): LoadSummary {
+  let dailyLoadWh = 0;
+  let peakSimultaneousW = 0;
+  let largestSurgeW = 0;
+  let largestSingleLoadW = 0;
+  const perLoad = record.loads.map((l) => {
+    const dailyWh = l.watts * l.quantity * l.hoursPerDay;
+    dailyLoadWh += dailyWh;
+    if (l.simultaneous) peakSimultaneousW += l.watts * l.quantity;
+    largestSurgeW = Math.max(largestSurgeW, l.surgeW ?? l.watts);
+    largestSingleLoadW = Math.max(largestSingleLoadW, l.watts);
+    return { name: l.name, dailyWh };
+  });
+  // A load that never runs with the others still has to be carried on its own.
+  peakSimultaneousW = Math.max(peakSimultaneousW, largestSingleLoadW);
+  let idleWh = 0;
+  const inverterIdleMissing: string[] = [];
+  let usable: number | null = 0;
+  for (const e of record.equipment) {
+    if (INVERTER_KINDS.has(e.kind) && "idleW" in e) {
+      if (e.idleW === undefined) inverterIdleMissing.push(e.tag);
+      else idleWh += e.idleW * 24 * e.quantity;
+    }
+    if (e.kind === "battery") {
+      const kwh = e.capacityKWh ?? (e.capacityAh !== undefined && e.nominalVoltageV !== undefined ? (e.capacityAh * e.nominalVoltageV) / 1000 : undefined);
+      if (kwh === undefined || e.usableDodPct === undefined || usable === null) usable = null;
+      else usable += kwh * 1000 * e.quantity * (e.usableDodPct / 100);
+    }
+  }
+  const dailyTotalWh = dailyLoadWh + idleWh;
+  const autonomyDays = usable !== null && dailyTotalWh > 0 ? usable / dailyTotalWh : null;
+  return {
+    dailyLoadWh,
+    idleWh,
+    dailyTotalWh,
+    peakSimultaneousW,
+    largestSurgeW,
+    largestSingleLoadW,
+    perLoad,
+    usableStorageWh: usable,
+    autonomyDays,
+    inverterIdleMissing,
+  };
+}

@@ -1,0 +1,60 @@
+/** Builds results so every check reports the same fields in the same way. */
+import type { CheckInput, CheckResult, CheckStatus, CheckValue } from "./types";
+
+export interface CheckDefinition {
+  id: string;
+  title: string;
+  run(ctx: import("./context").CheckContext): CheckResult[];
+}
+
+export interface ResultParts {
+  subject?: string;
+  status: CheckStatus;
+  message: string;
+  reason?: string;
+  values?: CheckValue[];
+  formula?: string;
+  inputs?: CheckInput[];
+  missing?: string[];
+  codeRefs: string[];
+}
+
+export function makeResult(def: Pick<CheckDefinition, "id" | "title">, parts: ResultParts): CheckResult {
+  const codeRefs = [...new Set(parts.codeRefs)];
+  return {
+    id: parts.subject !== undefined ? `${def.id}:${parts.subject}` : def.id,
+    checkId: def.id,
+    title: parts.subject !== undefined ? `${def.title}: ${parts.subject}` : def.title,
+    ...(parts.subject !== undefined ? { subject: parts.subject } : {}),
+    status: parts.status,
+    message: parts.message,
+    ...(parts.reason !== undefined ? { reason: parts.reason } : {}),
+    values: parts.values ?? [],
+    formula: parts.formula ?? "",
+    inputs: parts.inputs ?? [],
+    missing: [...new Set(parts.missing ?? [])],
+    codeRefs,
+  };
+}
+
+/** A needs-input result that names every missing field. */
+export function needsInput(
+  def: Pick<CheckDefinition, "id" | "title">,
+  parts: Omit<ResultParts, "status" | "message"> & { message?: string; missing: string[] },
+): CheckResult {
+  const list = [...new Set(parts.missing)];
+  return makeResult(def, {
+    ...parts,
+    status: "needs-input",
+    message: parts.message ?? `Needs input: ${list.join(", ")}.`,
+    reason: parts.reason ?? `missing ${list.join(", ")}`,
+  });
+}
+
+/** The most severe of several statuses, in the order the results are sorted. */
+export function worst(...statuses: CheckStatus[]): CheckStatus {
+  const order: CheckStatus[] = ["fail", "needs-input", "warning", "attest", "pass", "not-applicable"];
+  let best = order.length - 1;
+  for (const s of statuses) best = Math.min(best, order.indexOf(s));
+  return order[best]!;
+}
