@@ -96,6 +96,7 @@ function PrimElement({ p }: { p: Prim }) {
     case "text":
       return (
         <text
+          xmlSpace="preserve"
           x={p.x}
           y={p.y}
           fontSize={p.size}

@@ -34,7 +34,8 @@ function primSvg(p: Prim): string {
     case "path":
       return `<path d="${p.d}" fill="${colour(p.fill)}" stroke="${colour(p.stroke)}"${p.stroke ? ` stroke-width="${num(p.lineWidth ?? 1)}"` : ""}${p.dash ? ` stroke-dasharray="${p.dash.join(" ")}"` : ""}/>`;
     case "text":
-      return `<text x="${num(p.x)}" y="${num(p.y)}" font-size="${num(p.size)}"${p.weight === "bold" ? ' font-weight="700"' : ""}${p.anchor && p.anchor !== "start" ? ` text-anchor="${p.anchor}"` : ""} fill="${colour(p.colour)}">${escapeXml(p.text)}</text>`;
+      // xml:space keeps the indents and gaps the callouts rely on.
+      return `<text xml:space="preserve" x="${num(p.x)}" y="${num(p.y)}" font-size="${num(p.size)}"${p.weight === "bold" ? ' font-weight="700"' : ""}${p.anchor && p.anchor !== "start" ? ` text-anchor="${p.anchor}"` : ""} fill="${colour(p.colour)}">${escapeXml(p.text)}</text>`;
   }
 }
 

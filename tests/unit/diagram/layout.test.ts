@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { layoutOneLine, type Box, type OneLineLayout } from "@/lib/diagram/layout";
+import { layoutOneLine, type Box, type OneLineLayout, type Point } from "@/lib/diagram/layout";
 import { circuitText, conductorsPerSet, sizeText } from "@/lib/diagram/describe";
 import type { ProjectRecord } from "@/lib/schemas/project-record";
 import { danglingRecord, emptyRecord, hybrid, large, parseRecord, standAlone } from "./fixtures";
@@ -51,7 +51,62 @@ function expectSoundGeometry(layout: OneLineLayout, record: ProjectRecord) {
   for (const n of layout.nodes) expect(overlaps(n, layout.legend), `${n.tag} overlaps the legend`).toBe(false);
 }
 
+type Seg = { tag: string; a: Point; b: Point };
+
+function segments(layout: OneLineLayout): Seg[] {
+  return layout.edges.flatMap((e) => e.points.slice(1).map((b, i) => ({ tag: e.circuitTag, a: e.points[i]!, b })));
+}
+
+/** Places where a horizontal run of one circuit passes through a vertical run of another. */
+function wireCrossings(layout: OneLineLayout): string[] {
+  const segs = segments(layout);
+  const out: string[] = [];
+  for (const [s, t] of pairs(segs)) {
+    if (s.tag === t.tag) continue;
+    const sh = Math.abs(s.a.y - s.b.y) < 0.01;
+    const th = Math.abs(t.a.y - t.b.y) < 0.01;
+    if (sh === th) continue;
+    const h = sh ? s : t;
+    const v = sh ? t : s;
+    const inH = v.a.x > Math.min(h.a.x, h.b.x) + 0.5 && v.a.x < Math.max(h.a.x, h.b.x) - 0.5;
+    const inV = h.a.y > Math.min(v.a.y, v.b.y) + 0.5 && h.a.y < Math.max(v.a.y, v.b.y) - 0.5;
+    if (inH && inV) out.push(`${s.tag} crosses ${t.tag}`);
+  }
+  return out;
+}
+
+/** Wires of other circuits running through a callout block. */
+function wiresThroughCallouts(layout: OneLineLayout): string[] {
+  const out: string[] = [];
+  for (const e of layout.edges) {
+    const b = e.calloutBox;
+    for (const s of segments(layout)) {
+      if (s.tag === e.circuitTag) continue;
+      const seg: Box = {
+        x: Math.min(s.a.x, s.b.x),
+        y: Math.min(s.a.y, s.b.y),
+        width: Math.abs(s.a.x - s.b.x),
+        height: Math.abs(s.a.y - s.b.y),
+      };
+      if (overlaps(seg, { x: b.x + 0.5, y: b.y + 0.5, width: b.width - 1, height: b.height - 1 })) {
+        out.push(`${s.tag} runs through the callout of ${e.circuitTag}`);
+      }
+    }
+  }
+  return out;
+}
+
 describe("one-line layout", () => {
+  it("draws the sample systems without crossing wires or wires through callouts", async () => {
+    for (const record of [standAlone(), hybrid(), large(), danglingRecord()]) {
+      for (const wrap of [true, false]) {
+        const layout = await layoutOneLine(record, { wrap });
+        expect(wireCrossings(layout), record.name).toEqual([]);
+        expect(wiresThroughCallouts(layout), record.name).toEqual([]);
+      }
+    }
+  });
+
   it("draws every circuit of the stand-alone system as exactly one edge, with no overlapping boxes", async () => {
     const record = standAlone();
     const layout = await layoutOneLine(record);
