@@ -16,7 +16,7 @@ import {
   equipmentLines,
   equipmentTitle,
 } from "./describe";
-import { TEXT, estimateTextWidth, lineHeight } from "./text";
+import { TEXT, estimateTextWidth, lineHeight, wrapLine } from "./text";
 
 export type DiagramNodeKind = Equipment["kind"] | "pv-array" | "unknown";
 export type DeviceKind = "fuse" | "breaker" | "disconnect" | "other";
@@ -99,6 +99,11 @@ export const LEGEND_SIZE = { width: 430, height: 62 } as const;
 const ROW_GAP = 24;
 
 const PROTECTIVE_KINDS = new Set(["fuse", "breaker", "disconnect"]);
+/** Longest line in a box or a callout before it wraps: keeps free-text notes from stretching the drawing. */
+const NODE_LINE_CHARS = 44;
+const CALLOUT_LINE_CHARS = 38;
+
+const wrapAll = (lines: string[], max: number, indent = "") => lines.flatMap((l) => wrapLine(l, max, indent));
 
 function nodeSize(title: string, tag: string, lines: string[], trouble: string[]) {
   const widths = [
@@ -294,7 +299,8 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
     const to = resolveEndpoint(c.toTag, c, record);
     endpointTags.add(from);
     endpointTags.add(to);
-    const text = circuitText(c, record);
+    const raw = circuitText(c, record);
+    const text = { ...raw, callout: wrapAll(raw.callout, CALLOUT_LINE_CHARS, "  "), trouble: wrapAll(raw.trouble, CALLOUT_LINE_CHARS - 2) };
     const devTags: { tag: string; role: "ocpd" | "disconnect" }[] = [];
     if (c.ocpdTag) devTags.push({ tag: c.ocpdTag, role: "ocpd" });
     for (const t of c.disconnectTags ?? []) {
@@ -385,7 +391,10 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
     placed.add(e.tag);
   }
 
-  const sized = (s: NodeSpec) => ({ ...s, ...nodeSize(s.title, s.tag, s.lines, s.trouble) });
+  const sized = (spec: NodeSpec) => {
+    const s = { ...spec, lines: wrapAll(spec.lines, NODE_LINE_CHARS), trouble: wrapAll(spec.trouble, NODE_LINE_CHARS - 2) };
+    return { ...s, ...nodeSize(s.title, s.tag, s.lines, s.trouble) };
+  };
   const flowNodes = flowSpecs.map(sized);
   const looseNodes = looseSpecs.map(sized);
 

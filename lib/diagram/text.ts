@@ -24,3 +24,26 @@ export function estimateTextWidth(text: string, size: number, bold = false): num
 export function lineHeight(size: number): number {
   return size + TEXT.lineGap;
 }
+
+/**
+ * Breaks a line at spaces so no piece is longer than maxChars (a word longer
+ * than that stands alone); continuation pieces get `indent` in front.
+ */
+export function wrapLine(line: string, maxChars: number, indent = ""): string[] {
+  if (line.length <= maxChars) return [line];
+  const lead = /^\s*/.exec(line)?.[0] ?? "";
+  const words = line.trim().split(/\s+/);
+  const out: string[] = [];
+  let current = lead;
+  for (const w of words) {
+    const prefix = out.length === 0 ? lead : lead + indent;
+    if (current.trim() === "") current = prefix + w;
+    else if (current.length + 1 + w.length <= maxChars) current += ` ${w}`;
+    else {
+      out.push(current);
+      current = lead + indent + w;
+    }
+  }
+  if (current.trim() !== "") out.push(current);
+  return out;
+}
