@@ -118,8 +118,9 @@ export function parseMarkup(source: string): Block[] {
     }
     m = CAUTION.exec(line);
     if (m) {
-      flush("caution");
+      flush();
       caution.push(m[1]!.trim());
+      flush();
       continue;
     }
     m = FIELD.exec(line);

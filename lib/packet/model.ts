@@ -396,11 +396,14 @@ function statusCell(results: CheckResult[]): Cell {
   return worst ? { text: "", status: worst } : "—";
 }
 
-function findValue(results: CheckResult[], checkId: RegExp, key: RegExp): string {
-  for (const r of results) {
-    if (!checkId.test(r.checkId)) continue;
-    const v = r.values.find((x) => key.test(x.key));
-    if (v && typeof v.value === "number") return `${formatNumber(v.value)}${v.unit ? " " + v.unit : ""}`;
+/** A figure from the first result of the check that carries one of the keys, in key order of preference. */
+function findValue(results: CheckResult[], checkId: string, keys: string[]): string {
+  for (const key of keys) {
+    for (const r of results) {
+      if (r.checkId !== checkId) continue;
+      const v = r.values.find((x) => x.key === key);
+      if (v && typeof v.value === "number") return `${formatNumber(v.value)}${v.unit ? " " + v.unit : ""}`;
+    }
   }
   return "—";
 }
@@ -485,17 +488,20 @@ function conductorBlocks(input: PacketInput): Block[] {
       { text: c.tag, bold: true },
       `${c.fromTag} → ${c.toTag}`,
       CIRCUIT_KIND_LABEL[c.kind],
-      `${c.parallelSets > 1 ? `${c.parallelSets} × ` : ""}${c.size ? (Number(c.size) >= 250 ? `${c.size} kcmil` : `${c.size} AWG`) : "—"} ${c.material.toUpperCase()}`,
+      `${c.parallelSets > 1 ? `${c.parallelSets} × ` : ""}${c.size ? (Number(c.size) >= 250 ? `${c.size} kcmil` : `${c.size} AWG`) : "—"} ${c.material === "cu" ? "Cu" : "Al"}`,
       [c.insulation, c.insulationTempRatingC ? `${c.insulationTempRatingC} °C` : ""].filter(Boolean).join(" ") || "—",
       dash(c.currentCarryingConductors),
       [c.racewayType, c.racewaySize].filter(Boolean).join(" ") || "—",
       dash(c.lengthFt, "ft"),
       [c.ambientTempC !== undefined ? `${formatNumber(c.ambientTempC)} °C` : "site", c.onRooftop ? "rooftop" : ""].filter(Boolean).join(", "),
       c.terminalTempRatingC ? `${c.terminalTempRatingC} °C` : "—",
-      findValue(results, /current/, /current|designA|continuous/i),
-      findValue(results, /ampacity/, /adjusted|corrected|ampacityA$/i),
+      c.arrayTag ? findValue(resultsFor(run, c.arrayTag), "max-pv-voltage", ["maxVoltageV"]) : "—",
+      findValue(results, "circuit-current", ["currentA"]) === "—"
+        ? findValue(results, "conductor-ampacity", ["currentA"])
+        : findValue(results, "circuit-current", ["currentA"]),
+      findValue(results, "conductor-ampacity", ["allowedA", "correctedA"]),
       c.ocpdTag ? `${c.ocpdTag} ${rating}` : "—",
-      c.egcSize ? `${c.egcSize} AWG ${c.egcMaterial.toUpperCase()}` : "—",
+      c.egcSize ? `${c.egcSize} AWG ${c.egcMaterial === "cu" ? "Cu" : "Al"}` : "—",
       statusCell(results),
     ];
   });
@@ -520,8 +526,8 @@ function conductorBlocks(input: PacketInput): Block[] {
   });
   return [
     table(
-      [["Circuit", 0.7], ["From → to", 1.5], ["Kind", 1.3], ["Conductor", 1.3], ["Insulation", 1.1], ["CCC", 0.5, "right"], ["Raceway", 1.2], ["Length", 0.7, "right"], ["Ambient", 0.9], ["Terminal", 0.7], ["Current", 0.8, "right"], ["Ampacity", 0.8, "right"], ["OCPD", 1], ["EGC", 0.9], ["Checks", 1]],
-      rows.length ? rows : [["—", "No circuits entered", "", "", "", "", "", "", "", "", "", "", "", "", ""]],
+      [["Circuit", 0.7], ["From → to", 1.5], ["Kind", 1.3], ["Conductor", 1.3], ["Insulation", 1.1], ["CCC", 0.5, "right"], ["Raceway", 1.2], ["Length", 0.7, "right"], ["Ambient", 0.9], ["Terminal", 0.7], ["Max voltage", 0.8, "right"], ["Current", 0.8, "right"], ["Ampacity", 0.8, "right"], ["OCPD", 1], ["EGC", 0.9], ["Checks", 1]],
+      rows.length ? rows : [["—", "No circuits entered", "", "", "", "", "", "", "", "", "", "", "", "", "", ""]],
       "Conductor schedule",
     ),
     table(

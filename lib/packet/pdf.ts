@@ -154,7 +154,8 @@ function checkCardItems(ctx: Ctx, r: CheckResult, w: number): Item[] {
   const inner = w - 10;
   const items: Item[] = [];
   const indent = (item: Item): Item => ({ h: item.h, draw: (p, x, top, ww) => item.draw(p, x + 5, top, ww - 10) });
-  const titleLines = wrapText(fonts.bold, 8, `${r.title}${r.subject ? ` — ${r.subject}` : ""}`, inner - 78);
+  const title = r.subject && !r.title.includes(r.subject) ? `${r.title}: ${r.subject}` : r.title;
+  const titleLines = wrapText(fonts.bold, 8, title, inner - 78);
   const headH = Math.max(16, titleLines.length * 10 + 6);
   items.push({
     h: headH,
@@ -362,7 +363,7 @@ class SheetWriter {
   writeBlocks(blocks: Block[]) {
     const { fonts } = this.ctx;
     const w = this.colW;
-    for (const block of blocks) {
+    blocks.forEach((block, index) => {
       switch (block.kind) {
         case "heading": {
           const size = block.level === 1 ? 12 : block.level === 2 ? 9.5 : 8.5;
@@ -430,7 +431,14 @@ class SheetWriter {
           break;
         case "figure": {
           if (block.figure === "site-plan") {
-            const h = Math.max(200, Math.round(this.columnHeight * 0.64));
+            // The drawing takes what the location list below it leaves, so both stay on one sheet where they can.
+            const following = blocks[index + 1];
+            let listH = 0;
+            if (following?.kind === "table") {
+              const t = tableItems(this.ctx, following, w);
+              listH = [...t.caption, t.header, ...t.rows].reduce((sum, it) => sum + it.h, 0) + 30;
+            }
+            const h = Math.max(260, Math.round(this.remaining - listH));
             this.place({ items: [sitePlanItem(this.ctx, w, h, block.caption)], gapAfter: 12 });
           } else {
             const h = Math.max(300, this.remaining - 40);
@@ -462,7 +470,7 @@ class SheetWriter {
           if (this.y !== FLOW_TOP) this.nextColumn();
           break;
       }
-    }
+    });
   }
 }
 

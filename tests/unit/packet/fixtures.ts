@@ -111,7 +111,9 @@ function result(partial: Partial<CheckResult> & Pick<CheckResult, "checkId" | "t
 /** Figures worked by hand from the fixture ratings (Voc 49.5 V × 3 in series; Isc 10.2 A × 2 strings). */
 export const MAX_PV_VOLTAGE_V = 167.2; // 148.5 V × (1 + 0.0028/°C × 45 °C) = 167.21 V, NEC 2020 690.7(A)(1)
 export const PV_OUTPUT_AMPACITY_A = 36.4; // 10 AWG Cu 90 °C 40 A (NEC 2020 Table 310.16) × 0.91 at 34 °C (Table 310.15(B)(1))
-export const PV_OUTPUT_REQUIRED_A = 31.88; // 10.2 A × 2 × 1.25 × 1.25, NEC 2020 690.8(A)(1), 690.8(B)(1)
+export const PV_OUTPUT_CURRENT_A = 25.5; // 10.2 A × 2 strings × 1.25, NEC 2020 690.8(A)(1)
+export const PV_OUTPUT_REQUIRED_A = 31.88; // 25.5 A × 1.25, NEC 2020 690.8(B)(1)
+export const PV_OUTPUT_ALLOWED_A = 35; // 36.4 A limited by the 75 °C terminal column, NEC 2020 110.14(C)(1)
 
 export const fixtureResults: CheckResult[] = [
   result({
@@ -154,18 +156,20 @@ export const fixtureResults: CheckResult[] = [
     title: "Conductor ampacity with conditions of use",
     subject: "C1",
     status: "pass",
-    message: "10 AWG Cu carries 36.4 A after correction; 31.88 A required.",
+    message: "10 AWG Cu allows 35 A (75 °C terminals); 31.88 A required.",
     formula: "Table 310.16 ampacity × ambient correction ≥ max(1.25 × continuous, continuous ÷ factors)",
     inputs: [
       { path: "circuits.0.size", label: "Conductor size", value: "10 AWG", unit: "" },
       { path: "circuits.0.ambientTempC", label: "Ambient", value: 34, unit: "°C" },
     ],
     values: [
-      { key: "requiredA", label: "Required ampacity", value: PV_OUTPUT_REQUIRED_A, unit: "A" },
-      { key: "tableAmpacityA", label: "Table ampacity (90 °C)", value: 40, unit: "A" },
-      { key: "ambientFactor", label: "Ambient correction", value: 0.91, unit: "" },
-      { key: "adjustedAmpacityA", label: "Ampacity after correction", value: PV_OUTPUT_AMPACITY_A, unit: "A" },
-      { key: "terminalLimitA", label: "75 °C terminal limit", value: 35, unit: "A" },
+      { key: "currentA", label: "Circuit current", value: PV_OUTPUT_CURRENT_A, unit: "A" },
+      { key: "requiredUnadjustedA", label: "125 % of the current (no adjustment)", value: PV_OUTPUT_REQUIRED_A, unit: "A" },
+      { key: "tableAtInsulationA", label: "Table ampacity at 90 °C", value: 40, unit: "A" },
+      { key: "correction", label: "Ambient correction at 90 °C", value: 0.91, unit: "" },
+      { key: "correctedA", label: "Ampacity under conditions of use", value: PV_OUTPUT_AMPACITY_A, unit: "A" },
+      { key: "tableAtTerminalA", label: "Table ampacity at the 75 °C terminal column", value: 35, unit: "A" },
+      { key: "allowedA", label: "Allowed ampacity", value: PV_OUTPUT_ALLOWED_A, unit: "A" },
     ],
     codeRefs: ["NEC 2020 690.8(B)", "NEC 2020 310.15(B)(1)", "NEC 2020 Table 310.16", "NEC 2020 110.14(C)"],
   }),
