@@ -172,7 +172,7 @@ export function deviceRating(e: Extract<Equipment, { kind: "disconnect" | "fuse"
 export function arrayLines(a: PvArray, module: Equipment | undefined): string[] {
   const count = a.modulesInSeries * a.stringsInParallel;
   const lines = [
-    `${a.modulesInSeries} in series x ${a.stringsInParallel} string${a.stringsInParallel === 1 ? "" : "s"} = ${count} modules`,
+    `${a.modulesInSeries} in series x ${a.stringsInParallel} string${a.stringsInParallel === 1 ? "" : "s"} = ${count} module${count === 1 ? "" : "s"}`,
   ];
   if (module && module.kind === "pv-module") {
     lines.push(join([module.tag, makeModel(module)]));

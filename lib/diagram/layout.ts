@@ -279,12 +279,15 @@ function placeDevices(points: Point[], label: Box, devices: EdgeSpec["devices"])
 export interface LayoutOptions {
   /** Width over height of the space the drawing will fill (default: a tabloid sheet's drawing area). */
   aspectRatio?: number;
+  /** Width in points of the space on the sheet (default: a tabloid sheet's drawing area). */
+  targetWidthPt?: number;
   /** Allow the flow to wrap into rows when that draws it much larger (default true). */
   wrap?: boolean;
 }
 
 export async function layoutOneLine(record: ProjectRecord, options: LayoutOptions = {}): Promise<OneLineLayout> {
   const aspect = options.aspectRatio ?? 1.6;
+  const targetWidth = options.targetWidthPt ?? 1150;
   const equipment = record.equipment ?? [];
   const arrays = record.arrays ?? [];
   const circuits = record.circuits ?? [];
@@ -428,10 +431,12 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
   if (flowNodes.length > 0) {
     // A long chain drawn in one row shrinks to unreadable lettering on a sheet;
     // wrapped into rows it reads larger but with wires that turn back. Keep the
-    // single row unless wrapping gains a clear fifth in scale at the sheet's shape.
+    // single row while it prints at 80 % or more (7.5 pt callouts stay at 6 pt),
+    // and otherwise wrap when that gains a clear fifth in scale.
     const straight = await elk.layout(structuredClone(graph));
     result = straight;
-    if (options.wrap !== false) {
+    const straightScale = Math.min(targetWidth / (straight.width ?? 1), targetWidth / aspect / (straight.height ?? 1));
+    if (options.wrap !== false && straightScale < 0.8) {
       const wrapped = await elk.layout({
         ...structuredClone(graph),
         layoutOptions: {
