@@ -20,3 +20,8 @@ export async function signInAs(page: Page, role: Role) {
   await signIn(page, user.email, user.password);
   await expect(page.getByRole("button", { name: "Sign out" })).toBeVisible();
 }
+
+/** Our own alerts (the framework's route announcer also has role=alert, outside <main>). */
+export function formAlert(page: Page) {
+  return page.locator("main [role=alert]");
+}

@@ -1,6 +1,6 @@
 import { expect, test } from "@playwright/test";
 import { DEMO_JURISDICTIONS } from "../../db/demo-scenario";
-import { demoUser, signIn, signInAs } from "./helpers";
+import { demoUser, formAlert, signIn, signInAs } from "./helpers";
 
 test.describe("each role lands on the page that serves it, with the seeded rows", () => {
   test("designer → projects, fetched from the projects route", async ({ page }) => {
@@ -8,7 +8,7 @@ test.describe("each role lands on the page that serves it, with the seeded rows"
     await expect(page).toHaveURL(/\/projects$/);
     const table = page.getByRole("table", { name: "Projects" });
     await expect(table).toBeVisible();
-    for (const j of DEMO_JURISDICTIONS) await expect(table.getByText(j.name)).toBeVisible();
+    for (const j of DEMO_JURISDICTIONS) await expect(table.getByRole("cell", { name: j.name, exact: true })).toBeVisible();
     await expect(table.locator("tbody tr")).toHaveCount(3);
   });
 
@@ -16,16 +16,16 @@ test.describe("each role lands on the page that serves it, with the seeded rows"
     await signInAs(page, "reviewer");
     await expect(page).toHaveURL(/\/reviews$/);
     const waiting = page.getByRole("table", { name: "Awaiting review" });
-    await expect(waiting.getByText("Alder Bay County")).toBeVisible();
-    await expect(waiting.getByText("Rev 1")).toBeVisible();
+    await expect(waiting.getByRole("cell", { name: "Alder Bay County", exact: true })).toBeVisible();
+    await expect(waiting.getByRole("cell", { name: /^Rev 1/ })).toBeVisible();
   });
 
   test("office → submissions with the permit tracked", async ({ page }) => {
     await signInAs(page, "office");
     await expect(page).toHaveURL(/\/submissions$/);
     const table = page.getByRole("table", { name: "Submissions" });
-    await expect(table.getByText("KF-ELEC-2026-0417")).toBeVisible();
-    await expect(table.getByText("permit-issued")).toBeVisible();
+    await expect(table.getByRole("cell", { name: "KF-ELEC-2026-0417", exact: true })).toBeVisible();
+    await expect(table.getByRole("cell", { name: "permit-issued", exact: true })).toBeVisible();
   });
 
   test("installer → approved sets only", async ({ page }) => {
@@ -33,7 +33,7 @@ test.describe("each role lands on the page that serves it, with the seeded rows"
     await expect(page).toHaveURL(/\/install$/);
     const table = page.getByRole("table", { name: "Approved sets" });
     await expect(table.locator("tbody tr")).toHaveCount(1);
-    await expect(table.getByText("City of Kestrel Falls")).toBeVisible();
+    await expect(table.getByRole("cell", { name: "City of Kestrel Falls", exact: true })).toBeVisible();
     await expect(page.getByRole("link", { name: "Projects" })).toHaveCount(0);
   });
 
@@ -64,13 +64,13 @@ test.describe("refusals", () => {
 
   test("a wrong password shows a clear message and does not sign in", async ({ page }) => {
     await signIn(page, demoUser("designer").email, "not the password");
-    await expect(page.getByRole("alert")).toContainText("do not match an account");
+    await expect(formAlert(page)).toContainText("do not match an account");
     await expect(page).toHaveURL(/\/sign-in/);
   });
 
   test("an unknown e-mail gets the same message", async ({ page }) => {
     await signIn(page, "nobody@quillfeather.test", "whatever-it-is");
-    await expect(page.getByRole("alert")).toContainText("do not match an account");
+    await expect(formAlert(page)).toContainText("do not match an account");
   });
 
   test("a forged session cookie is treated as signed out", async ({ page, context, baseURL }) => {
@@ -82,8 +82,8 @@ test.describe("refusals", () => {
   test("a designer opening the users page is refused without a stack trace", async ({ page }) => {
     await signInAs(page, "designer");
     await page.goto("/admin/users");
-    await expect(page.getByRole("alert")).toContainText("Only administrators");
-    await expect(page.locator("body")).not.toContainText("at ");
+    await expect(formAlert(page)).toContainText("Only administrators");
+    await expect(page.locator("body")).not.toContainText(/node_modules|\bat [\w.<>]+ \(|TypeError|ReferenceError/);
   });
 
   test("an unknown project id is a plain not-found", async ({ page }) => {
@@ -94,25 +94,28 @@ test.describe("refusals", () => {
 });
 
 test("an admin adds a user, who is locked out after repeated wrong passwords and cannot sign in once deactivated", async ({ page, browser }) => {
+  const stamp = Date.now().toString(36);
+  const email = `pat-${stamp}@quillfeather.test`;
+  const name = `Pat Lindqvist ${stamp}`;
   await signInAs(page, "admin");
   const form = page.getByRole("form", { name: "Add a user" });
-  await form.getByLabel("Name").fill("Pat Lindqvist");
-  await form.getByLabel("E-mail").fill("pat@quillfeather.test");
+  await form.getByLabel("Name").fill(name);
+  await form.getByLabel("E-mail").fill(email);
   await form.getByLabel("First password (12+ characters)").fill("first-password-pat");
   await form.getByLabel("Installer").check();
   await form.getByRole("button", { name: "Add user" }).click();
-  await expect(page.getByRole("table", { name: "Users" }).getByText("pat@quillfeather.test")).toBeVisible();
+  await expect(page.getByRole("table", { name: "Users" }).getByText(email)).toBeVisible();
 
   const other = await browser.newPage();
-  for (let i = 0; i < 5; i++) await signIn(other, "pat@quillfeather.test", `wrong-${i}`);
-  await expect(other.getByRole("alert")).toContainText("locked");
-  await signIn(other, "pat@quillfeather.test", "first-password-pat");
-  await expect(other.getByRole("alert")).toContainText("locked");
+  for (let i = 0; i < 5; i++) await signIn(other, email, `wrong-${i}`);
+  await expect(formAlert(other)).toContainText("locked");
+  await signIn(other, email, "first-password-pat");
+  await expect(formAlert(other)).toContainText("locked");
 
   await page.reload();
-  await page.getByRole("form", { name: "Deactivate Pat Lindqvist" }).getByRole("button").click();
-  await expect(page.getByRole("form", { name: "Reactivate Pat Lindqvist" })).toBeVisible();
-  await signIn(other, "pat@quillfeather.test", "first-password-pat");
-  await expect(other.getByRole("alert")).toContainText(/deactivated|locked/);
+  await page.getByRole("form", { name: `Deactivate ${name}` }).getByRole("button").click();
+  await expect(page.getByRole("form", { name: `Reactivate ${name}` })).toBeVisible();
+  await signIn(other, email, "first-password-pat");
+  await expect(formAlert(other)).toContainText(/deactivated|locked/);
   await other.close();
 });
