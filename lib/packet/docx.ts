@@ -197,7 +197,7 @@ function blockChildren(block: Block, input: PacketInput): FileChild[] {
 }
 
 function marking(model: PacketModel): string {
-  return model.marking.approved ? model.marking.approvalLines.slice(0, 2).join(" · ") : model.marking.reviewText;
+  return model.marking.approved ? model.marking.approvalLines[0] ?? "" : model.marking.reviewText;
 }
 
 export interface DocxOptions {

@@ -681,9 +681,8 @@ export function buildPacketModel(input: PacketInput, options: BuildOptions = {})
 
   const approvalLines = approval
     ? [
-        `Reviewed and approved by ${approval.reviewerName}`,
-        `Licence ${approval.licenceNumber} (${approval.licenceState}, ${approval.licenceDiscipline})`,
-        `Approved ${isoDate(approval.approvedAt)} · record SHA-256 ${approval.recordSha256.slice(0, 16)}…`,
+        `Approved ${isoDate(approval.approvedAt)} by ${approval.reviewerName}, licence ${approval.licenceNumber} (${approval.licenceState}, ${approval.licenceDiscipline})`,
+        `Record SHA-256 ${approval.recordSha256}`,
       ]
     : [];
 

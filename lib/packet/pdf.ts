@@ -602,7 +602,7 @@ function drawBand(ctx: Ctx, page: PDFPage) {
     const tw = fonts.bold.widthOfTextAtSize(t, 8.5);
     page.drawText(t, { x: INNER.x0 + (TB.x0 - INNER.x0 - tw) / 2, y: y0 + 5.5, size: 8.5, font: fonts.bold, color: INK });
   } else {
-    const t = `${model.marking.approvalLines.slice(0, 2).join(" · ")} · ${model.marking.footer}`;
+    const t = `${model.marking.approvalLines[0] ?? ""} · ${model.marking.footer}`;
     page.drawText(fitText(fonts.condensedBold, 8, t, TB.x0 - INNER.x0 - 12), { x: INNER.x0 + 6, y: y0 + 5.5, size: 8, font: fonts.condensedBold, color: INK });
   }
 }
@@ -613,10 +613,19 @@ function drawDatasheetMargin(ctx: Ctx, info: PageInfo, pageNo: number, total: nu
   const box = page.getCropBox();
   const rotation = ((page.getRotation().angle % 360) + 360) % 360;
   const across = rotation === 90 || rotation === 270 ? box.height : box.width;
-  const bandH = 20;
   const size = Math.max(4.5, Math.min(7, across / 88));
-  const first = model.marking.approved ? `${model.marking.approvalLines.slice(0, 2).join(" · ")} · ${model.marking.footer}` : model.marking.reviewText;
-  const second = `${info.sheet} ${info.title} — page ${info.index} of ${info.count} · ${model.titleBlock.project} · Rev ${model.titleBlock.revision} ${model.titleBlock.date} · packet page ${pageNo} of ${total}`;
+  const lines: { text: string; font: PDFFont }[] = model.marking.approved
+    ? [
+        { text: model.marking.approvalLines[0] ?? "", font: fonts.bold },
+        { text: model.marking.footer, font: fonts.bold },
+      ]
+    : [{ text: model.marking.reviewText, font: fonts.bold }];
+  lines.push({
+    text: `${info.sheet} ${info.title} — page ${info.index} of ${info.count} · ${model.titleBlock.project} · Rev ${model.titleBlock.revision} ${model.titleBlock.date} · packet page ${pageNo} of ${total}`,
+    font: fonts.condensed,
+  });
+  const lh = size * 1.3;
+  const bandH = lines.length * lh + 4;
   // Draw in the page's own upright frame so the band reads along the bottom however the page is rotated.
   const place = (dx: number, dy: number) => {
     switch (rotation) {
@@ -632,12 +641,10 @@ function drawDatasheetMargin(ctx: Ctx, info: PageInfo, pageNo: number, total: nu
   };
   const r = place(0, 0);
   page.drawRectangle({ x: r.x, y: r.y, width: across, height: bandH, rotate: r.rotate, color: WHITE, opacity: 0.92 });
-  const l1 = fitText(fonts.bold, size, first, across - 12);
-  const l2 = fitText(fonts.condensed, size, second, across - 12);
-  const p1 = place(6, bandH - size - 2);
-  page.drawText(l1, { ...p1, size, font: fonts.bold, color: INK });
-  const p2 = place(6, 3);
-  page.drawText(l2, { ...p2, size, font: fonts.condensed, color: INK });
+  lines.forEach((l, i) => {
+    const p = place(6, bandH - (i + 1) * lh + 1);
+    page.drawText(fitText(l.font, size, l.text, across - 12), { ...p, size, font: l.font, color: INK });
+  });
 }
 
 async function embedSitePlan(doc: PDFDocument, input: PacketInput): Promise<Ctx["sitePlan"]> {

@@ -1,3 +1,4 @@
+import { deflateSync } from "node:zlib";
 import { PDFDocument, StandardFonts } from "pdf-lib";
 import type { CheckResult, CheckRun, CheckStatus } from "@/lib/compliance/types";
 import { CHECK_STATUSES } from "@/lib/compliance/types";
@@ -291,4 +292,46 @@ export function fixtureInput(overrides: Partial<PacketInput> = {}): PacketInput 
     datasheets: [],
     ...overrides,
   };
+}
+
+const CRC_TABLE = Array.from({ length: 256 }, (_, n) => {
+  let c = n;
+  for (let k = 0; k < 8; k += 1) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
+  return c >>> 0;
+});
+
+function crc32(bytes: Uint8Array): number {
+  let c = 0xffffffff;
+  for (const b of bytes) c = CRC_TABLE[(c ^ b) & 0xff]! ^ (c >>> 8);
+  return (c ^ 0xffffffff) >>> 0;
+}
+
+/** A solid-colour RGB PNG (a stand-in for a scanned stamp or a site photo). */
+export function makePng(width: number, height: number, rgbColour: [number, number, number]): Uint8Array {
+  const raw = Buffer.alloc((width * 3 + 1) * height);
+  for (let y = 0; y < height; y += 1) {
+    const row = y * (width * 3 + 1);
+    for (let x = 0; x < width; x += 1) raw.set(rgbColour, row + 1 + x * 3);
+  }
+  const chunk = (type: string, data: Uint8Array) => {
+    const body = Buffer.concat([Buffer.from(type, "ascii"), Buffer.from(data)]);
+    const out = Buffer.alloc(8 + data.length + 4);
+    out.writeUInt32BE(data.length, 0);
+    body.copy(out, 4);
+    out.writeUInt32BE(crc32(body), 8 + data.length);
+    return out;
+  };
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(width, 0);
+  ihdr.writeUInt32BE(height, 4);
+  ihdr[8] = 8;
+  ihdr[9] = 2;
+  return new Uint8Array(
+    Buffer.concat([
+      Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+      chunk("IHDR", ihdr),
+      chunk("IDAT", deflateSync(raw)),
+      chunk("IEND", new Uint8Array()),
+    ]),
+  );
 }
