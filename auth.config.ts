@@ -25,6 +25,8 @@ export const authConfig = {
       if (user) {
         token.userId = user.id;
         token.orgId = (user as { orgId?: string }).orgId;
+        // Roles as of sign-in, for display; services re-read them from the database on every request.
+        token.roles = (user as { roles?: string[] }).roles ?? [];
       }
       return token;
     },
@@ -32,6 +34,7 @@ export const authConfig = {
       if (session.user) {
         session.user.id = String(token.userId ?? "");
         (session.user as { orgId?: string }).orgId = token.orgId as string | undefined;
+        (session.user as { roles?: string[] }).roles = (token.roles as string[] | undefined) ?? [];
       }
       return session;
     },

@@ -34,7 +34,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
           maxFailures: SIGNIN_MAX_FAILURES,
           lockMinutes: SIGNIN_LOCK_MINUTES,
         });
-        if (outcome.ok) return { id: outcome.user.id, name: outcome.user.name, email: outcome.user.email, orgId: outcome.user.orgId };
+        if (outcome.ok) return { ...outcome.user };
         if (outcome.reason === "locked") throw new LockedSignIn();
         if (outcome.reason === "inactive") throw new InactiveSignIn();
         throw new WrongCredentials();

@@ -3,8 +3,9 @@ import "next-auth";
 declare module "next-auth" {
   interface User {
     orgId?: string;
+    roles?: string[];
   }
   interface Session {
-    user: { id: string; name?: string | null; email?: string | null; orgId?: string };
+    user: { id: string; name?: string | null; email?: string | null; orgId?: string; roles?: string[] };
   }
 }

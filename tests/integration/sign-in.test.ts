@@ -18,7 +18,7 @@ describe("sign-in", () => {
   it("accepts the right password, case-insensitively for the e-mail", async () => {
     const user = makeUser(db, org.id, ["designer"], { email: "ada@example.test", password: "right password 1" });
     const outcome = await verifyCredentials(db, "  ADA@example.test ", "right password 1", policy, t0);
-    expect(outcome).toMatchObject({ ok: true, user: { id: user.id, orgId: org.id } });
+    expect(outcome).toMatchObject({ ok: true, user: { id: user.id, orgId: org.id, roles: ["designer"] } });
   });
 
   it("refuses a wrong password and an unknown e-mail with the same answer", async () => {

@@ -1,10 +1,11 @@
 import bcrypt from "bcryptjs";
 import { eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
-import { auditLog, users } from "../../../db/schema";
+import { auditLog, userRoles, users } from "../../../db/schema";
+import { isRole, type Role } from "../../auth/roles";
 
 export type SignInOutcome =
-  | { ok: true; user: { id: string; name: string; email: string; orgId: string } }
+  | { ok: true; user: { id: string; name: string; email: string; orgId: string; roles: Role[] } }
   | { ok: false; reason: "invalid" | "locked" | "inactive"; lockedUntil?: string };
 
 export interface LockoutPolicy {
@@ -60,7 +61,14 @@ export async function verifyCredentials(
     .set({ failedSignIns: 0, lockedUntil: null, lastSignInAt: now.toISOString() })
     .where(eq(users.id, user.id))
     .run();
-  return { ok: true, user: { id: user.id, name: user.name, email: user.email, orgId: user.orgId } };
+  const roles = db
+    .select({ role: userRoles.role })
+    .from(userRoles)
+    .where(eq(userRoles.userId, user.id))
+    .all()
+    .map((r) => r.role)
+    .filter(isRole);
+  return { ok: true, user: { id: user.id, name: user.name, email: user.email, orgId: user.orgId, roles } };
 }
 
 export function hashPassword(password: string): Promise<string> {
