@@ -13,7 +13,14 @@ export interface Indexed<T> {
   path: string;
 }
 
-export type EquipmentOf<K extends Equipment["kind"]> = Extract<Equipment, { kind: K }>;
+/** The equipment variants whose kind is among K (a variant may carry several kinds, e.g. ac-panel | busbar). */
+export type EquipmentOf<K extends Equipment["kind"]> = Equipment extends infer E
+  ? E extends { kind: infer EK }
+    ? [Extract<EK, K>] extends [never]
+      ? never
+      : E & { kind: Extract<EK, K> }
+    : never
+  : never;
 
 export interface CheckContext {
   record: ProjectRecord;

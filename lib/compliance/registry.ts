@@ -1,9 +1,22 @@
 /** The check catalogue, in the order results are listed within a status. Adding a check is one line. */
+import { batteryTerminals } from "./checks/battery-terminals";
 import { circuitCurrentCheck } from "./checks/circuit-current";
 import { conductorAmpacityCheck } from "./checks/conductor-ampacity";
+import { deviceRatings } from "./checks/device-ratings";
+import { disconnects } from "./checks/disconnects";
+import { grounding } from "./checks/grounding";
+import { inverterCapacity } from "./checks/inverter-capacity";
+import { labelsRequired } from "./checks/labels-required";
 import { maxPvVoltage } from "./checks/max-pv-voltage";
 import { mpptWindow } from "./checks/mppt-window";
 import { overcurrentProtection } from "./checks/overcurrent-protection";
+import { panelBusbar } from "./checks/panel-busbar";
+import { rapidShutdown } from "./checks/rapid-shutdown";
+import { standAloneSizing } from "./checks/stand-alone-sizing";
+import { standAloneSupply } from "./checks/stand-alone-supply";
+import { storageSiting } from "./checks/storage-siting";
+import { submittalCompleteness } from "./checks/submittal-completeness";
+import { voltageDrop } from "./checks/voltage-drop";
 import type { CheckDefinition } from "./result";
 
 export const CHECKS: readonly CheckDefinition[] = [
@@ -12,4 +25,17 @@ export const CHECKS: readonly CheckDefinition[] = [
   circuitCurrentCheck,
   conductorAmpacityCheck,
   overcurrentProtection,
+  disconnects,
+  grounding,
+  voltageDrop,
+  batteryTerminals,
+  inverterCapacity,
+  standAloneSizing,
+  labelsRequired,
+  storageSiting,
+  standAloneSupply,
+  rapidShutdown,
+  deviceRatings,
+  panelBusbar,
+  submittalCompleteness,
 ];

@@ -1,0 +1,139 @@
+/**
+ * 6. Disconnecting means (690.13, 690.15, 706.15, 445.18): each PV array,
+ * battery, generator and inverter can be isolated. A disconnect built into
+ * the equipment counts when the equipment record says so.
+ */
+import type { Circuit } from "../../schemas/project-record";
+import { equipmentOfKind, isInverter, Trace, type CheckContext, type Indexed } from "../context";
+import { refs } from "../refs";
+import { makeResult, type CheckDefinition } from "../result";
+import type { CheckResult } from "../types";
+
+const SWITCHING = new Set(["disconnect", "breaker"]);
+
+/** Switching devices on a circuit: its disconnects, a breaker as its overcurrent device, or a disconnect at either end. */
+export function switchingDevicesOn(ctx: CheckContext, c: Circuit): string[] {
+  const tags = new Set<string>();
+  for (const tag of [...c.disconnectTags, ...(c.ocpdTag ? [c.ocpdTag] : []), c.fromTag, c.toTag]) {
+    const e = ctx.equipment.get(tag);
+    if (e && SWITCHING.has(e.item.kind)) tags.add(tag);
+  }
+  return [...tags];
+}
+
+/** Circuits at a device, and one hop further through a bus bar (a battery bank landed on a bus). */
+function circuitsNear(ctx: CheckContext, tag: string): Indexed<Circuit>[] {
+  const direct = ctx.circuitsByEndpoint.get(tag) ?? [];
+  const out = [...direct];
+  for (const c of direct) {
+    const other = c.item.fromTag === tag ? c.item.toTag : c.item.fromTag;
+    if (ctx.equipment.get(other)?.item.kind === "busbar") {
+      for (const c2 of ctx.circuitsByEndpoint.get(other) ?? []) if (!out.includes(c2)) out.push(c2);
+    }
+  }
+  return out;
+}
+
+export const disconnects: CheckDefinition = {
+  id: "disconnects",
+  title: "Disconnecting means",
+  run(ctx: CheckContext): CheckResult[] {
+    const ed = ctx.edition;
+    const out: CheckResult[] = [];
+    const report = (subject: string, found: string[], builtIn: string | undefined, what: string, codeRefs: string[], t: Trace, noCircuits: boolean) => {
+      if (found.length || builtIn) {
+        out.push(
+          makeResult(this, {
+            subject,
+            status: "pass",
+            message: `${subject}: ${what} by ${[...found, ...(builtIn ? [builtIn] : [])].join(", ")}.`,
+            inputs: t.inputs,
+            codeRefs,
+          }),
+        );
+      } else if (noCircuits) {
+        out.push(
+          makeResult(this, {
+            subject,
+            status: "needs-input",
+            message: `${subject}: no circuit connects it, so its disconnecting means cannot be checked.`,
+            reason: "no circuits recorded",
+            inputs: t.inputs,
+            missing: ["circuits"],
+            codeRefs,
+          }),
+        );
+      } else {
+        out.push(
+          makeResult(this, {
+            subject,
+            status: "fail",
+            message: `${subject}: no disconnecting means — ${what.replace(/^isolated/, "it must be isolated")}.`,
+            reason: `no disconnect or breaker on the circuits of ${subject}, and none built in`,
+            inputs: t.inputs,
+            codeRefs,
+          }),
+        );
+      }
+    };
+
+    for (const { item: array, path } of ctx.arrays.values()) {
+      const t = new Trace();
+      const circuits = ctx.circuitsByArray.get(array.tag) ?? [];
+      const found = circuits.flatMap((c) => switchingDevicesOn(ctx, c.item));
+      const fed = ctx.equipment.get(array.feedsTag);
+      const builtIn = fed && "hasPvDisconnect" in fed.item && fed.item.hasPvDisconnect ? `the PV disconnect built into ${fed.item.tag}` : undefined;
+      if (fed && "hasPvDisconnect" in fed.item) t.read(`${fed.path}.hasPvDisconnect`, `PV disconnect built into ${fed.item.tag}`, fed.item.hasPvDisconnect);
+      t.read(`${path}.feedsTag`, "Equipment fed", array.feedsTag);
+      report(array.tag, [...new Set(found)], builtIn, "isolated from the equipment it feeds", refs(ed, "pv-disconnect", "pv-equipment-disconnect"), t, circuits.length === 0 && !builtIn);
+    }
+
+    for (const b of equipmentOfKind(ctx, "battery")) {
+      const t = new Trace();
+      const near = circuitsNear(ctx, b.item.tag);
+      const found = near.flatMap((c) => switchingDevicesOn(ctx, c.item));
+      report(b.item.tag, [...new Set(found)], undefined, "isolated from every circuit it feeds", refs(ed, "ess-disconnect"), t, near.length === 0);
+    }
+
+    for (const g of equipmentOfKind(ctx, "generator")) {
+      const t = new Trace();
+      const near = ctx.circuitsByEndpoint.get(g.item.tag) ?? [];
+      t.read(`${g.path}.hasOutputDisconnect`, "Output disconnect built in", g.item.hasOutputDisconnect);
+      const found = near.flatMap((c) => switchingDevicesOn(ctx, c.item));
+      report(g.item.tag, [...new Set(found)], g.item.hasOutputDisconnect ? `the output disconnect built into ${g.item.tag}` : undefined, "isolated from the system", refs(ed, "generator-disconnect"), t, near.length === 0 && !g.item.hasOutputDisconnect);
+    }
+
+    for (const inv of ctx.record.equipment.map((item, index) => ({ item, index, path: `equipment.${index}` })).filter((e) => isInverter(e.item))) {
+      const t = new Trace();
+      const near = ctx.circuitsByEndpoint.get(inv.item.tag) ?? [];
+      const dc = near.filter((c) => c.item.kind === "battery" || c.item.kind === "inverter-dc-input");
+      const ac = near.filter((c) => c.item.kind === "inverter-ac-output");
+      const missingSides: string[] = [];
+      const found: string[] = [];
+      for (const [side, list] of [["DC input", dc], ["AC output", ac]] as const) {
+        if (list.length === 0) continue;
+        const devs = list.flatMap((c) => switchingDevicesOn(ctx, c.item));
+        if (devs.length === 0) missingSides.push(side);
+        found.push(...devs);
+      }
+      const codeRefs = refs(ed, "pv-equipment-disconnect");
+      if (near.length === 0) {
+        report(inv.item.tag, [], undefined, "", codeRefs, t, true);
+      } else if (missingSides.length) {
+        out.push(
+          makeResult(this, {
+            subject: inv.item.tag,
+            status: "fail",
+            message: `${inv.item.tag}: no disconnecting means on its ${missingSides.join(" and ")} side.`,
+            reason: `the ${missingSides.join(" and ")} circuits of ${inv.item.tag} carry no disconnect or breaker`,
+            inputs: t.inputs,
+            codeRefs,
+          }),
+        );
+      } else {
+        report(inv.item.tag, [...new Set(found)], undefined, "isolated on each side", codeRefs, t, false);
+      }
+    }
+    return out;
+  },
+};

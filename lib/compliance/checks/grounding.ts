@@ -1,0 +1,93 @@
+/**
+ * 7. Equipment grounding and grounding electrode conductors (690.43, 690.45,
+ * 250.122, 250.166): each EGC sized from the device that protects the circuit
+ * (for an unprotected PV circuit, the device 690.9(B) would call for).
+ */
+import { compareConductorSize, minimumEgcSize, nextStandardOcpdRatingA } from "../tables";
+import { isDcCircuit, isPvCircuit, Trace, v, type CheckContext } from "../context";
+import { circuitCurrent } from "../derive/circuit-current";
+import { refs } from "../refs";
+import { makeResult, needsInput, type CheckDefinition } from "../result";
+import type { CheckResult } from "../types";
+
+export const grounding: CheckDefinition = {
+  id: "grounding",
+  title: "Equipment grounding conductor",
+  run(ctx: CheckContext): CheckResult[] {
+    const ed = ctx.edition;
+    const out: CheckResult[] = [];
+    for (const ci of ctx.circuits) {
+      const c = ci.item;
+      const pv = isPvCircuit(c);
+      const codeRefs = refs(ed, "egc-table", ...(pv ? (["pv-egc"] as const) : []));
+      const t = new Trace();
+      const egc = t.need(`${ci.path}.egcSize`, "EGC size", c.egcSize, "AWG/kcmil");
+      t.read(`${ci.path}.egcMaterial`, "EGC material", c.egcMaterial);
+      let ocpdA: number | undefined;
+      let basis = "";
+      const dev = c.ocpdTag ? ctx.equipment.get(c.ocpdTag) : undefined;
+      if (dev && "ratingA" in dev.item) {
+        ocpdA = t.need(`${dev.path}.ratingA`, `Rating of ${dev.item.tag}`, dev.item.ratingA, "A");
+        basis = `${dev.item.tag} ${ocpdA ?? "—"} A`;
+      } else if (pv) {
+        const cur = circuitCurrent(ctx, ci);
+        t.merge(cur);
+        if (cur.ok) {
+          // 690.45: without a device, the one 690.9(B) would require is assumed.
+          ocpdA = nextStandardOcpdRatingA(1.25 * cur.value.currentA);
+          basis = `assumed ${ocpdA} A device (125 % of ${cur.value.currentA.toFixed(1)} A, 690.45)`;
+        }
+      } else {
+        t.need(`${ci.path}.ocpdTag`, "Overcurrent device", undefined);
+      }
+      if (egc === undefined || ocpdA === undefined || t.missing.length) {
+        out.push(needsInput(this, { subject: c.tag, inputs: t.inputs, missing: t.missing, codeRefs }));
+        continue;
+      }
+      const table = minimumEgcSize(ocpdA, c.egcMaterial);
+      if (table === undefined) {
+        out.push(
+          makeResult(this, {
+            subject: c.tag,
+            status: "fail",
+            message: `${c.tag}: Table 250.122 has no EGC size for a ${ocpdA} A device.`,
+            reason: "device rating outside Table 250.122",
+            inputs: t.inputs,
+            codeRefs,
+          }),
+        );
+        continue;
+      }
+      // 250.122(A): the EGC need not be larger than the circuit conductors.
+      const required = c.size !== undefined && c.egcMaterial === c.material && compareConductorSize(c.size, table) < 0 ? c.size : table;
+      const ok = compareConductorSize(egc, required) >= 0;
+      const values = [v("ocpdA", "Device the EGC is sized from", ocpdA, "A"), v("requiredEgc", "Minimum EGC (Table 250.122)", required, "AWG/kcmil"), v("egc", "EGC recorded", egc, "AWG/kcmil")];
+      out.push(
+        makeResult(this, {
+          subject: c.tag,
+          status: ok ? "pass" : "fail",
+          message: ok
+            ? `${c.tag}: ${egc} ${c.egcMaterial === "cu" ? "Cu" : "Al"} EGC meets the ${required} minimum for ${basis}.`
+            : `${c.tag}: ${egc} EGC is smaller than the ${required} that Table 250.122 requires for ${basis}.`,
+          ...(ok ? {} : { reason: `EGC ${egc} below ${required}` }),
+          values,
+          formula: `Table 250.122 at ${ocpdA} A, ${c.egcMaterial} → ${table}${required !== table ? `, limited to the circuit conductor ${required} (250.122(A))` : ""}`,
+          inputs: t.inputs,
+          codeRefs,
+        }),
+      );
+    }
+    if (ctx.circuits.some((c) => isDcCircuit(c.item))) {
+      out.push(
+        makeResult(this, {
+          subject: "dc-gec",
+          status: "attest",
+          message: "Size the DC grounding electrode conductor and its bonding to the AC system per 250.166 and confirm it on site.",
+          reason: "the grounding electrode system is not recorded, so a person confirms it",
+          codeRefs: refs(ed, "dc-gec"),
+        }),
+      );
+    }
+    return out;
+  },
+};

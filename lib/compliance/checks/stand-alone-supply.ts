@@ -1,0 +1,106 @@
+/**
+ * 14. Stand-alone supply (710.15): the inverter may be smaller than the
+ * calculated load but must carry the largest single load; a 120 V-only supply
+ * feeding a 120/240 V panel needs the single-supply warning, no multiwire
+ * branch circuits, and an output device no larger than the neutral bus.
+ */
+import type { Circuit } from "../../schemas/project-record";
+import { equipmentOfKind, isInverter, Trace, v, type CheckContext, type EquipmentOf, type Indexed } from "../context";
+import { loadSummary } from "../load-summary";
+import { refs } from "../refs";
+import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
+import type { CheckResult, CheckStatus } from "../types";
+
+type Panel = EquipmentOf<"ac-panel">;
+type Inverter = EquipmentOf<"inverter" | "inverter-charger" | "hybrid-inverter">;
+
+function is120Only(inv: Inverter): boolean {
+  if (inv.acOutput !== undefined) return inv.acOutput === "120";
+  return inv.acOutputVoltageV !== undefined && inv.acOutputVoltageV <= 130;
+}
+
+/** Panels rated 120/240 V fed by a 120 V-only inverter, in a stand-alone system. */
+export function singleSupplyPanels(ctx: CheckContext): { panel: Indexed<Panel>; inverter: Indexed<Inverter>; circuit: Indexed<Circuit> }[] {
+  if (ctx.record.systemKind === "hybrid") return [];
+  const out: { panel: Indexed<Panel>; inverter: Indexed<Inverter>; circuit: Indexed<Circuit> }[] = [];
+  for (const p of equipmentOfKind(ctx, "ac-panel")) {
+    if (p.item.voltage !== "120/240") continue;
+    for (const c of ctx.circuitsByEndpoint.get(p.item.tag) ?? []) {
+      if (c.item.kind !== "inverter-ac-output") continue;
+      const other = ctx.equipment.get(c.item.fromTag === p.item.tag ? c.item.toTag : c.item.fromTag);
+      if (other && isInverter(other.item) && is120Only(other.item)) {
+        out.push({ panel: p, inverter: other as Indexed<Inverter>, circuit: c });
+      }
+    }
+  }
+  return out;
+}
+
+export const standAloneSupply: CheckDefinition = {
+  id: "stand-alone-supply",
+  title: "Stand-alone supply",
+  run(ctx: CheckContext): CheckResult[] {
+    const codeRefs = refs(ctx.edition, "stand-alone-supply");
+    if (ctx.record.systemKind === "hybrid") {
+      return [makeResult(this, { status: "not-applicable", message: "Grid-interactive system: 710.15 covers stand-alone systems.", reason: "system kind is hybrid", codeRefs })];
+    }
+    const inverters = ctx.record.equipment.map((item, index) => ({ item, index, path: `equipment.${index}` })).filter((e) => isInverter(e.item));
+    if (inverters.length === 0) {
+      return [needsInput(this, { message: "A stand-alone system needs its inverter recorded.", missing: ["equipment"], codeRefs })];
+    }
+    if (ctx.record.loads.length === 0) return [needsInput(this, { message: "Record the loads to check the supply against.", missing: ["loads"], codeRefs })];
+    const t = new Trace();
+    let continuousW = 0;
+    for (const inv of inverters) {
+      const w = isInverter(inv.item) ? t.need(`${inv.path}.continuousW`, `Continuous output of ${inv.item.tag}`, inv.item.continuousW, "W") : undefined;
+      if (w !== undefined) continuousW += w * inv.item.quantity;
+    }
+    if (t.missing.length) return [needsInput(this, { inputs: t.inputs, missing: t.missing, codeRefs })];
+    const s = loadSummary(ctx.record);
+    const statuses: CheckStatus[] = ["pass"];
+    const notes: string[] = [];
+    const values = [v("continuousW", "Inverter continuous output", continuousW, "W"), v("largestSingleLoadW", "Largest single load", s.largestSingleLoadW, "W")];
+    if (continuousW < s.largestSingleLoadW) {
+      statuses.push("fail");
+      notes.push(`${continuousW} W cannot carry the largest single load of ${s.largestSingleLoadW} W (710.15(A))`);
+    }
+    const refsOut = [...codeRefs];
+    for (const { panel, inverter, circuit } of singleSupplyPanels(ctx)) {
+      refsOut.push(...refs(ctx.edition, "stand-alone-label"));
+      const mwbc = t.need(`${panel.path}.hasMultiwireBranchCircuits`, `Multiwire branch circuits in ${panel.item.tag}`, panel.item.hasMultiwireBranchCircuits);
+      if (mwbc === undefined) statuses.push("needs-input");
+      else if (mwbc) {
+        statuses.push("fail");
+        notes.push(`${panel.item.tag} is fed by 120 V-only ${inverter.item.tag} and has multiwire branch circuits, which would overload the neutral (710.15(C))`);
+      }
+      const dev = circuit.item.ocpdTag ? ctx.equipment.get(circuit.item.ocpdTag) : undefined;
+      const rating = dev && "ratingA" in dev.item ? dev.item.ratingA : undefined;
+      const bus = t.need(`${panel.path}.busRatingA`, `Bus (neutral) rating of ${panel.item.tag}`, panel.item.busRatingA, "A");
+      if (rating !== undefined && bus !== undefined) {
+        values.push(v("outputDeviceA", `Output device of ${inverter.item.tag}`, rating, "A"), v("neutralBusA", `Neutral bus of ${panel.item.tag} (taken as the bus rating)`, bus, "A"));
+        if (rating > bus) {
+          statuses.push("fail");
+          notes.push(`output device ${rating} A exceeds the ${bus} A neutral bus of ${panel.item.tag}`);
+        }
+      }
+      notes.push(`the "single 120-volt supply" warning is required on ${panel.item.tag}`);
+    }
+    const status = worst(...statuses);
+    const failing = status === "fail" || status === "needs-input";
+    return [
+      status === "needs-input"
+        ? needsInput(this, { inputs: t.inputs, missing: t.missing, values, codeRefs: refsOut })
+        : makeResult(this, {
+            status,
+            message: failing
+              ? `${notes.join("; ")}.`
+              : `${continuousW} W carries the largest single load (${s.largestSingleLoadW} W)${notes.length ? `; ${notes.join("; ")}` : ""}.`,
+            ...(failing ? { reason: notes.join("; ") } : {}),
+            values,
+            formula: `inverter ${continuousW} W ≥ largest single load ${s.largestSingleLoadW} W`,
+            inputs: t.inputs,
+            codeRefs: refsOut,
+          }),
+    ];
+  },
+};

@@ -1,0 +1,135 @@
+/**
+ * 13. Energy storage siting for dwellings (IRC R328 in 2021, R330 in 2024,
+ * NFPA 855 chapter 15): unit and aggregate energy per location kind, spacing,
+ * never in habitable rooms, listing, detection, vehicle-impact protection.
+ * The limits come from the siting data per code edition.
+ */
+import { storageSitingRules } from "../tables";
+import { Trace, v, type CheckContext } from "../context";
+import { batteries, unitKWh } from "../derive/battery";
+import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
+import type { CheckResult, CheckStatus } from "../types";
+
+export const storageSiting: CheckDefinition = {
+  id: "storage-siting",
+  title: "Energy storage siting",
+  run(ctx: CheckContext): CheckResult[] {
+    const r = ctx.record;
+    const rules = storageSitingRules(r.jurisdiction.residentialCode);
+    const codeRefs = [rules.section];
+    const bats = batteries(ctx);
+    if (bats.length === 0) return [makeResult(this, { status: "not-applicable", message: "No energy storage in the record.", reason: "no battery", codeRefs })];
+    const t = new Trace();
+    t.read("jurisdiction.residentialCode", "Residential code", r.jurisdiction.residentialCode);
+    t.read("site.occupancy", "Occupancy", r.site.occupancy);
+    if (r.site.occupancy !== "one-two-family-dwelling") {
+      return [
+        makeResult(this, {
+          status: "attest",
+          message: `Not a one- or two-family dwelling: the dwelling limits of ${rules.section} do not apply; confirm siting under the fire code (IFC / NFPA 855) with the AHJ.`,
+          reason: "dwelling siting limits cover one- and two-family dwellings only",
+          inputs: t.inputs,
+          codeRefs: [...codeRefs, "IFC 1207 / NFPA 855"],
+        }),
+      ];
+    }
+    const location = t.need("site.batteryLocation", "Battery location", r.site.batteryLocation);
+    let totalKWh = 0;
+    let units = 0;
+    let allFireTested = true;
+    const statuses: CheckStatus[] = ["pass"];
+    const problems: string[] = [];
+    const notes: string[] = [];
+    const values = [];
+    for (const b of bats) {
+      const kwh = unitKWh(b, t);
+      units += b.item.quantity;
+      t.read(`${b.path}.largeScaleFireTested`, `Large-scale fire tested (${b.item.tag})`, b.item.largeScaleFireTested);
+      if (!b.item.largeScaleFireTested) allFireTested = false;
+      if (kwh !== undefined) {
+        totalKWh += kwh * b.item.quantity;
+        values.push(v(`unitKWh:${b.item.tag}`, `Energy per unit of ${b.item.tag}`, kwh, "kWh"));
+        if (kwh > rules.maxUnitKWh) {
+          statuses.push("fail");
+          problems.push(`${b.item.tag} holds ${kwh} kWh per unit, above the ${rules.maxUnitKWh} kWh limit (${rules.sections.energyRatings})`);
+        }
+      }
+      const listing = t.read(`${b.path}.listing`, `Listing of ${b.item.tag}`, b.item.listing || undefined);
+      if (listing === undefined) {
+        t.need(`${b.path}.listing`, `Listing of ${b.item.tag}`, undefined);
+      } else if (!/9540(?!A)/i.test(listing)) {
+        statuses.push("fail");
+        problems.push(`${b.item.tag} is not recorded as listed to UL 9540`);
+      }
+    }
+    if (location === undefined || t.missing.length) {
+      return [needsInput(this, { inputs: t.inputs, missing: t.missing, values, codeRefs })];
+    }
+    if (location === "habitable-room") {
+      statuses.push("fail");
+      problems.push(`storage may not stand in a habitable room, sleeping room or a closet opening into one (${rules.sections.locations})`);
+    }
+    const local = r.jurisdiction.storageAggregateLimitKWh;
+    const tableLimit = rules.aggregateKWhByLocation[location];
+    const limit = local ?? tableLimit ?? undefined;
+    if (local !== undefined) t.read("jurisdiction.storageAggregateLimitKWh", "Local aggregate limit", local, "kWh");
+    values.push(v("aggregateKWh", "Aggregate energy", totalKWh, "kWh"));
+    if (limit !== undefined) {
+      values.push(v("aggregateLimitKWh", local !== undefined ? `${r.jurisdiction.name} limit` : `Limit for ${location}`, limit, "kWh"));
+      if (totalKWh > limit) {
+        statuses.push("fail");
+        problems.push(`${totalKWh.toFixed(2)} kWh in the ${location} exceeds the ${limit} kWh allowed (${local !== undefined ? "local amendment" : rules.sections.energyRatings})`);
+      }
+    }
+    if (units > 1 && !allFireTested) {
+      const spacing = t.need("site.batterySpacingIn", "Spacing between units", r.site.batterySpacingIn, "in");
+      if (spacing === undefined) statuses.push("needs-input");
+      else {
+        values.push(v("spacingIn", "Spacing between units", spacing, "in"), v("minSpacingIn", "Minimum spacing", rules.minSpacingIn, "in"));
+        if (spacing < rules.minSpacingIn) {
+          statuses.push("fail");
+          problems.push(`units stand ${spacing} in apart, less than ${rules.minSpacingIn} in, and not every unit is backed by large-scale fire testing (${rules.sections.spacing})`);
+        }
+      }
+    }
+    if (rules.requiresDetection) {
+      const det = t.need("site.hasSmokeOrHeatDetection", "Smoke or heat detection", r.site.hasSmokeOrHeatDetection);
+      if (det === undefined) statuses.push("needs-input");
+      else if (!det) {
+        statuses.push("fail");
+        problems.push(`no smoke alarm or heat detector where the storage stands (${rules.sections.detection})`);
+      }
+    }
+    if (rules.requiresImpactProtectionIn.includes(location)) {
+      const imp = t.need("site.hasVehicleImpactProtection", "Vehicle-impact protection", r.site.hasVehicleImpactProtection);
+      if (imp === undefined) statuses.push("needs-input");
+      else if (!imp) {
+        statuses.push("fail");
+        problems.push(`no vehicle-impact protection in the ${location} (${rules.sections.impactProtection})`);
+      }
+    }
+    if (location === "accessory-building") notes.push("where vehicles can reach the units, protect them from impact");
+    if (location === "exterior-wall" || location === "outdoors") notes.push(`keep units at least ${rules.minFromDoorsAndWindowsIn} in from doors and windows into the dwelling`);
+    if (statuses.includes("needs-input") && !problems.length) {
+      return [needsInput(this, { inputs: t.inputs, missing: t.missing, values, codeRefs })];
+    }
+    if (notes.length) statuses.push("attest");
+    const status = worst(...statuses);
+    const refsOut = [...codeRefs, rules.sections.locations, rules.sections.energyRatings];
+    return [
+      makeResult(this, {
+        status,
+        message:
+          status === "fail"
+            ? `${problems.join("; ")}.`
+            : `${totalKWh.toFixed(2)} kWh in the ${location}${limit !== undefined ? ` (limit ${limit} kWh)` : ""}, units within ${rules.maxUnitKWh} kWh${notes.length ? `; confirm on site: ${notes.join("; ")}` : ""}.`,
+        ...(status === "pass" ? {} : { reason: [...problems, ...notes].join("; ") }),
+        values,
+        formula: `Σ unit kWh × quantity = ${totalKWh.toFixed(2)} kWh ≤ ${limit ?? "—"} kWh; each unit ≤ ${rules.maxUnitKWh} kWh`,
+        inputs: t.inputs,
+        missing: t.missing,
+        codeRefs: refsOut,
+      }),
+    ];
+  },
+};

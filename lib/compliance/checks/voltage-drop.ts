@@ -1,0 +1,109 @@
+/**
+ * 8. Voltage drop per circuit and along each array's path. The NEC only
+ * recommends a limit (informational notes), so a breach warns; 3 % by common
+ * practice unless the jurisdiction sets its own.
+ */
+import { dcResistanceOhmPerKft } from "../tables";
+import { Trace, v, type CheckContext } from "../context";
+import { circuitCurrent } from "../derive/circuit-current";
+import { refs } from "../refs";
+import { makeResult, needsInput, type CheckDefinition } from "../result";
+import type { CheckResult } from "../types";
+
+export const DEFAULT_VOLTAGE_DROP_LIMIT_PCT = 3;
+
+/** Two-wire drop, V: out and back through the conductor's resistance (Chapter 9 Table 8 at 75 °C). */
+export function voltageDropV(lengthFt: number, ohmPerKft: number, currentA: number, sets = 1): number {
+  return (2 * lengthFt * ohmPerKft * currentA) / (1000 * sets);
+}
+
+export const voltageDrop: CheckDefinition = {
+  id: "voltage-drop",
+  title: "Voltage drop",
+  run(ctx: CheckContext): CheckResult[] {
+    const ed = ctx.edition;
+    const codeRefs = refs(ed, "voltage-drop", "dc-resistance");
+    const local = ctx.record.jurisdiction.voltageDropLimitPct;
+    const limit = local ?? DEFAULT_VOLTAGE_DROP_LIMIT_PCT;
+    const limitNote = local !== undefined ? `${ctx.record.jurisdiction.name} limit ${limit} %` : `${limit} % (common practice)`;
+    const out: CheckResult[] = [];
+    const pctByCircuit = new Map<string, number | undefined>();
+    for (const ci of ctx.circuits) {
+      const c = ci.item;
+      const t = new Trace();
+      if (local !== undefined) t.read("jurisdiction.voltageDropLimitPct", "Local voltage-drop limit", local, "%");
+      const cur = circuitCurrent(ctx, ci);
+      t.merge(cur);
+      const len = t.need(`${ci.path}.lengthFt`, "One-way length", c.lengthFt, "ft");
+      const size = t.need(`${ci.path}.size`, "Conductor size", c.size, "AWG/kcmil");
+      let I: number | undefined;
+      let V: number | undefined;
+      if (cur.ok) {
+        I = cur.value.operatingCurrentA;
+        V = cur.value.operatingVoltageV;
+        if (I === undefined) t.need(`${ci.path}.designCurrentA`, "Operating current", undefined, "A");
+        if (V === undefined) t.need(`${ci.path}.nominalVoltageV`, "Operating voltage", undefined, "V");
+      }
+      const r = size !== undefined ? dcResistanceOhmPerKft(c.material, size) : undefined;
+      if (len === undefined || size === undefined || I === undefined || V === undefined || r === undefined || t.missing.length) {
+        pctByCircuit.set(c.tag, undefined);
+        out.push(needsInput(this, { subject: c.tag, inputs: t.inputs, missing: t.missing.length ? t.missing : [`${ci.path}.size`], codeRefs, ...(cur.ok ? {} : { reason: cur.reason }) }));
+        continue;
+      }
+      const dropV = voltageDropV(len, r, I, c.parallelSets);
+      const pct = (dropV / V) * 100;
+      pctByCircuit.set(c.tag, pct);
+      const over = pct > limit;
+      out.push(
+        makeResult(this, {
+          subject: c.tag,
+          status: over ? "warning" : "pass",
+          message: over
+            ? `${c.tag}: ${pct.toFixed(2)} % drop exceeds ${limitNote}; a larger conductor or shorter run is recommended.`
+            : `${c.tag}: ${pct.toFixed(2)} % drop, within ${limitNote}.`,
+          ...(over ? { reason: `${pct.toFixed(2)} % is above ${limit} %; the NEC recommends, it does not require, a limit` } : {}),
+          values: [
+            v("resistanceOhmPerKft", `Resistance of ${size} ${c.material}`, r, "Ω/kft"),
+            v("currentA", "Operating current", I, "A"),
+            v("voltageV", "Operating voltage", V, "V"),
+            v("dropV", "Voltage drop", dropV, "V"),
+            v("dropPct", "Voltage drop", pct, "%"),
+            v("limitPct", "Limit", limit, "%"),
+          ],
+          formula: `2 × ${len} ft × ${r} Ω/kft × ${I.toFixed(2)} A ÷ 1000${c.parallelSets > 1 ? ` ÷ ${c.parallelSets} sets` : ""} = ${dropV.toFixed(3)} V; ÷ ${V.toFixed(1)} V = ${pct.toFixed(2)} %`,
+          inputs: t.inputs,
+          codeRefs,
+        }),
+      );
+    }
+    for (const [arrayTag, circuits] of ctx.circuitsByArray) {
+      if (circuits.length < 2) continue;
+      const parts = circuits.map((c) => pctByCircuit.get(c.item.tag));
+      if (parts.some((p) => p === undefined)) {
+        out.push(
+          needsInput(this, {
+            subject: arrayTag,
+            message: `${arrayTag}: the path total needs every PV circuit's drop.`,
+            missing: circuits.filter((c) => pctByCircuit.get(c.item.tag) === undefined).map((c) => `${c.path}.lengthFt`),
+            codeRefs,
+          }),
+        );
+        continue;
+      }
+      const total = parts.reduce<number>((a, b) => a + (b ?? 0), 0);
+      const over = total > limit;
+      out.push(
+        makeResult(this, {
+          subject: arrayTag,
+          status: over ? "warning" : "pass",
+          message: over ? `${arrayTag}: ${total.toFixed(2)} % from array to input exceeds ${limitNote}.` : `${arrayTag}: ${total.toFixed(2)} % from array to input, within ${limitNote}.`,
+          ...(over ? { reason: `total ${total.toFixed(2)} % above ${limit} %` } : {}),
+          values: [v("totalPct", "Total drop along the path", total, "%"), v("limitPct", "Limit", limit, "%")],
+          formula: `sum of ${circuits.map((c) => c.item.tag).join(" + ")}`,
+          codeRefs,
+        }),
+      );
+    }
+    return out;
+  },
+};
