@@ -313,7 +313,7 @@ export function templateContext(input: PacketInput, sheet: { code: string; title
       requiredDocuments: record.jurisdiction.requiredDocuments,
     },
     revision: { number: String(revision.number), date: isoDate(revision.createdAt), createdAt: revision.createdAt },
-    sheet,
+    sheet: { code: sheet.code, title: sheet.title, kind: sheet.kind },
     sheets: [
       ...SHEET_PLAN.map((s) => ({ code: s.code, title: s.title, pages: sheetPages.get(s.code) ?? "" })),
       ...datasheets.map((d) => ({ code: d.code, title: d.title, pages: sheetPages.get(d.code) ?? "" })),

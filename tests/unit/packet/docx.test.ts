@@ -1,0 +1,94 @@
+import { beforeAll, describe, expect, it } from "vitest";
+import { renderPacketDocx } from "@/lib/packet/docx";
+import { formatNumber } from "@/lib/packet/format";
+import { AHJ_FOOTER, REVIEW_MARKING, SHEET_PLAN } from "@/lib/packet/model";
+import { PV_OUTPUT_ALLOWED_A, fixtureInput, fixtureRecord, makeDatasheetPdf } from "./fixtures";
+import { readZip, wordTableRows, wordText } from "./zip";
+
+function part(zip: Map<string, Buffer>, pattern: RegExp): string {
+  return [...zip].filter(([name]) => pattern.test(name)).map(([, b]) => b.toString("utf8")).join("\n");
+}
+
+describe("permit packet DOCX", () => {
+  let zip: Map<string, Buffer>;
+  let documentXml: string;
+  let rows: string[][];
+
+  beforeAll(async () => {
+    const bytes = await renderPacketDocx(
+      fixtureInput({ datasheets: [{ title: "Battery datasheet", equipmentTag: "BAT-1", bytes: await makeDatasheetPdf("SW-51100", 2) }] }),
+    );
+    zip = readZip(bytes);
+    documentXml = zip.get("word/document.xml")!.toString("utf8");
+    rows = wordTableRows(documentXml);
+  });
+
+  it("is a Word document with every sheet as a heading, in order", () => {
+    expect(zip.has("[Content_Types].xml")).toBe(true);
+    const text = wordText(documentXml);
+    let at = -1;
+    for (const s of SHEET_PLAN) {
+      const i = text.indexOf(`${s.code}  ${s.title}`);
+      expect(i, s.code).toBeGreaterThan(at);
+      at = i;
+    }
+  });
+
+  it("has a conductor schedule row for every circuit with its conductor, OCPD and the engine's ampacity", () => {
+    for (const c of fixtureRecord.circuits) {
+      const row = rows.find((r) => r[0] === c.tag && r[1] === `${c.fromTag} → ${c.toTag}`);
+      expect(row, c.tag).toBeDefined();
+      expect(row![3]).toBe(`${c.size} AWG Cu`);
+      if (c.ocpdTag) expect(row![13]).toContain(c.ocpdTag);
+    }
+    const c1 = rows.find((r) => r[0] === "C1" && r[1] === "PV-MOD → DS-1")!;
+    expect(c1[12]).toBe(`${formatNumber(PV_OUTPUT_ALLOWED_A)} A`);
+    expect(c1[15]).toBe("▲ WARNING");
+  });
+
+  it("has an equipment schedule row for every item, naming a missing datasheet", () => {
+    for (const e of fixtureRecord.equipment) {
+      const row = rows.find((r) => r[0] === e.tag && r.length === 9);
+      expect(row, e.tag).toBeDefined();
+      expect(row![2]).toBe(e.manufacturer);
+      expect(row![3]).toBe(e.model);
+    }
+    expect(rows.find((r) => r[0] === "BAT-1" && r.length === 9)![7]).toBe("D-001");
+    expect(rows.find((r) => r[0] === "INV-1" && r.length === 9)![7]).toBe("MISSING");
+  });
+
+  it("tabulates each check's inputs and results", () => {
+    expect(rows).toContainEqual(["Result", "Maximum PV system voltage", "167.2 V"]);
+    expect(rows).toContainEqual(["Input", "Module Voc", "49.5 V"]);
+  });
+
+  it("carries the review marking in its header and footer", () => {
+    const header = wordText(part(zip, /^word\/header\d*\.xml$/));
+    const footer = wordText(part(zip, /^word\/footer\d*\.xml$/));
+    expect(header).toContain(REVIEW_MARKING);
+    expect(footer).toContain(REVIEW_MARKING);
+  });
+
+  it("carries the reviewer and the AHJ footer once approved, and no review marking", async () => {
+    const bytes = await renderPacketDocx(
+      fixtureInput({
+        approval: {
+          reviewerName: "Ines Calloway-Marsh",
+          licenceNumber: "PE-E 40417",
+          licenceState: "Quillon",
+          licenceDiscipline: "Electrical engineering",
+          approvedAt: "2026-12-01T09:30:00.000Z",
+          recordSha256: "ab".repeat(32),
+        },
+      }),
+    );
+    const z = readZip(bytes);
+    const header = wordText(part(z, /^word\/header\d*\.xml$/));
+    const footer = wordText(part(z, /^word\/footer\d*\.xml$/));
+    const body = wordText(z.get("word/document.xml")!.toString("utf8"));
+    expect(header).toContain("Ines Calloway-Marsh");
+    expect(header).toContain("PE-E 40417");
+    expect(footer).toContain(AHJ_FOOTER);
+    expect(header + footer + body).not.toContain(REVIEW_MARKING);
+  });
+});
