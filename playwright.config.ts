@@ -24,7 +24,8 @@ export default defineConfig({
   retries: 0,
   timeout: 60_000,
   expect: { timeout: 10_000 },
-  reporter: [["list"]],
+  // The JSON report is written only when the test runner asks for it (scripts/test-all.ts).
+  reporter: process.env.PLAYWRIGHT_JSON_OUTPUT_NAME ? [["list"], ["json"]] : [["list"]],
   use: {
     baseURL: externalBaseUrl ?? `http://localhost:${PORT}`,
     trace: "off",

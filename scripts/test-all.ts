@@ -11,6 +11,31 @@ import { ensureAuthSecret } from "./lib/ensure-secret";
 import { commandExists, run } from "./lib/run";
 
 const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+const RESULTS_DIR = path.resolve("data/test-results");
+
+/** One closing line over both runners, so a reader (or CI) sees the whole count. */
+function printTotals(): void {
+  let passed = 0;
+  let failed = 0;
+  let skipped = 0;
+  try {
+    const unit = JSON.parse(fs.readFileSync(path.join(RESULTS_DIR, "vitest.json"), "utf8"));
+    passed += unit.numPassedTests ?? 0;
+    failed += unit.numFailedTests ?? 0;
+    skipped += (unit.numPendingTests ?? 0) + (unit.numTodoTests ?? 0);
+  } catch {
+    console.warn("(no unit test report found)");
+  }
+  try {
+    const e2e = JSON.parse(fs.readFileSync(path.join(RESULTS_DIR, "e2e.json"), "utf8"));
+    passed += (e2e.stats?.expected ?? 0) + (e2e.stats?.flaky ?? 0);
+    failed += e2e.stats?.unexpected ?? 0;
+    skipped += e2e.stats?.skipped ?? 0;
+  } catch {
+    console.warn("(no end-to-end report found)");
+  }
+  console.log(`\n${passed} passed, ${failed} failed, ${skipped} skipped`);
+}
 
 async function ensureChromium(): Promise<void> {
   if (fs.existsSync(CHROMIUM)) return;
@@ -51,12 +76,22 @@ async function main() {
   await ensureChromium();
   await step("Type check", "npx", ["tsc", "--noEmit"]);
   await step("Lint", "npx", ["eslint", "--max-warnings", "0", "."]);
-  await step("Unit and integration tests", "npx", ["vitest", "run"]);
+  fs.mkdirSync(RESULTS_DIR, { recursive: true });
+  await step("Unit and integration tests", "npx", [
+    "vitest",
+    "run",
+    "--reporter=default",
+    "--reporter=json",
+    `--outputFile.json=${path.join(RESULTS_DIR, "vitest.json")}`,
+  ]);
   await step("Production build", "npx", ["next", "build"]);
   console.log("\n── Seeding the end-to-end database ──");
   await prepareE2eDatabase();
-  await step("End-to-end tests (Chromium)", "npx", ["playwright", "test"]);
-  console.log("\nAll tests passed.");
+  await step("End-to-end tests (Chromium)", "npx", ["playwright", "test"], {
+    ...process.env,
+    PLAYWRIGHT_JSON_OUTPUT_NAME: path.join(RESULTS_DIR, "e2e.json"),
+  });
+  printTotals();
 }
 
 main().catch((error) => {
