@@ -107,6 +107,11 @@ export function endpoint<E extends Equipment>(
   return undefined;
 }
 
+/** Disconnects, fuses and breakers: the devices with ratingA, voltageRatingV, currentType. */
+export function isProtective(e: Equipment): e is EquipmentOf<"disconnect" | "fuse" | "breaker"> {
+  return e.kind === "disconnect" || e.kind === "fuse" || e.kind === "breaker";
+}
+
 export function kindIs<K extends Equipment["kind"]>(...kinds: K[]) {
   return (e: Equipment): e is EquipmentOf<K> => (kinds as Equipment["kind"][]).includes(e.kind);
 }

@@ -42,3 +42,4 @@ export function parseProjectFile(json: unknown): ParseResult {
   if (parsed.success) return { ok: true, record: parsed.data };
   return { ok: false, issues: formatIssues(parsed.error) };
 }
+export { requiredLabels, type LabelRequirement, type SignalWord } from "./labels";

@@ -43,9 +43,10 @@ export function loadSummary(record: ProjectRecord): LoadSummary {
   const inverterIdleMissing: string[] = [];
   let usable: number | null = 0;
   for (const e of record.equipment) {
-    if (INVERTER_KINDS.has(e.kind) && "idleW" in e) {
-      if (e.idleW === undefined) inverterIdleMissing.push(e.tag);
-      else idleWh += e.idleW * 24 * e.quantity;
+    if (INVERTER_KINDS.has(e.kind)) {
+      const idleW = (e as { idleW?: number }).idleW;
+      if (idleW === undefined) inverterIdleMissing.push(e.tag);
+      else idleWh += idleW * 24 * e.quantity;
     }
     if (e.kind === "battery") {
       const kwh = e.capacityKWh ?? (e.capacityAh !== undefined && e.nominalVoltageV !== undefined ? (e.capacityAh * e.nominalVoltageV) / 1000 : undefined);

@@ -6,10 +6,11 @@ import { z } from "zod";
  */
 export function numberIn(min: number, max: number, unit: string) {
   const range = `between ${min} and ${max}${unit ? " " + unit : ""}`;
+  // zod 4 numbers refuse NaN and ±Infinity; min/max (not a refinement) so the JSON Schema carries the range.
   return z
     .number({ error: `must be a number ${range}` })
-    .refine(Number.isFinite, { message: `must be a finite number ${range}` })
-    .refine((v) => v >= min && v <= max, { message: `must be ${range}` });
+    .min(min, { message: `must be ${range}` })
+    .max(max, { message: `must be ${range}` });
 }
 
 export function integerIn(min: number, max: number, unit = "") {

@@ -5,7 +5,7 @@
  * close to it; inverters listed for the mode they run in; storage listed.
  */
 import type { Circuit } from "../../schemas/project-record";
-import { isDcCircuit, isInverter, Trace, v, type CheckContext, type Indexed } from "../context";
+import { isDcCircuit, isInverter, Trace, v, type CheckContext, type Indexed, isProtective } from "../context";
 import { batteries } from "../derive/battery";
 import { circuitCurrent } from "../derive/circuit-current";
 import { localRef, refs } from "../refs";
@@ -34,7 +34,7 @@ export const deviceRatings: CheckDefinition = {
 
     for (const [tag, circuits] of ctx.circuitsByDevice) {
       const dev = ctx.equipment.get(tag);
-      if (!dev || !("currentType" in dev.item)) continue;
+      if (!dev || !isProtective(dev.item)) continue;
       const e = dev.item;
       const t = new Trace();
       const statuses: CheckStatus[] = ["pass"];

@@ -4,7 +4,7 @@
  * (for an unprotected PV circuit, the device 690.9(B) would call for).
  */
 import { compareConductorSize, minimumEgcSize, nextStandardOcpdRatingA } from "../tables";
-import { isDcCircuit, isPvCircuit, Trace, v, type CheckContext } from "../context";
+import { isDcCircuit, isPvCircuit, Trace, v, type CheckContext, isProtective } from "../context";
 import { circuitCurrent } from "../derive/circuit-current";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
@@ -26,7 +26,7 @@ export const grounding: CheckDefinition = {
       let ocpdA: number | undefined;
       let basis = "";
       const dev = c.ocpdTag ? ctx.equipment.get(c.ocpdTag) : undefined;
-      if (dev && "ratingA" in dev.item) {
+      if (dev && isProtective(dev.item)) {
         ocpdA = t.need(`${dev.path}.ratingA`, `Rating of ${dev.item.tag}`, dev.item.ratingA, "A");
         basis = `${dev.item.tag} ${ocpdA ?? "—"} A`;
       } else if (pv) {

@@ -1,5 +1,5 @@
 /** 1. Maximum PV system voltage at the design low temperature (690.7). */
-import { Trace, v, type CheckContext } from "../context";
+import { Trace, v, type CheckContext, isProtective } from "../context";
 import { arrayMaxVoltage, arrayParts, pvInputOf } from "../derive/pv";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
@@ -39,7 +39,7 @@ export const maxPvVoltage: CheckDefinition = {
       for (const c of ctx.circuitsByArray.get(array.tag) ?? []) {
         for (const tag of c.item.disconnectTags) {
           const dev = ctx.equipment.get(tag);
-          if (!dev || !("voltageRatingV" in dev.item)) continue;
+          if (!dev || !isProtective(dev.item)) continue;
           const rating = t.need(`${dev.path}.voltageRatingV`, `Voltage rating of ${tag}`, dev.item.voltageRatingV, "V");
           if (rating !== undefined) limits.push({ label: `disconnect ${tag} on ${c.item.tag}`, limitV: rating });
         }

@@ -73,7 +73,7 @@ export const mpptWindow: CheckDefinition = {
         values.push(v("arrayIscA", "Array Isc on the input", arrI, "A"), v("inputMaxA", `${input.label} maximum input current`, maxI, "A"));
         if (arrI > maxI) {
           statuses.push("fail");
-          problems.push(`array Isc ${arrI.toFixed(1)} A exceeds the input's ${maxI} A`);
+          problems.push(`array Isc ${arrI.toFixed(2)} A exceeds the input's ${maxI} A`);
         }
       }
       const lowAmb = ctx.record.site.designLowTempC;

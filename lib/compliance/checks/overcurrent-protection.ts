@@ -141,7 +141,7 @@ export const overcurrentProtection: CheckDefinition = {
       }
 
       const e = dev.item;
-      const rating = "ratingA" in e ? t.need(`${dev.path}.ratingA`, `Rating of ${e.tag}`, e.ratingA, "A") : undefined;
+      const rating = e.kind === "fuse" || e.kind === "breaker" || e.kind === "disconnect" ? t.need(`${dev.path}.ratingA`, `Rating of ${e.tag}`, e.ratingA, "A") : undefined;
       t.merge(amp);
       if (rating === undefined || !amp.ok) {
         out.push(needsInput(this, { subject: c.tag, inputs: t.inputs, missing: t.missing, codeRefs, ...(amp.ok ? {} : { reason: amp.reason }) }));

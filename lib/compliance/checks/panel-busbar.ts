@@ -3,7 +3,7 @@
  * meets the 120 % rule or the sum-of-breakers rule; a stand-alone inverter
  * feeding a panel has bus and main rated for its output device.
  */
-import { equipmentOfKind, isInverter, Trace, v, type CheckContext } from "../context";
+import { equipmentOfKind, isInverter, Trace, v, type CheckContext, isProtective } from "../context";
 import { circuitCurrent } from "../derive/circuit-current";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
@@ -34,7 +34,7 @@ export const panelBusbar: CheckDefinition = {
         t.merge(cur);
         if (cur.ok) sourceA += cur.value.currentA;
         const dev = c.item.ocpdTag ? ctx.equipment.get(c.item.ocpdTag) : undefined;
-        const rating = dev && "ratingA" in dev.item ? t.need(`${dev.path}.ratingA`, `Rating of ${dev.item.tag}`, dev.item.ratingA, "A") : t.need(`${c.path}.ocpdTag`, `Output device of ${c.item.tag}`, undefined);
+        const rating = dev && isProtective(dev.item) ? t.need(`${dev.path}.ratingA`, `Rating of ${dev.item.tag}`, dev.item.ratingA, "A") : t.need(`${c.path}.ocpdTag`, `Output device of ${c.item.tag}`, undefined);
         if (typeof rating === "number") deviceSumA += rating;
       }
       if (ctx.record.systemKind === "hybrid") {

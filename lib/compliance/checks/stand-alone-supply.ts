@@ -5,7 +5,7 @@
  * branch circuits, and an output device no larger than the neutral bus.
  */
 import type { Circuit } from "../../schemas/project-record";
-import { equipmentOfKind, isInverter, Trace, v, type CheckContext, type EquipmentOf, type Indexed } from "../context";
+import { equipmentOfKind, isInverter, Trace, v, type CheckContext, type EquipmentOf, type Indexed, isProtective } from "../context";
 import { loadSummary } from "../load-summary";
 import { refs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
@@ -74,7 +74,7 @@ export const standAloneSupply: CheckDefinition = {
         notes.push(`${panel.item.tag} is fed by 120 V-only ${inverter.item.tag} and has multiwire branch circuits, which would overload the neutral (710.15(C))`);
       }
       const dev = circuit.item.ocpdTag ? ctx.equipment.get(circuit.item.ocpdTag) : undefined;
-      const rating = dev && "ratingA" in dev.item ? dev.item.ratingA : undefined;
+      const rating = dev && isProtective(dev.item) ? dev.item.ratingA : undefined;
       const bus = t.need(`${panel.path}.busRatingA`, `Bus (neutral) rating of ${panel.item.tag}`, panel.item.busRatingA, "A");
       if (rating !== undefined && bus !== undefined) {
         values.push(v("outputDeviceA", `Output device of ${inverter.item.tag}`, rating, "A"), v("neutralBusA", `Neutral bus of ${panel.item.tag} (taken as the bus rating)`, bus, "A"));
