@@ -1,6 +1,6 @@
 import { rgb, type PDFFont, type PDFPage } from "pdf-lib";
 import { DEJAVU_CAP_HEIGHT } from "../packet/fonts";
-import { wrapText } from "../packet/text";
+import { textWidth, wrapText } from "../packet/text";
 import { labelArtwork, type LabelArtwork, type Rgb } from "./artwork";
 import type { LabelRequirement } from "./types";
 
@@ -77,7 +77,7 @@ export function drawLabelLayout(page: PDFPage, art: LabelArtwork, layout: LabelL
   const size = layout.headerSize * scale;
   const capH = size * DEJAVU_CAP_HEIGHT;
   const baseline = top - hh / 2 - capH / 2;
-  const wordW = fonts.bold.widthOfTextAtSize(art.signalWord, size);
+  const wordW = textWidth(fonts.bold, art.signalWord, size);
   const symbol = art.header.alertSymbol;
   const symbolSize = capH * 1.25;
   const gap = symbol ? size * 0.3 : 0;
@@ -93,7 +93,7 @@ export function drawLabelLayout(page: PDFPage, art: LabelArtwork, layout: LabelL
   let y = top - hh - layout.paddingPt * scale * 0.7 - textSize * DEJAVU_CAP_HEIGHT;
   for (const line of layout.lines) {
     const font = line.bold ? fonts.bold : fonts.regular;
-    const lw = font.widthOfTextAtSize(line.text, textSize);
+    const lw = textWidth(font, line.text, textSize);
     page.drawText(line.text, { x: x + (w - lw) / 2, y, size: textSize, font, color: rgb(0, 0, 0) });
     y -= lh;
   }

@@ -1,7 +1,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import fontkit from "@pdf-lib/fontkit";
-import type { PDFDocument, PDFFont } from "pdf-lib";
+import { PDFHexString, type PDFDocument, type PDFFont } from "pdf-lib";
 
 /** DejaVu (Bitstream Vera licence, see fonts/pdf/LICENSE-DejaVu.txt): covers °, ×, −, →, ✓ and the status shapes. */
 export const PDF_FONT_DIR = path.join(process.cwd(), "fonts", "pdf");
@@ -29,11 +29,51 @@ function fontBytes(file: string, dir: string): Uint8Array {
   return bytes;
 }
 
+/**
+ * pdf-lib shapes every string through fontkit (GSUB/GPOS lookups) each time it
+ * draws or measures it, which made text the bulk of packet generation. The
+ * sheets carry plain left-to-right Latin text, so glyphs are resolved once per
+ * character and reused: the same glyphs and ToUnicode entries, no ligatures.
+ */
+function cachePerCharacter(font: PDFFont): PDFFont {
+  const encodeOne = font.encodeText.bind(font);
+  const measureOne = font.widthOfTextAtSize.bind(font);
+  const hex = new Map<string, string>();
+  const advance = new Map<string, number>();
+  font.encodeText = (text: string) => {
+    let out = "";
+    for (const ch of text) {
+      let h = hex.get(ch);
+      if (h === undefined) {
+        h = encodeOne(ch).asString();
+        hex.set(ch, h);
+      }
+      out += h;
+    }
+    return PDFHexString.of(out);
+  };
+  font.widthOfTextAtSize = (text: string, size: number) => {
+    let units = 0;
+    for (const ch of text) {
+      let w = advance.get(ch);
+      if (w === undefined) {
+        w = measureOne(ch, 1000);
+        advance.set(ch, w);
+      }
+      units += w;
+    }
+    return (units * size) / 1000;
+  };
+  return font;
+}
+
 /** Embeds the packet fonts as subsets, so a packet carries only the glyphs it prints. */
 export async function embedPacketFonts(doc: PDFDocument, dir = PDF_FONT_DIR): Promise<PdfFonts> {
   doc.registerFontkit(fontkit);
   const entries = await Promise.all(
-    (Object.keys(FILES) as FontRole[]).map(async (role) => [role, await doc.embedFont(fontBytes(FILES[role], dir), { subset: true })] as const),
+    (Object.keys(FILES) as FontRole[]).map(
+      async (role) => [role, cachePerCharacter(await doc.embedFont(fontBytes(FILES[role], dir), { subset: true }))] as const,
+    ),
   );
   return Object.fromEntries(entries) as PdfFonts;
 }

@@ -8,7 +8,7 @@ import { STATUS_SHAPE, STATUS_WORD, formatCheckValue } from "./format";
 import type { Block, Cell } from "./markup";
 import { buildPacketModel, type PacketModel, type Sheet } from "./model";
 import { prepareOneLine, type OneLineDrawer } from "./one-line";
-import { fitText, wrapText } from "./text";
+import { fitText, textWidth, wrapText } from "./text";
 import type { PacketInput, PacketPdf, SheetPages } from "./types";
 
 /** ANSI B (tabloid) landscape, 17 × 11 in, in points. */
@@ -94,7 +94,7 @@ function paragraphItems(font: PDFFont, size: number, lh: number, text: string, w
 function statusBadge(page: PDFPage, fonts: PdfFonts, status: CheckStatus, x: number, top: number, h: number, size = 7) {
   const text = `${STATUS_SHAPE[status]} ${STATUS_WORD[status]}`;
   const font = fonts.condensedBold;
-  const w = font.widthOfTextAtSize(text, size) + 6;
+  const w = textWidth(font, text, size) + 6;
   const y = top - h;
   if (status === "fail") page.drawRectangle({ x, y, width: w, height: h, color: SIGNAL });
   else page.drawRectangle({ x, y, width: w, height: h, borderColor: INK, borderWidth: 0.6 });
@@ -133,7 +133,7 @@ function tableItems(ctx: Ctx, block: Extract<Block, { kind: "table" }>, w: numbe
             statusBadge(page, fonts, cell.status, cx + padX, top - padY, lh + 0.5, 6.4);
           } else {
             cell.lines.forEach((line, li) => {
-              const tw = cell.font.widthOfTextAtSize(line, size);
+              const tw = textWidth(cell.font, line, size);
               const tx = align === "right" ? cx + cw - padX - tw : align === "center" ? cx + (cw - tw) / 2 : cx + padX;
               page.drawText(line, { x: tx, y: top - padY - (li + 1) * lh + 2.2, size, font: cell.font, color: INK });
             });
@@ -186,7 +186,7 @@ function checkCardItems(ctx: Ctx, r: CheckResult, w: number): Item[] {
     }));
     for (const row of rows) {
       const valueFont = bold ? fonts.condensedBold : fonts.condensed;
-      const valueW = Math.min(inner * 0.45, valueFont.widthOfTextAtSize(row.value, SMALL) + 2);
+      const valueW = Math.min(inner * 0.45, textWidth(valueFont, row.value, SMALL) + 2);
       const labelLines = wrapText(fonts.condensed, SMALL, row.label, inner - valueW - 6);
       const valueLines = wrapText(valueFont, SMALL, row.value, inner * 0.45);
       const h = Math.max(labelLines.length, valueLines.length) * SMALL_LH;
@@ -195,7 +195,7 @@ function checkCardItems(ctx: Ctx, r: CheckResult, w: number): Item[] {
         draw(page, x, top, ww) {
           labelLines.forEach((l, i) => page.drawText(l, { x, y: top - (i + 1) * SMALL_LH + 2.3, size: SMALL, font: fonts.condensed, color: INK }));
           valueLines.forEach((l, i) => {
-            const tw = valueFont.widthOfTextAtSize(l, SMALL);
+            const tw = textWidth(valueFont, l, SMALL);
             page.drawText(l, { x: x + ww - tw, y: top - (i + 1) * SMALL_LH + 2.3, size: SMALL, font: valueFont, color: INK });
           });
         },
@@ -221,7 +221,7 @@ function sitePlanItem(ctx: Ctx, w: number, h: number, caption: string): Item {
         page.drawLine({ start: { x, y: top }, end: { x: x + w, y: top - boxH }, thickness: 0.3, color: HAIR });
         page.drawLine({ start: { x, y: top - boxH }, end: { x: x + w, y: top }, thickness: 0.3, color: HAIR });
         const msg = "SITE PLAN NOT ATTACHED";
-        const tw = fonts.bold.widthOfTextAtSize(msg, 16);
+        const tw = textWidth(fonts.bold, msg, 16);
         page.drawRectangle({ x: x + w / 2 - tw / 2 - 8, y: top - boxH / 2 - 12, width: tw + 16, height: 28, color: WHITE });
         page.drawText(msg, { x: x + w / 2 - tw / 2, y: top - boxH / 2 - 4, size: 16, font: fonts.bold, color: INK });
         return;
@@ -572,7 +572,7 @@ function drawTitleBlock(ctx: Ctx, info: PageInfo, pageNo: number, total: number,
     const msg = ["PREPARED FOR REVIEW BY A", "LICENSED PROFESSIONAL", "", "NOT FOR CONSTRUCTION", "UNTIL STAMPED"];
     let ty = boxTop - 50;
     for (const m of msg) {
-      const tw = fonts.bold.widthOfTextAtSize(m, 8.5);
+      const tw = textWidth(fonts.bold, m, 8.5);
       if (m) page.drawText(m, { x: x + (w - tw) / 2, y: ty, size: 8.5, font: fonts.bold, color: INK });
       ty -= 11;
     }
@@ -590,7 +590,7 @@ function drawTitleBlock(ctx: Ctx, info: PageInfo, pageNo: number, total: number,
   const sub = info.count > 1 ? `page ${info.index} of ${info.count} of this sheet` : "";
   if (sub) page.drawText(sub, { x, y: TB.y0 + 11, size: 6.5, font: fonts.condensed, color: INK });
   const pn = `${pageNo} / ${total}`;
-  page.drawText(pn, { x: TB.x1 - 8 - fonts.condensed.widthOfTextAtSize(pn, 7), y: TB.y0 + 49, size: 7, font: fonts.condensed, color: INK });
+  page.drawText(pn, { x: TB.x1 - 8 - textWidth(fonts.condensed, pn, 7), y: TB.y0 + 49, size: 7, font: fonts.condensed, color: INK });
 }
 
 function drawBand(ctx: Ctx, page: PDFPage) {
@@ -599,7 +599,7 @@ function drawBand(ctx: Ctx, page: PDFPage) {
   page.drawLine({ start: { x: INNER.x0, y: y0 + BAND_H }, end: { x: TB.x0, y: y0 + BAND_H }, thickness: 0.6, color: INK });
   if (!model.marking.approved) {
     const t = model.marking.reviewText;
-    const tw = fonts.bold.widthOfTextAtSize(t, 8.5);
+    const tw = textWidth(fonts.bold, t, 8.5);
     page.drawText(t, { x: INNER.x0 + (TB.x0 - INNER.x0 - tw) / 2, y: y0 + 5.5, size: 8.5, font: fonts.bold, color: INK });
   } else {
     const t = `${model.marking.approvalLines[0] ?? ""} · ${model.marking.footer}`;

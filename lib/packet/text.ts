@@ -1,30 +1,72 @@
 import type { PDFFont } from "pdf-lib";
 
+/**
+ * Text measuring from cached glyph advances. pdf-lib measures a custom font by
+ * shaping the whole string through fontkit on every call, which dominated
+ * packet generation; advances summed per character give the same width for
+ * the plain Latin text on the sheets.
+ */
+const advances = new WeakMap<PDFFont, Map<string, number>>();
+
+export function textWidth(font: PDFFont, text: string, size: number): number {
+  let table = advances.get(font);
+  if (!table) {
+    table = new Map();
+    advances.set(font, table);
+  }
+  let units = 0;
+  for (const ch of text) {
+    let w = table.get(ch);
+    if (w === undefined) {
+      w = font.widthOfTextAtSize(ch, 1000);
+      table.set(ch, w);
+    }
+    units += w;
+  }
+  return (units * size) / 1000;
+}
+
 /** Greedy word wrap; words longer than the width break by character. */
 export function wrapText(font: PDFFont, size: number, text: string, width: number): string[] {
   const out: string[] = [];
+  const space = textWidth(font, " ", size);
   for (const paragraph of text.split("\n")) {
     const words = paragraph.split(/\s+/).filter(Boolean);
     let line = "";
+    let lineW = 0;
     for (const word of words) {
-      const candidate = line ? `${line} ${word}` : word;
-      if (font.widthOfTextAtSize(candidate, size) <= width) {
-        line = candidate;
+      const wordW = textWidth(font, word, size);
+      if (line && lineW + space + wordW <= width) {
+        line = `${line} ${word}`;
+        lineW += space + wordW;
+        continue;
+      }
+      if (!line && wordW <= width) {
+        line = word;
+        lineW = wordW;
         continue;
       }
       if (line) out.push(line);
-      if (font.widthOfTextAtSize(word, size) <= width) {
+      if (wordW <= width) {
         line = word;
+        lineW = wordW;
         continue;
       }
       let piece = "";
+      let pieceW = 0;
       for (const ch of word) {
-        if (font.widthOfTextAtSize(piece + ch, size) > width && piece) {
+        const cw = textWidth(font, ch, size);
+        if (pieceW + cw > width && piece) {
           out.push(piece);
           piece = ch;
-        } else piece += ch;
+          pieceW = cw;
+        } else {
+          piece += ch;
+          pieceW += cw;
+        }
       }
       line = piece;
+      lineW = pieceW;
     }
     out.push(line);
   }
@@ -33,8 +75,8 @@ export function wrapText(font: PDFFont, size: number, text: string, width: numbe
 
 /** Shortens a line to the width with an ellipsis. */
 export function fitText(font: PDFFont, size: number, text: string, width: number): string {
-  if (font.widthOfTextAtSize(text, size) <= width) return text;
+  if (textWidth(font, text, size) <= width) return text;
   let s = text;
-  while (s.length > 1 && font.widthOfTextAtSize(s + "…", size) > width) s = s.slice(0, -1);
+  while (s.length > 1 && textWidth(font, s + "…", size) > width) s = s.slice(0, -1);
   return s + "…";
 }
