@@ -1,0 +1,60 @@
+import { NextResponse } from "next/server";
+import { requireContext } from "@/lib/auth/session";
+import { env } from "@/lib/env";
+import { errorResponse } from "@/lib/http";
+import { uploadAttachment } from "@/lib/services/attachments";
+import { formatBytes } from "@/lib/uploads/format-bytes";
+import { UploadRefusedError } from "@/lib/uploads/refusal";
+
+/** Room for the multipart boundaries and the text fields around the file. */
+const MULTIPART_OVERHEAD_BYTES = 64 * 1024;
+/** Next.js's default proxyClientMaxBodySize (10 MB). */
+const PROXY_BODY_BYTES = 10 * 1024 * 1024;
+
+function refusal(status: number, message: string, reason: string) {
+  return NextResponse.json({ error: message, code: "upload-refused", reason, issues: [] }, { status });
+}
+
+/**
+ * One file per request, as multipart/form-data from the uploader: the file
+ * under "file" (or "files[]"), and fields projectId, kind, equipmentTag.
+ */
+export async function POST(request: Request): Promise<Response> {
+  try {
+    const ctx = await requireContext();
+    const maxBytes = env().UPLOAD_MAX_BYTES;
+    const declared = Number(request.headers.get("content-length"));
+    if (Number.isFinite(declared) && declared > maxBytes + MULTIPART_OVERHEAD_BYTES) {
+      return refusal(413, `The file is larger than the largest accepted, ${formatBytes(maxBytes)}. Reduce it or split it.`, "too-large");
+    }
+    if (!(request.headers.get("content-type") ?? "").toLowerCase().startsWith("multipart/form-data")) {
+      return refusal(400, "Send the file as multipart/form-data, with fields projectId, kind and equipmentTag.", "missing-field");
+    }
+    let form: FormData;
+    try {
+      form = await request.formData();
+    } catch {
+      // The proxy buffers at most PROXY_BODY_BYTES of a request body by default (next.config proxyClientMaxBodySize).
+      const hint = Number.isFinite(declared) && declared > PROXY_BODY_BYTES ? " If it fails again for files over 10 MB, tell your administrator: the server reads less of a request than the upload limit allows." : "";
+      return refusal(400, `The upload arrived incomplete and could not be read. Try again.${hint}`, "missing-field");
+    }
+    const file = form.get("file") ?? form.get("files[]");
+    if (!(file instanceof File)) return refusal(400, "No file was sent: choose a file to upload.", "missing-field");
+    if (file.size > maxBytes) {
+      return refusal(413, `“${file.name}” is ${formatBytes(file.size)}; the largest file accepted is ${formatBytes(maxBytes)}. Reduce it or split it.`, "too-large");
+    }
+    const text = (name: string) => {
+      const v = form.get(name);
+      return typeof v === "string" ? v : undefined;
+    };
+    const result = await uploadAttachment(
+      ctx,
+      { projectId: text("projectId"), kind: text("kind"), equipmentTag: text("equipmentTag"), fileName: file.name, bytes: new Uint8Array(await file.arrayBuffer()) },
+      { maxBytes },
+    );
+    return NextResponse.json({ ...result, url: result.attachment.downloadUrl }, { status: result.duplicate ? 200 : 201 });
+  } catch (error) {
+    if (error instanceof UploadRefusedError) return refusal(error.httpStatus, error.message, error.reason);
+    return errorResponse(error);
+  }
+}
