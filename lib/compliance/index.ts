@@ -8,7 +8,9 @@
 import { formatIssues } from "../schemas/fields";
 import { projectRecordSchema, type NecEdition, type ProjectRecord } from "../schemas/project-record";
 import { buildContext } from "./context";
-import { CHECKS } from "./registry";
+import { CHECKS, SCOPE_TOPIC } from "./registry";
+import { makeResult } from "./result";
+import { codeRef } from "./tables";
 import { CHECK_STATUSES, type CheckResult, type CheckRun, type CheckRunOptions, type CheckStatus } from "./types";
 
 export type { CheckInput, CheckResult, CheckRun, CheckRunOptions, CheckStatus, CheckValue } from "./types";
@@ -24,7 +26,18 @@ export function runChecks(record: ProjectRecord, options: CheckRunOptions = {}):
   const tagged: { r: CheckResult; order: number; seq: number }[] = [];
   let seq = 0;
   CHECKS.forEach((check, order) => {
-    for (const r of check.run(ctx)) tagged.push({ r, order, seq: seq++ });
+    const results = check.run(ctx);
+    if (results.length === 0) {
+      results.push(
+        makeResult(check, {
+          status: "not-applicable",
+          message: "Nothing in the record that this check applies to.",
+          reason: "the record holds no item of the kind this check covers",
+          codeRefs: [codeRef(edition, SCOPE_TOPIC[check.id] ?? "listing-use")],
+        }),
+      );
+    }
+    for (const r of results) tagged.push({ r, order, seq: seq++ });
   });
   tagged.sort((a, b) => SEVERITY[a.r.status] - SEVERITY[b.r.status] || a.order - b.order || a.seq - b.seq);
   const counts = Object.fromEntries(CHECK_STATUSES.map((s) => [s, 0])) as Record<CheckStatus, number>;

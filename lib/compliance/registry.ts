@@ -18,6 +18,7 @@ import { storageSiting } from "./checks/storage-siting";
 import { submittalCompleteness } from "./checks/submittal-completeness";
 import { voltageDrop } from "./checks/voltage-drop";
 import type { CheckDefinition } from "./result";
+import type { CodeTopic } from "./tables";
 
 export const CHECKS: readonly CheckDefinition[] = [
   maxPvVoltage,
@@ -39,3 +40,25 @@ export const CHECKS: readonly CheckDefinition[] = [
   panelBusbar,
   submittalCompleteness,
 ];
+
+/** What each check cites when the record holds nothing it applies to (it then reports "not applicable", never nothing). */
+export const SCOPE_TOPIC: Readonly<Record<string, CodeTopic>> = {
+  "max-pv-voltage": "max-voltage",
+  "mppt-window": "listing-use",
+  "circuit-current": "pv-circuit-current",
+  "conductor-ampacity": "ampacity-table",
+  "overcurrent-protection": "pv-ocpd",
+  disconnects: "pv-disconnect",
+  grounding: "egc-table",
+  "voltage-drop": "voltage-drop",
+  "battery-terminals": "terminal-rating",
+  "inverter-capacity": "stand-alone-supply",
+  "stand-alone-sizing": "stand-alone-supply",
+  labels: "field-marking",
+  "storage-siting": "ess-listing",
+  "stand-alone-supply": "stand-alone-supply",
+  "rapid-shutdown": "rapid-shutdown",
+  "device-ratings": "listing-use",
+  "panel-busbar": "busbar",
+  "submittal-completeness": "listing-use",
+};

@@ -80,6 +80,7 @@ function compute(ctx: CheckContext, ci: Indexed<Circuit>): Derived<ConductorAmpa
   const values: CheckValue[] = [
     v("currentA", "Circuit current", I, "A"),
     v("requiredUnadjustedA", `${Math.round(factor * 100)} % of the current (no adjustment)`, requiredUnadjustedA, "A"),
+    v("requiredAdjustedA", "Current the conductor must carry under conditions of use", requiredAdjustedA, "A"),
     v("tableAtTerminalA", `Table ampacity at the ${terminalRatingC} °C terminal column${termGiven === undefined ? " (110.14(C)(1) default)" : ""}`, tableAtTerminalA ?? "none", tableAtTerminalA === undefined ? "" : "A"),
     v("ambientC", `Ambient${adderC ? ` + rooftop adder ${adderC} °C` : ""}`, ambientC, "°C"),
     v("correction", `Ambient correction at ${ins} °C`, correction ?? "not permitted", ""),
