@@ -1,0 +1,98 @@
+import { DATASHEET_KINDS } from "../../compliance/checks/submittal-completeness";
+import type { ProjectRecord } from "../../schemas/project-record";
+
+/** The attachment fields the packet's document selection reads. */
+export interface DocumentRef {
+  id: string;
+  kind: string;
+  equipmentTag: string | null;
+  fileName: string;
+  mimeType: string;
+  createdAt: string;
+}
+
+export type RequiredDocument = ProjectRecord["jurisdiction"]["requiredDocuments"][number];
+
+/** What a permit office asks for when the project has no jurisdiction record yet. */
+export const DEFAULT_REQUIRED_DOCUMENTS: readonly RequiredDocument[] = ["equipment-datasheets", "storage-listing", "site-plan"];
+
+export const REQUIRED_DOCUMENT_LABELS: Record<RequiredDocument, string> = {
+  "equipment-datasheets": "Datasheet for each major piece of equipment",
+  "storage-listing": "Listing of the energy storage units",
+  "site-plan": "Site plan",
+  "structural-letter": "Structural letter (roof mounts)",
+};
+
+export interface PacketDocuments {
+  sitePlan: DocumentRef | null;
+  /** PDFs merged after the sheets, in this order. */
+  merged: DocumentRef[];
+  /** Attachment ids in packet order: the site plan, then the merged PDFs. */
+  attachmentIds: string[];
+}
+
+const MERGED_KINDS = ["datasheet", "storage-listing", "structural-letter"] as const;
+
+/**
+ * Chooses the documents a packet carries: the newest site plan, then the
+ * datasheets in the equipment schedule's order, then storage listings and
+ * structural letters, so the merged pages read in the order the sheets
+ * mention them.
+ */
+export function selectPacketDocuments(record: ProjectRecord, attachments: readonly DocumentRef[]): PacketDocuments {
+  const sitePlans = attachments.filter((a) => a.kind === "site-plan");
+  const sitePlan = sitePlans.length ? [...sitePlans].sort((a, b) => a.createdAt.localeCompare(b.createdAt)).at(-1)! : null;
+  const order = new Map(record.equipment.map((e, i) => [e.tag, i]));
+  const rank = (a: DocumentRef) => (a.equipmentTag != null && order.has(a.equipmentTag) ? order.get(a.equipmentTag)! : Number.MAX_SAFE_INTEGER);
+  const merged: DocumentRef[] = [];
+  for (const kind of MERGED_KINDS) {
+    const ofKind = attachments
+      .map((a, i) => ({ a, i }))
+      .filter(({ a }) => a.kind === kind && a.mimeType === "application/pdf")
+      .sort((x, y) => rank(x.a) - rank(y.a) || x.i - y.i)
+      .map(({ a }) => a);
+    merged.push(...ofKind);
+  }
+  return { sitePlan, merged, attachmentIds: [...(sitePlan ? [sitePlan.id] : []), ...merged.map((m) => m.id)] };
+}
+
+/** How a merged document is titled in the sheet index and on its page margins. */
+export function documentTitle(record: ProjectRecord, doc: Pick<DocumentRef, "kind" | "equipmentTag" | "fileName">): string {
+  const equipment = doc.equipmentTag ? record.equipment.find((e) => e.tag === doc.equipmentTag) : undefined;
+  const model = equipment ? [equipment.manufacturer, equipment.model].filter(Boolean).join(" ") : "";
+  switch (doc.kind) {
+    case "datasheet":
+      return model ? `${model} datasheet` : `Datasheet, ${doc.fileName}`;
+    case "storage-listing":
+      return model ? `${model} storage listing` : `Storage listing, ${doc.fileName}`;
+    case "structural-letter":
+      return `Structural letter, ${doc.fileName}`;
+    default:
+      return doc.fileName;
+  }
+}
+
+/**
+ * Each document the jurisdiction requires that the project lacks, named so
+ * the designer knows what to attach: "no datasheet for INV-1",
+ * "no storage listing for BAT-1", "no site plan".
+ */
+export function missingDocuments(record: ProjectRecord, attachments: readonly DocumentRef[], required: readonly RequiredDocument[]): string[] {
+  const need = new Set(required);
+  const missing: string[] = [];
+  const has = (kind: string, tag?: string) => attachments.some((a) => a.kind === kind && (tag === undefined || a.equipmentTag === tag));
+  if (need.has("equipment-datasheets")) {
+    for (const e of record.equipment) if (DATASHEET_KINDS.includes(e.kind) && !has("datasheet", e.tag)) missing.push(`no datasheet for ${e.tag}`);
+  }
+  if (need.has("storage-listing")) {
+    // A listing filed without an equipment tag covers every battery of the project.
+    const untagged = attachments.some((a) => a.kind === "storage-listing" && !a.equipmentTag);
+    for (const e of record.equipment) {
+      if (e.kind === "battery" && !untagged && !has("storage-listing", e.tag)) missing.push(`no storage listing for ${e.tag}`);
+    }
+  }
+  if (need.has("site-plan") && !has("site-plan")) missing.push("no site plan");
+  // Structural letters concern the roof carrying the array, as the submittal check reads it.
+  if (need.has("structural-letter") && record.site.mounting === "roof" && !has("structural-letter")) missing.push("no structural letter for the roof mount");
+  return missing;
+}
