@@ -1,0 +1,89 @@
+import type { Metadata } from "next";
+import { AttachmentList } from "@/components/attachments/attachment-list";
+import { AttachmentUploader, type EquipmentOption } from "@/components/attachments/attachment-uploader";
+import { SubmittalChecklist, type ChecklistItem } from "@/components/attachments/submittal-checklist";
+import { pageContext } from "@/lib/auth/page-context";
+import { can } from "@/lib/auth/permissions";
+import { runChecks } from "@/lib/compliance";
+import { DATASHEET_KINDS } from "@/lib/compliance/checks/submittal-completeness";
+import { env } from "@/lib/env";
+import type { ProjectRecord } from "@/lib/schemas/project-record";
+import { listProjectAttachments } from "@/lib/services/attachments";
+import { kindsForRoles } from "@/lib/uploads/kinds";
+import { loadProject } from "../load-project";
+
+export const metadata: Metadata = { title: "Attachments" };
+
+function equipmentDescription(e: ProjectRecord["equipment"][number]): string {
+  const model = [e.manufacturer, e.model].filter(Boolean).join(" ");
+  const kind = e.kind.replace(/-/g, " ");
+  return model ? `${model} (${kind})` : kind;
+}
+
+/** The jurisdiction's required documents, item by item, with the same rules the submittal-completeness check applies. */
+function checklist(record: ProjectRecord): ChecklistItem[] {
+  const has = (kind: string, tag?: string) => record.attachments.some((a) => a.kind === kind && (tag === undefined || a.equipmentTag === tag));
+  const required = new Set(record.jurisdiction.requiredDocuments);
+  const items: ChecklistItem[] = [];
+  if (required.has("equipment-datasheets")) {
+    for (const e of record.equipment) {
+      if (DATASHEET_KINDS.includes(e.kind)) items.push({ label: `Datasheet ${e.tag}`, detail: equipmentDescription(e), attached: has("datasheet", e.tag) });
+    }
+  }
+  if (required.has("storage-listing") && record.equipment.some((e) => e.kind === "battery")) items.push({ label: "Storage listing", attached: has("storage-listing") });
+  if (required.has("site-plan")) items.push({ label: "Site plan", attached: has("site-plan") });
+  if (required.has("structural-letter") && record.site.mounting === "roof") items.push({ label: "Structural letter", detail: "roof mount", attached: has("structural-letter") });
+  return items;
+}
+
+export default async function ProjectAttachmentsPage({ params }: { params: Promise<{ id: string }> }) {
+  const { ctx, allowed } = await pageContext("project:read");
+  // The project layout shows the refusal.
+  if (!allowed) return null;
+  const { id } = await params;
+  const loaded = loadProject(ctx, id);
+  const attachments = listProjectAttachments(ctx, id);
+  const kinds = kindsForRoles(ctx.roles);
+
+  let items: ChecklistItem[] = [];
+  let summary = "";
+  let equipment: EquipmentOption[] = [];
+  let jurisdiction = "The jurisdiction";
+  if (loaded.ok) {
+    const record = loaded.stored.record;
+    jurisdiction = record.jurisdiction.name;
+    items = checklist(record);
+    const result = runChecks(record).results.find((r) => r.id === "submittal-completeness");
+    summary = result?.message ?? "";
+    equipment = record.equipment.map((e) => ({
+      tag: e.tag,
+      description: equipmentDescription(e),
+      hasDatasheet: record.attachments.some((a) => a.kind === "datasheet" && a.equipmentTag === e.tag),
+    }));
+  } else {
+    summary = `The design record could not be read, so the required documents cannot be listed: ${loaded.message}`;
+  }
+
+  return (
+    <div className="space-y-4">
+      <div className="grid items-start gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        {kinds.length > 0 ? (
+          <AttachmentUploader projectId={id} kinds={kinds} equipment={equipment} maxBytes={env().UPLOAD_MAX_BYTES} />
+        ) : (
+          <p className="sheet px-4 py-4 text-sm text-ink-soft">Your role reads the attachments; designers add them.</p>
+        )}
+        <SubmittalChecklist jurisdiction={jurisdiction} items={items} summary={summary} />
+      </div>
+      <section aria-labelledby="attachments-title" className="space-y-2">
+        <h2 id="attachments-title" className="text-sm font-semibold">
+          Attached files <span className="figure font-normal text-ink-soft">({attachments.length})</span>
+        </h2>
+        <AttachmentList attachments={attachments} canDelete={can(ctx.roles, "attachment:delete")} />
+        <p className="text-xs text-ink-soft">
+          Files are stored by their SHA-256, so the same file added twice is recognised. A file merged into a packet revision is kept with that
+          revision and cannot be deleted.
+        </p>
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,24 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { NewProjectForm } from "@/components/workspace/new-project-form";
+import { PageHeader, Refusal } from "@/components/ui/page-header";
+import { pageContext } from "@/lib/auth/page-context";
+import { listJurisdictions } from "@/lib/services/jurisdictions/list";
+
+export const metadata: Metadata = { title: "New project" };
+
+export default async function NewProjectPage() {
+  const { ctx, allowed } = await pageContext("project:create");
+  if (!allowed) return <Refusal message="Designers create projects." />;
+  const jurisdictions = listJurisdictions(ctx).map((j) => ({ id: j.id, name: j.name, necEdition: j.necEdition }));
+  return (
+    <>
+      <PageHeader title="New project" sheet="Start a design">
+        <Link href="/projects/new/import" className="btn-quiet">
+          Import project file
+        </Link>
+      </PageHeader>
+      <NewProjectForm jurisdictions={jurisdictions} />
+    </>
+  );
+}

@@ -1,0 +1,182 @@
+"use client";
+
+import { useState } from "react";
+import { CHECK_STATUSES, type CheckResult, type CheckStatus } from "@/lib/compliance";
+import { StatusBadge, statusWord } from "@/components/ui/status-badge";
+import { focusRecordPaths } from "./focus-path";
+import { useLive } from "./live-checks";
+
+function formatFigure(v: number | string | boolean): string {
+  if (typeof v === "number") return Number.isInteger(v) ? String(v) : v.toFixed(Math.abs(v) < 10 ? 2 : 1);
+  if (typeof v === "boolean") return v ? "yes" : "no";
+  return v;
+}
+
+function ResultItem({ result, open, onToggle }: { result: CheckResult; open: boolean; onToggle: () => void }) {
+  const used = [...result.missing, ...result.inputs.map((i) => i.path)];
+  return (
+    <li className="border-b border-grid last:border-b-0" data-check-id={result.id}>
+      <button
+        type="button"
+        aria-expanded={open}
+        className="flex w-full items-start gap-2 px-3 py-2 text-left hover:bg-slate-soft/50"
+        onClick={() => {
+          onToggle();
+          if (!open) focusRecordPaths(used);
+        }}
+      >
+        <span className="mt-0.5 shrink-0">
+          <StatusBadge status={result.status} />
+        </span>
+        <span className="min-w-0">
+          <span className="block text-sm font-medium leading-snug">
+            {result.title}
+            {result.subject && !result.title.includes(result.subject) ? <span className="figure ml-1 text-ink-soft">· {result.subject}</span> : null}
+          </span>
+          <span className="block text-xs leading-snug text-ink-soft">{result.message}</span>
+        </span>
+      </button>
+      {open ? (
+        <div className="space-y-2 px-3 pb-3 text-xs">
+          {result.reason ? <p className="text-ink-soft">{result.reason}</p> : null}
+          {result.values.length ? (
+            <table className="w-full" aria-label={`Values of ${result.title}`}>
+              <tbody>
+                {result.values.map((v) => (
+                  <tr key={v.key} className="border-b border-grid">
+                    <th scope="row" className="py-0.5 pr-2 text-left font-normal text-ink-soft">
+                      {v.label}
+                    </th>
+                    <td className="figure whitespace-nowrap py-0.5 text-right">
+                      {formatFigure(v.value)}
+                      {v.unit ? ` ${v.unit}` : ""}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          ) : null}
+          {result.formula ? (
+            <p>
+              <span className="field-label">Formula </span>
+              {result.formula}
+            </p>
+          ) : null}
+          {result.missing.length ? (
+            <div>
+              <p className="field-label">Missing</p>
+              <ul className="flex flex-wrap gap-1">
+                {result.missing.map((p) => (
+                  <li key={p}>
+                    <button type="button" className="figure underline decoration-query underline-offset-2" onClick={() => focusRecordPaths([p])}>
+                      {p}
+                    </button>
+                  </li>
+                ))}
+              </ul>
+            </div>
+          ) : null}
+          {result.inputs.length ? (
+            <div>
+              <p className="field-label">Inputs</p>
+              <ul>
+                {result.inputs.map((i) => (
+                  <li key={i.path} className="flex justify-between gap-2">
+                    <button type="button" className="text-left underline decoration-rule underline-offset-2 hover:decoration-ink" onClick={() => focusRecordPaths([i.path])}>
+                      {i.label}
+                    </button>
+                    <span className="figure whitespace-nowrap">
+                      {i.value === null ? "—" : formatFigure(i.value)}
+                      {i.unit && i.value !== null ? ` ${i.unit}` : ""}
+                    </span>
+                  </li>
+                ))}
+              </ul>
+            </div>
+          ) : null}
+          <p className="figure text-ink-soft">{result.codeRefs.join(" · ")}</p>
+        </div>
+      ) : null}
+    </li>
+  );
+}
+
+export function ChecksPanel() {
+  const live = useLive();
+  const [openId, setOpenId] = useState<string | null>(null);
+  const groups = new Map<CheckStatus, CheckResult[]>();
+  for (const r of live.run?.results ?? []) groups.set(r.status, [...(groups.get(r.status) ?? []), r]);
+  const stale = live.record === null && live.issues.length > 0;
+  return (
+    <section aria-labelledby="checks-heading" className="sheet flex max-h-[calc(100vh-6rem)] flex-col">
+      <header className="border-b-2 border-ink px-3 py-2">
+        <div className="flex items-baseline justify-between gap-2">
+          <h2 id="checks-heading" className="text-base font-semibold">
+            Checks
+          </h2>
+          <span className="figure text-xs text-ink-faint" aria-live="polite" data-testid="check-state">
+            {live.pending ? "checking…" : stale ? "not rerun" : "up to date"}
+          </span>
+        </div>
+        <p className="figure mt-0.5 text-xs text-ink-soft">
+          NEC {live.run?.edition ?? "—"}
+          {CHECK_STATUSES.filter((s) => live.run?.counts[s]).map((s) => (
+            <span key={s} className="ml-2">
+              {live.run?.counts[s]} {statusWord(s).toLowerCase()}
+            </span>
+          ))}
+        </p>
+        <p
+          className="figure text-[11px] text-ink-faint"
+          data-testid="engine-time"
+          data-engine-ms={live.engineMs ?? ""}
+          data-mean-engine-ms={live.meanEngineMs ?? ""}
+          data-runs={live.runs}
+        >
+          engine {live.engineMs === null ? "—" : `${live.engineMs.toFixed(2)} ms`} · parse {live.parseMs === null ? "—" : `${live.parseMs.toFixed(2)} ms`} · in this browser
+        </p>
+      </header>
+      <div className="min-h-0 flex-1 overflow-y-auto">
+        {live.issues.length ? (
+          <div role="status" className="border-b border-grid bg-signal-soft/50 px-3 py-2 text-xs">
+            <p className="font-semibold text-signal">
+              {live.issues.length} field {live.issues.length === 1 ? "error" : "errors"}
+              {stale ? " — the checks show the last record that could be read" : live.omitted.length ? ` — left out of the checks: ${live.omitted.join(", ")}` : ""}
+            </p>
+            <ul className="mt-1 space-y-0.5">
+              {live.issues.slice(0, 12).map((i, n) => (
+                <li key={`${i.path}-${n}`}>
+                  <button type="button" className="figure text-left underline decoration-signal underline-offset-2" onClick={() => focusRecordPaths([i.path])}>
+                    {i.path}
+                  </button>{" "}
+                  {i.message}
+                </li>
+              ))}
+            </ul>
+          </div>
+        ) : null}
+        {CHECK_STATUSES.map((status) => {
+          const results = groups.get(status);
+          if (!results?.length) return null;
+          return (
+            <section key={status} aria-label={`${statusWord(status)} (${results.length})`} data-status-group={status}>
+              <h3 className="sticky top-0 z-10 border-b border-rule bg-paper px-3 py-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">
+                {statusWord(status)} · {results.length}
+              </h3>
+              <ul>
+                {results.map((r) => (
+                  <ResultItem key={r.id} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
+                ))}
+              </ul>
+            </section>
+          );
+        })}
+        {live.run && live.run.results.length === 0 ? <p className="px-3 py-4 text-sm text-ink-soft">No checks apply yet.</p> : null}
+      </div>
+      <footer className="border-t border-rule px-3 py-2 text-[11px] leading-snug text-ink-soft">
+        The checks are an aid for the designer and the licensed reviewer. They approve nothing; the adopted code, the
+        manufacturer&apos;s instructions and the AHJ govern.
+      </footer>
+    </section>
+  );
+}
