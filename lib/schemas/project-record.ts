@@ -286,7 +286,7 @@ export const circuitSchema = z
      * the circuit's current when given.
      */
     designCurrentA: numberIn(0, 5000, "A").optional(),
-    /** Nominal voltage of an AC branch circuit (for voltage drop), where no inverter sets it. */
+    /** Nominal voltage of the circuit where no equipment at its ends sets it (e.g. an AC branch circuit), for voltage drop and device ratings. */
     nominalVoltageV: numberIn(12, 600, "V").optional(),
     material: z.enum(["cu", "al"], { error: "must be cu or al" }).default("cu"),
     size: conductorSizeSchema.optional(),

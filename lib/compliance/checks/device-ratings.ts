@@ -53,6 +53,7 @@ export const deviceRatings: CheckDefinition = {
         anyDc ||= dc;
         anyAc ||= !dc;
         if (cur.ok && cur.value.maxVoltageV !== undefined) maxV = Math.max(maxV, cur.value.maxVoltageV);
+        else if (cur.ok) t.need(`${c.path}.nominalVoltageV`, `Voltage of ${c.item.tag}`, undefined, "V");
         else t.merge(cur);
         if (dc && !["pv-source", "pv-output"].includes(c.item.kind) && bats.length) onBattery.push(c);
       }
@@ -71,8 +72,6 @@ export const deviceRatings: CheckDefinition = {
           statuses.push("fail");
           problems.push(`${tag} is rated ${rating} V, below the circuit's ${maxV.toFixed(1)} V`);
         }
-      } else if (maxV === 0 && rating !== undefined) {
-        statuses.push("needs-input");
       }
       const protectsBattery = (e.kind === "fuse" || e.kind === "breaker") && onBattery.length > 0;
       if (protectsBattery) {

@@ -75,7 +75,7 @@ export const standAloneSizing: CheckDefinition = {
         status,
         message:
           status === "pass"
-            ? `Daily need ${Math.round(s.dailyTotalWh)} Wh; storage carries ${autonomy.toFixed(1)} days (target ${days}); the array yields about ${Math.round(arrayWhPerDay)} Wh a day.`
+            ? `Daily need ${Math.round(s.dailyTotalWh)} Wh; storage carries ${Number.isFinite(autonomy) ? `${autonomy.toFixed(1)} days` : "the loads indefinitely (no daily energy recorded)"} (target ${days}); the array yields about ${Math.round(arrayWhPerDay)} Wh a day.`
             : `${notes.join("; ")}.`,
         ...(status === "pass" ? {} : { reason: notes.join("; ") }),
         values: [

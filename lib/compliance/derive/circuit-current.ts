@@ -8,6 +8,7 @@ import {
   circuitArrayTag,
   endpoint,
   isInverter,
+  isPvCircuit,
   kindIs,
   memo,
   Trace,
@@ -77,7 +78,16 @@ function fail(reason: string, t: Trace): Derived<CircuitCurrent> {
 }
 
 export function circuitCurrent(ctx: CheckContext, c: Indexed<Circuit>): Derived<CircuitCurrent> {
-  return memo(ctx, `circuit-current:${c.item.tag}`, () => computeCircuitCurrent(ctx, c));
+  return memo(ctx, `circuit-current:${c.item.tag}`, () => {
+    const d = computeCircuitCurrent(ctx, c);
+    // Where no equipment sets the voltage, the circuit's own nominal voltage does.
+    const nominal = c.item.nominalVoltageV;
+    if (d.ok && nominal !== undefined && !isPvCircuit(c.item)) {
+      if (d.value.operatingVoltageV === undefined) d.value.operatingVoltageV = nominal;
+      if (d.value.maxVoltageV === undefined) d.value.maxVoltageV = nominal;
+    }
+    return d;
+  });
 }
 
 function computeCircuitCurrent(ctx: CheckContext, ci: Indexed<Circuit>): Derived<CircuitCurrent> {
