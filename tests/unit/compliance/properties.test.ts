@@ -106,7 +106,7 @@ const recordArb = fc
     const equipmentList: Json[] = [
       strip({ tag: "MOD-1", kind: "pv-module", ...m, vmpRatio: undefined, impRatio: undefined, vmpV: m.vocV !== undefined ? m.vocV * m.vmpRatio : undefined, impA: m.iscA !== undefined ? m.iscA * m.impRatio : undefined }),
       strip({ tag: "CC-1", kind: "charge-controller", ...g.controller }),
-      strip({ tag: "INV-1", kind: g.inverter.kind, ...g.inverter, inputs: undefined, mpptInputs: inputs }),
+      strip({ tag: "INV-1", ...g.inverter, inputs: undefined, mpptInputs: inputs }),
       strip({ tag: "BAT-1", kind: "battery", ...g.battery }),
       { tag: "GEN-1", kind: "generator", ratedKW: 5, voltageV: 240 },
       { tag: "P-1", kind: "ac-panel", busRatingA: 200, mainBreakerA: 200, voltage: "120/240" },
