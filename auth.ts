@@ -23,6 +23,14 @@ const credentialsSchema = z.object({
 
 export const { handlers, auth, signIn, signOut } = NextAuth({
   ...authConfig,
+  logger: {
+    // A wrong password or a forged token is an expected refusal, answered to the user; not a server error.
+    error(error) {
+      const name = (error as { type?: string }).type ?? error.name;
+      if (name === "CredentialsSignin" || name === "JWTSessionError") return;
+      console.error(error);
+    },
+  },
   providers: [
     Credentials({
       credentials: { email: { label: "E-mail" }, password: { label: "Password", type: "password" } },

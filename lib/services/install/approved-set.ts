@@ -1,0 +1,105 @@
+import { and, eq } from "drizzle-orm";
+import { packetRevisions, projects, reviews, siteConfirmations } from "../../../db/schema";
+import { requiredLabels, type LabelRequirement } from "../../compliance/labels";
+import { projectRecordSchema, type ProjectRecord } from "../../schemas/project-record";
+import { audit, requirePermission, type ServiceContext } from "../context";
+import { invalid, notFound } from "../errors";
+
+export interface ApprovedSet {
+  revisionId: string;
+  revisionNumber: number;
+  projectId: string;
+  projectName: string;
+  address: string;
+  record: ProjectRecord;
+  labels: LabelRequirement[];
+  approvedBy: string | null;
+  licenceNumber: string | null;
+  approvedAt: string | null;
+  hasPdf: boolean;
+  /** label id → confirmation; equipment tag → confirmation. */
+  confirmations: { itemKind: "label" | "equipment" | "clearance"; itemId: string; confirmedAt: string; note: string }[];
+}
+
+/**
+ * An approved revision as the installer works from it: the snapshot that was
+ * stamped (not the live design), its labels computed from that snapshot, and
+ * what has been confirmed on site. Anything not approved is "not found" here.
+ */
+export function getApprovedSet(ctx: ServiceContext, revisionId: string): ApprovedSet {
+  requirePermission(ctx, "install:read", "open approved sets");
+  const row = ctx.db
+    .select({ revision: packetRevisions, project: projects })
+    .from(packetRevisions)
+    .innerJoin(projects, and(eq(projects.id, packetRevisions.projectId), eq(projects.orgId, ctx.orgId)))
+    .where(and(eq(packetRevisions.id, revisionId), eq(packetRevisions.orgId, ctx.orgId), eq(packetRevisions.reviewState, "approved")))
+    .get();
+  if (!row) throw notFound("Approved set");
+  const record = projectRecordSchema.parse(row.revision.recordSnapshot);
+  const review = ctx.db
+    .select()
+    .from(reviews)
+    .where(and(eq(reviews.revisionId, revisionId), eq(reviews.orgId, ctx.orgId), eq(reviews.decision, "approved")))
+    .get();
+  const confirmations = ctx.db
+    .select()
+    .from(siteConfirmations)
+    .where(and(eq(siteConfirmations.revisionId, revisionId), eq(siteConfirmations.orgId, ctx.orgId)))
+    .all()
+    .map((c) => ({ itemKind: c.itemKind, itemId: c.itemId, confirmedAt: c.createdAt, note: c.note }));
+  return {
+    revisionId,
+    revisionNumber: row.revision.number,
+    projectId: row.project.id,
+    projectName: row.project.name,
+    address: row.project.address,
+    record,
+    labels: requiredLabels(record),
+    approvedBy: review?.licenceSnapshot?.reviewerName ?? null,
+    licenceNumber: review?.licenceSnapshot?.licenceNumber ?? null,
+    approvedAt: review?.createdAt ?? null,
+    hasPdf: !!row.revision.pdfPath,
+    confirmations,
+  };
+}
+
+/** Marks a label as placed (or an item as matching its nameplate) on site; idempotent per item. */
+export function confirmOnSite(
+  ctx: ServiceContext,
+  input: { revisionId: string; itemKind: "label" | "equipment" | "clearance"; itemId: string; note?: string },
+): void {
+  requirePermission(ctx, "install:confirm", "confirm installed items");
+  const set = getApprovedSet(ctx, input.revisionId);
+  const known =
+    input.itemKind === "label"
+      ? set.labels.some((l) => l.id === input.itemId)
+      : input.itemKind === "equipment"
+        ? set.record.equipment.some((e) => e.tag === input.itemId)
+        : input.itemId.length > 0;
+  if (!known) throw invalid(`${input.itemId} is not part of the approved set.`, [{ path: "itemId", message: "not in the approved set" }]);
+  ctx.db.transaction((tx) => {
+    tx.insert(siteConfirmations)
+      .values({ orgId: ctx.orgId, revisionId: input.revisionId, itemKind: input.itemKind, itemId: input.itemId, confirmedBy: ctx.user.id, note: input.note ?? "" })
+      .onConflictDoNothing()
+      .run();
+    audit(tx, ctx, "site.confirmed", "revision", input.revisionId, { itemKind: input.itemKind, itemId: input.itemId });
+  });
+}
+
+export function unconfirmOnSite(ctx: ServiceContext, input: { revisionId: string; itemKind: "label" | "equipment" | "clearance"; itemId: string }): void {
+  requirePermission(ctx, "install:confirm", "confirm installed items");
+  getApprovedSet(ctx, input.revisionId);
+  ctx.db.transaction((tx) => {
+    tx.delete(siteConfirmations)
+      .where(
+        and(
+          eq(siteConfirmations.revisionId, input.revisionId),
+          eq(siteConfirmations.orgId, ctx.orgId),
+          eq(siteConfirmations.itemKind, input.itemKind),
+          eq(siteConfirmations.itemId, input.itemId),
+        ),
+      )
+      .run();
+    audit(tx, ctx, "site.unconfirmed", "revision", input.revisionId, { itemKind: input.itemKind, itemId: input.itemId });
+  });
+}
