@@ -3,20 +3,9 @@ import { packetRevisions, users, type PacketRevision } from "../../../db/schema"
 import { can } from "../../auth/permissions";
 import type { ServiceContext } from "../context";
 import { notFound } from "../errors";
+import { PROGRESS_STEPS, type ProgressStep } from "./steps";
 
-/** Generation steps in order; `progressStep` holds one of these. */
-export const PROGRESS_STEPS = ["queued", "snapshot", "checks", "sheets", "datasheets", "docx", "done"] as const;
-export type ProgressStep = (typeof PROGRESS_STEPS)[number];
-
-export const PROGRESS_STEP_LABELS: Record<ProgressStep, string> = {
-  queued: "Waiting to start",
-  snapshot: "Reading the record snapshot",
-  checks: "Reading the check results and labels",
-  sheets: "Laying out the sheets",
-  datasheets: "Merging the datasheets into the PDF",
-  docx: "Writing the DOCX",
-  done: "Done",
-};
+export { PROGRESS_STEPS, PROGRESS_STEP_LABELS, type ProgressStep } from "./steps";
 
 export interface RevisionView {
   id: string;
