@@ -4,7 +4,6 @@ import { AttachmentUploader, type EquipmentOption } from "@/components/attachmen
 import { SubmittalChecklist, type ChecklistItem } from "@/components/attachments/submittal-checklist";
 import { pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
-import { runChecks } from "@/lib/compliance";
 import { DATASHEET_KINDS } from "@/lib/compliance/checks/submittal-completeness";
 import { env } from "@/lib/env";
 import type { ProjectRecord } from "@/lib/schemas/project-record";
@@ -27,7 +26,7 @@ function checklist(record: ProjectRecord): ChecklistItem[] {
   const items: ChecklistItem[] = [];
   if (required.has("equipment-datasheets")) {
     for (const e of record.equipment) {
-      if (DATASHEET_KINDS.includes(e.kind)) items.push({ label: `Datasheet ${e.tag}`, detail: equipmentDescription(e), attached: has("datasheet", e.tag) });
+      if (DATASHEET_KINDS.includes(e.kind)) items.push({ label: "Datasheet", tag: e.tag, detail: equipmentDescription(e), attached: has("datasheet", e.tag) });
     }
   }
   if (required.has("storage-listing") && record.equipment.some((e) => e.kind === "battery")) items.push({ label: "Storage listing", attached: has("storage-listing") });
@@ -46,22 +45,20 @@ export default async function ProjectAttachmentsPage({ params }: { params: Promi
   const kinds = kindsForRoles(ctx.roles);
 
   let items: ChecklistItem[] = [];
-  let summary = "";
+  let note: string | undefined;
   let equipment: EquipmentOption[] = [];
   let jurisdiction = "The jurisdiction";
   if (loaded.ok) {
     const record = loaded.stored.record;
     jurisdiction = record.jurisdiction.name;
     items = checklist(record);
-    const result = runChecks(record).results.find((r) => r.id === "submittal-completeness");
-    summary = result?.message ?? "";
     equipment = record.equipment.map((e) => ({
       tag: e.tag,
       description: equipmentDescription(e),
       hasDatasheet: record.attachments.some((a) => a.kind === "datasheet" && a.equipmentTag === e.tag),
     }));
   } else {
-    summary = `The design record could not be read, so the required documents cannot be listed: ${loaded.message}`;
+    note = `The design record could not be read, so the required documents cannot be listed: ${loaded.message}`;
   }
 
   return (
@@ -72,7 +69,7 @@ export default async function ProjectAttachmentsPage({ params }: { params: Promi
         ) : (
           <p className="sheet px-4 py-4 text-sm text-ink-soft">Your role reads the attachments; designers add them.</p>
         )}
-        <SubmittalChecklist jurisdiction={jurisdiction} items={items} summary={summary} />
+        <SubmittalChecklist jurisdiction={jurisdiction} items={items} note={note} />
       </div>
       <section aria-labelledby="attachments-title" className="space-y-2">
         <h2 id="attachments-title" className="text-sm font-semibold">
