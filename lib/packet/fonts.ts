@@ -11,8 +11,10 @@ const FILES = {
   bold: "DejaVuSans-Bold.ttf",
   condensed: "DejaVuSansCondensed.ttf",
   condensedBold: "DejaVuSansCondensed-Bold.ttf",
-  mono: "DejaVuSansMono.ttf",
 } as const;
+
+/** Shipped for sheets that set code or hashes in a fixed pitch; embedded only by a writer that asks for it. */
+export const MONO_FONT_FILE = "DejaVuSansMono.ttf";
 
 export type FontRole = keyof typeof FILES;
 export type PdfFonts = Record<FontRole, PDFFont>;
@@ -35,11 +37,18 @@ function fontBytes(file: string, dir: string): Uint8Array {
  * sheets carry plain left-to-right Latin text, so glyphs are resolved once per
  * character and reused: the same glyphs and ToUnicode entries, no ligatures.
  */
-function cachePerCharacter(font: PDFFont): PDFFont {
+/** Advances per font file, shared by every document (they do not depend on the subset). */
+const advancesByFile = new Map<string, Map<string, number>>();
+
+function cachePerCharacter(font: PDFFont, file: string): PDFFont {
   const encodeOne = font.encodeText.bind(font);
   const measureOne = font.widthOfTextAtSize.bind(font);
   const hex = new Map<string, string>();
-  const advance = new Map<string, number>();
+  let advance = advancesByFile.get(file);
+  if (!advance) {
+    advance = new Map<string, number>();
+    advancesByFile.set(file, advance);
+  }
   font.encodeText = (text: string) => {
     let out = "";
     for (const ch of text) {
@@ -55,10 +64,10 @@ function cachePerCharacter(font: PDFFont): PDFFont {
   font.widthOfTextAtSize = (text: string, size: number) => {
     let units = 0;
     for (const ch of text) {
-      let w = advance.get(ch);
+      let w = advance!.get(ch);
       if (w === undefined) {
         w = measureOne(ch, 1000);
-        advance.set(ch, w);
+        advance!.set(ch, w);
       }
       units += w;
     }
@@ -72,7 +81,7 @@ export async function embedPacketFonts(doc: PDFDocument, dir = PDF_FONT_DIR): Pr
   doc.registerFontkit(fontkit);
   const entries = await Promise.all(
     (Object.keys(FILES) as FontRole[]).map(
-      async (role) => [role, cachePerCharacter(await doc.embedFont(fontBytes(FILES[role], dir), { subset: true }))] as const,
+      async (role) => [role, cachePerCharacter(await doc.embedFont(fontBytes(FILES[role], dir), { subset: true }), `${dir}/${FILES[role]}`)] as const,
     ),
   );
   return Object.fromEntries(entries) as PdfFonts;

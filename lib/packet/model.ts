@@ -224,7 +224,7 @@ function scopeLines(record: ProjectRecord): string[] {
     const n = a.modulesInSeries * a.stringsInParallel;
     const kw = m?.kind === "pv-module" && m.pmaxW ? ` (${formatNumber((n * m.pmaxW) / 1000)} kW DC)` : "";
     lines.push(
-      `PV array ${a.tag}: ${n} × ${describe(m) || a.moduleTag}, ${a.modulesInSeries} in series × ${a.stringsInParallel} strings${kw}, feeding ${a.feedsTag}${a.mpptInputId ? ` input ${a.mpptInputId}` : ""}.`,
+      `PV array ${a.tag}: ${n} × ${describe(m) || a.moduleTag}, ${a.modulesInSeries} in series × ${a.stringsInParallel} string${a.stringsInParallel === 1 ? "" : "s"}${kw}, feeding ${a.feedsTag}${a.mpptInputId ? ` input ${a.mpptInputId}` : ""}.`,
     );
   }
   for (const e of record.equipment) {

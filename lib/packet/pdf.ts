@@ -1,4 +1,5 @@
-import { PDFDocument, rgb, type Color, type PDFEmbeddedPage, type PDFFont, type PDFImage, type PDFPage, degrees } from "pdf-lib";
+import { deflateSync } from "node:zlib";
+import { PDFArray, PDFContentStream, PDFDocument, PDFName, PDFRawStream, PDFRef, rgb, type Color, type PDFEmbeddedPage, type PDFFont, type PDFImage, type PDFPage } from "pdf-lib";
 import type { CheckResult, CheckStatus } from "../compliance/types";
 import { drawLabel } from "../labels/draw";
 import { labelArtwork } from "../labels/artwork";
@@ -242,7 +243,7 @@ function sitePlanItem(ctx: Ctx, w: number, h: number, caption: string): Item {
 function labelRowItem(ctx: Ctx, labels: PacketInput["labels"], w: number): Item {
   const { fonts } = ctx;
   const cellW = (w - GUTTER) / 2;
-  const artW = Math.min(288, cellW * 0.62);
+  const artW = Math.min(288, cellW * 0.66);
   const textW = cellW - artW - 10;
   const cells = labels.map((l) => {
     const art = labelArtwork(l);
@@ -259,7 +260,7 @@ function labelRowItem(ctx: Ctx, labels: PacketInput["labels"], w: number): Item 
     push(fonts.condensed, l.location);
     if (l.equipmentTag) push(fonts.condensed, `Equipment: ${l.equipmentTag}`);
     push(fonts.condensed, `Print ${art.widthIn} × ${(layout.heightPt / 72).toFixed(2)} in; letters ≥ ${art.minLetterHeightIn.signalWord} in / ${art.minLetterHeightIn.text} in`, MUTED);
-    if (scale < 1) push(fonts.condensed, `Shown at ${Math.round(scale * 100)} %`, MUTED);
+    push(fonts.condensed, scale < 1 ? `Shown at ${Math.round(scale * 100)} %` : "Shown full size", MUTED);
     return { label: l, artH, text };
   });
   const h = Math.max(...cells.map((c) => Math.max(c.artH, c.text.length * SMALL_LH))) + 14;
@@ -607,9 +608,25 @@ function drawBand(ctx: Ctx, page: PDFPage) {
   }
 }
 
-function drawDatasheetMargin(ctx: Ctx, info: PageInfo, pageNo: number, total: number) {
+interface MarginStreams {
+  save: PDFRef;
+  restore: PDFRef;
+  fontNames: Map<PDFFont, PDFName>;
+}
+
+const num = (n: number) => (Math.abs(n) < 1e-9 ? "0" : n.toFixed(3).replace(/\.?0+$/, ""));
+
+/**
+ * Stamps a datasheet page's bottom margin with the review marking (or the
+ * approval) and the page's place in the packet. The page's own content is
+ * wrapped in q … Q so a transform it leaves behind cannot move the stamp, and
+ * the stamp is written as a small uncompressed stream: a packet can carry
+ * hundreds of datasheet pages, and pdf-lib would otherwise start a compressor
+ * for each one.
+ */
+function drawDatasheetMargin(ctx: Ctx, info: PageInfo, pageNo: number, total: number, streams: MarginStreams) {
   const { page } = info;
-  const { fonts, model } = ctx;
+  const { fonts, model, doc } = ctx;
   const box = page.getCropBox();
   const rotation = ((page.getRotation().angle % 360) + 360) % 360;
   const across = rotation === 90 || rotation === 270 ? box.height : box.width;
@@ -626,25 +643,62 @@ function drawDatasheetMargin(ctx: Ctx, info: PageInfo, pageNo: number, total: nu
   });
   const lh = size * 1.3;
   const bandH = lines.length * lh + 4;
-  // Draw in the page's own upright frame so the band reads along the bottom however the page is rotated.
-  const place = (dx: number, dy: number) => {
+  // The page's upright frame: origin at the visual bottom-left, x along the visual bottom edge.
+  const frame = (() => {
     switch (rotation) {
       case 90:
-        return { x: box.x + box.width - dy, y: box.y + dx, rotate: degrees(90) };
+        return [0, 1, -1, 0, box.x + box.width, box.y];
       case 180:
-        return { x: box.x + box.width - dx, y: box.y + box.height - dy, rotate: degrees(180) };
+        return [-1, 0, 0, -1, box.x + box.width, box.y + box.height];
       case 270:
-        return { x: box.x + dy, y: box.y + box.height - dx, rotate: degrees(270) };
+        return [0, -1, 1, 0, box.x, box.y + box.height];
       default:
-        return { x: box.x + dx, y: box.y + dy, rotate: degrees(0) };
+        return [1, 0, 0, 1, box.x, box.y];
     }
+  })();
+  const key = (font: PDFFont) => {
+    const name = streams.fontNames.get(font)!;
+    // Fixed resource names are cheaper than pdf-lib's unique keys over hundreds of pages; fall back on a clash.
+    const fontDict = page.node.normalizedEntries().Font;
+    const existing = fontDict.get(name);
+    if (existing === undefined) fontDict.set(name, font.ref);
+    else if (existing !== font.ref) return page.node.newFontDictionary(font.name, font.ref).asString();
+    return name.asString();
   };
-  const r = place(0, 0);
-  page.drawRectangle({ x: r.x, y: r.y, width: across, height: bandH, rotate: r.rotate, color: WHITE, opacity: 0.92 });
+  const ops: string[] = ["q", `${frame.map(num).join(" ")} cm`, "1 1 1 rg", `0 0 ${num(across)} ${num(bandH)} re f`, "0.08 0.08 0.1 rg", "BT"];
   lines.forEach((l, i) => {
-    const p = place(6, bandH - (i + 1) * lh + 1);
-    page.drawText(fitText(l.font, size, l.text, across - 12), { ...p, size, font: l.font, color: INK });
+    const text = fitText(l.font, size, l.text, across - 12);
+    ops.push(`${key(l.font)} ${num(size)} Tf`, `1 0 0 1 6 ${num(bandH - (i + 1) * lh + 1)} Tm`, `${l.font.encodeText(text).toString()} Tj`);
   });
+  ops.push("ET", "Q");
+  page.node.wrapContentStreams(streams.save, streams.restore);
+  page.node.addContentStream(doc.context.register(doc.context.stream(ops.join("\n"))));
+}
+
+/**
+ * Compression with the platform's zlib instead of pdf-lib's JavaScript
+ * deflate: the same FlateDecode streams, several times faster, which is most
+ * of what a packet costs beyond merging its datasheets.
+ */
+function useNativeDeflate(doc: PDFDocument) {
+  const context = doc.context;
+  context.flateStream = (contents, dict = {}) =>
+    context.stream(deflateSync(typeof contents === "string" ? Buffer.from(contents, "latin1") : contents), { ...dict, Filter: "FlateDecode" });
+}
+
+function compressSheetContent(doc: PDFDocument, pages: PDFPage[]) {
+  const context = doc.context;
+  for (const page of pages) {
+    const contents = page.node.Contents();
+    const refs = contents instanceof PDFArray ? contents.asArray() : [];
+    for (const ref of refs) {
+      if (!(ref instanceof PDFRef)) continue;
+      const stream = context.lookup(ref);
+      if (!(stream instanceof PDFContentStream)) continue;
+      const compressed = PDFRawStream.of(context.obj({ Filter: PDFName.of("FlateDecode") }), deflateSync(stream.getUnencodedContents()));
+      context.assign(ref, compressed);
+    }
+  }
 }
 
 async function embedSitePlan(doc: PDFDocument, input: PacketInput): Promise<Ctx["sitePlan"]> {
@@ -683,6 +737,7 @@ async function renderOnce(
   coverGuess: number,
 ): Promise<{ stable: boolean; pdf: PacketPdf; coverPages: number }> {
   const doc = await PDFDocument.create();
+  useNativeDeflate(doc);
   const fonts = await embedPacketFonts(doc);
   const sitePlan = await embedSitePlan(doc, input);
   const stamp = input.approval?.stampImage
@@ -740,8 +795,16 @@ async function renderOnce(
   }
 
   const total = infos.length;
+  const streams: MarginStreams = {
+    save: doc.context.register(doc.context.stream("q\n")),
+    restore: doc.context.register(doc.context.stream("\nQ\n")),
+    fontNames: new Map([
+      [fonts.bold, PDFName.of("SundocketMarginBold")],
+      [fonts.condensed, PDFName.of("SundocketMarginText")],
+    ]),
+  };
   infos.forEach((info, i) => {
-    if (info.datasheet) drawDatasheetMargin(ctx, info, i + 1, total);
+    if (info.datasheet) drawDatasheetMargin(ctx, info, i + 1, total, streams);
     else {
       drawZones(info.page, fonts);
       drawTitleBlock(ctx, info, i + 1, total, stamp);
@@ -749,6 +812,7 @@ async function renderOnce(
     }
   });
 
+  compressSheetContent(doc, infos.filter((i) => !i.datasheet).map((i) => i.page));
   const t = model.titleBlock;
   doc.setTitle(`${t.project} — permit packet, revision ${t.revision}`);
   doc.setSubject(model.marking.approved ? "Approved permit packet" : "Permit packet prepared for review");

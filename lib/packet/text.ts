@@ -1,29 +1,8 @@
 import type { PDFFont } from "pdf-lib";
 
-/**
- * Text measuring from cached glyph advances. pdf-lib measures a custom font by
- * shaping the whole string through fontkit on every call, which dominated
- * packet generation; advances summed per character give the same width for
- * the plain Latin text on the sheets.
- */
-const advances = new WeakMap<PDFFont, Map<string, number>>();
-
+/** Width of a line; the packet fonts measure from cached glyph advances (see fonts.ts). */
 export function textWidth(font: PDFFont, text: string, size: number): number {
-  let table = advances.get(font);
-  if (!table) {
-    table = new Map();
-    advances.set(font, table);
-  }
-  let units = 0;
-  for (const ch of text) {
-    let w = table.get(ch);
-    if (w === undefined) {
-      w = font.widthOfTextAtSize(ch, 1000);
-      table.set(ch, w);
-    }
-    units += w;
-  }
-  return (units * size) / 1000;
+  return font.widthOfTextAtSize(text, size);
 }
 
 /** Greedy word wrap; words longer than the width break by character. */

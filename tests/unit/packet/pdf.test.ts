@@ -5,7 +5,7 @@ import { formatNumber } from "@/lib/packet/format";
 import { AHJ_FOOTER, REVIEW_MARKING, SHEET_PLAN } from "@/lib/packet/model";
 import { renderPacketPdf } from "@/lib/packet/pdf";
 import type { PacketInput, PacketPdf } from "@/lib/packet/types";
-import { PDFDocument, StandardFonts } from "pdf-lib";
+import { PDFDocument, StandardFonts, degrees } from "pdf-lib";
 import {
   MAX_PV_VOLTAGE_V,
   PV_OUTPUT_ALLOWED_A,
@@ -224,3 +224,33 @@ describe("permit packet PDF from the engine's own results", () => {
 });
 
 void fixtureRecord;
+
+describe("datasheet pages as they come", () => {
+  it("stamps rotated pages and pages that leave a transform behind, with the band at the same size", async () => {
+    const src = await PDFDocument.create();
+    const font = await src.embedFont(StandardFonts.Helvetica);
+    for (const angle of [0, 90, 180, 270]) {
+      const page = src.addPage([612, 792]);
+      page.setRotation(degrees(angle));
+      page.drawText(`rotated ${angle}`, { x: 100, y: 400, size: 20, font });
+    }
+    const last = src.addPage([612, 792]);
+    last.drawText("left scaled", { x: 100, y: 400, size: 20, font });
+    // A content stream ending with an unbalanced transform, as some generators write.
+    last.node.addContentStream(src.context.register(src.context.stream("2 0 0 2 300 300 cm\n")));
+    const pdf = await renderPacketPdf(fixtureInput({ datasheets: [{ title: "Odd pages", bytes: await src.save() }] }));
+    const text = await readPdfText(pdf.bytes);
+    const first = pdf.sheetPages.find((s) => s.sheet === "D-001")!.firstPage;
+    const sizes: number[] = [];
+    for (let p = first; p < first + 5; p += 1) {
+      expect(text.pages[p - 1]).toContain(REVIEW_MARKING);
+      sizes.push(text.items[p - 1]!.find((i) => i.str === REVIEW_MARKING)!.size);
+    }
+    // The band's lettering follows the page width (612 pt upright → 6.95 pt, 792 pt across → 7 pt); a leaked 2× transform would double it.
+    expect(sizes[0]).toBeCloseTo(612 / 88, 2);
+    expect(sizes[2]).toBeCloseTo(612 / 88, 2);
+    expect(sizes[4]).toBeCloseTo(612 / 88, 2);
+    expect(sizes[1]).toBeCloseTo(7, 2);
+    expect(sizes[3]).toBeCloseTo(7, 2);
+  });
+});
