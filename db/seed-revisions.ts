@@ -1,8 +1,9 @@
+import fs from "node:fs";
 import { and, eq } from "drizzle-orm";
 import { canonicalJson, sha256Hex } from "../lib/canonical-json";
-import { runChecks } from "../lib/compliance";
 import { contextForUser } from "../lib/services/context";
-import { getProjectRecord } from "../lib/services/projects/get-record";
+import { generateRevisionArtifacts } from "../lib/services/revisions/generate";
+import { buildPreflight } from "../lib/services/revisions/preflight";
 import type { Db } from "./client";
 import { DEMO_LICENCE, DEMO_PROJECT_FILES } from "./demo-scenario";
 import {
@@ -15,9 +16,17 @@ import {
   users,
 } from "./schema";
 
+/** Renders a seeded revision's PDF and DOCX in this process; a failure is reported and left on the row. */
+async function renderSeeded(db: Db, revisionId: string, projectName: string): Promise<void> {
+  const row = await generateRevisionArtifacts(db, revisionId);
+  if (row.state !== "ready") console.error(`Demo packet for ${projectName}, revision ${row.number}: ${row.error ?? row.state}`);
+}
+
 /**
  * Leaves the demo projects in the states of DEMO_PROJECT_FILES: a revision in
- * review, an approved and submitted one, and one still in design.
+ * review, an approved and submitted one, and one still in design. Each
+ * seeded revision gets its real PDF and DOCX; rows seeded before they had
+ * files get them on the next run.
  */
 export async function seedDemoRevisions(db: Db, orgId: string): Promise<void> {
   const designer = db.select().from(users).where(eq(users.email, "designer@quillfeather.test")).get()!;
@@ -27,14 +36,15 @@ export async function seedDemoRevisions(db: Db, orgId: string): Promise<void> {
   const all = db.select().from(projects).where(eq(projects.orgId, orgId)).all();
   for (const demo of DEMO_PROJECT_FILES) {
     if (demo.status === "design") continue;
-    const name = (await import("node:fs")).readFileSync(demo.file, "utf8");
-    const projectName = (JSON.parse(name) as { name: string }).name;
+    const projectName = (JSON.parse(fs.readFileSync(demo.file, "utf8")) as { name: string }).name;
     const project = all.find((p) => p.name === projectName);
     if (!project) continue;
-    const hasRevision = db.select({ id: packetRevisions.id }).from(packetRevisions).where(eq(packetRevisions.projectId, project.id)).get();
-    if (hasRevision) continue;
-    const stored = getProjectRecord(ctx, project.id);
-    const run = runChecks(stored.record);
+    const existing = db.select().from(packetRevisions).where(eq(packetRevisions.projectId, project.id)).all();
+    if (existing.length) {
+      for (const r of existing) if (r.state === "ready" && (!r.pdfPath || !r.docxPath)) await renderSeeded(db, r.id, projectName);
+      continue;
+    }
+    const { stored, run, documents, preflight } = buildPreflight(ctx, project.id);
     const recordSha256 = sha256Hex(canonicalJson(stored.record));
     const approved = demo.status === "approved";
     const revision = db
@@ -43,13 +53,14 @@ export async function seedDemoRevisions(db: Db, orgId: string): Promise<void> {
         orgId,
         projectId: project.id,
         number: 1,
-        state: "ready",
-        progressStep: "done",
+        state: "generating",
+        progressStep: "queued",
         reviewState: approved ? "approved" : "in-review",
         recordSnapshot: stored.record as unknown as Record<string, unknown>,
         resultsSnapshot: run,
         recordSha256,
-        isDraft: run.counts.fail > 0,
+        attachmentIds: documents.attachmentIds,
+        isDraft: preflight.isDraft,
         createdBy: designer.id,
       })
       .returning()
@@ -101,5 +112,7 @@ export async function seedDemoRevisions(db: Db, orgId: string): Promise<void> {
       ];
       for (const e of events) db.insert(submissionEvents).values({ ...e, orgId, submissionId: submission.id, userId: office.id }).run();
     }
+    // Rendered after the review is recorded, so the approved set carries the reviewer's name and licence.
+    await renderSeeded(db, revision.id, projectName);
   }
 }

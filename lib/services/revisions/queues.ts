@@ -30,7 +30,8 @@ function revisionRows(ctx: ServiceContext, states: ("draft" | "in-review" | "ret
     .from(packetRevisions)
     .innerJoin(projects, and(eq(projects.id, packetRevisions.projectId), eq(projects.orgId, ctx.orgId)))
     .leftJoin(jurisdictions, eq(jurisdictions.id, projects.jurisdictionId))
-    .where(and(eq(packetRevisions.orgId, ctx.orgId), inArray(packetRevisions.reviewState, states)))
+    // Only finished packets are reviewed or installed from; a failed or unfinished generation is never listed.
+    .where(and(eq(packetRevisions.orgId, ctx.orgId), eq(packetRevisions.state, "ready"), inArray(packetRevisions.reviewState, states)))
     .orderBy(desc(packetRevisions.createdAt))
     .all();
 }

@@ -5,9 +5,9 @@ export type ProgressStep = (typeof PROGRESS_STEPS)[number];
 export const PROGRESS_STEP_LABELS: Record<ProgressStep, string> = {
   queued: "Waiting to start",
   snapshot: "Record snapshot",
-  checks: "Check results and labels",
-  sheets: "Sheets laid out",
-  datasheets: "PDF with datasheets merged",
+  checks: "Checks and labels",
+  sheets: "Sheets",
+  datasheets: "PDF with datasheets",
   docx: "DOCX",
   done: "Done",
 };
