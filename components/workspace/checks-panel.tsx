@@ -81,11 +81,11 @@ function ResultItem({ result, open, onToggle }: { result: CheckResult; open: boo
               <p className="field-label">Inputs</p>
               <ul>
                 {result.inputs.map((i) => (
-                  <li key={i.path} className="flex justify-between gap-2">
+                  <li key={i.path} className="flex justify-between gap-2 [overflow-wrap:anywhere]">
                     <button type="button" className="text-left underline decoration-rule underline-offset-2 hover:decoration-ink" onClick={() => focusRecordPaths([i.path])}>
                       {i.label}
                     </button>
-                    <span className="figure whitespace-nowrap">
+                    <span className="figure text-right">
                       {i.value === null ? "—" : formatFigure(i.value)}
                       {i.unit && i.value !== null ? ` ${i.unit}` : ""}
                     </span>

@@ -19,7 +19,7 @@ import {
   type ColumnDef,
   type SortingState,
 } from "@tanstack/react-table";
-import { useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
+import { Fragment, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
 import { useFieldArray, useFormContext } from "react-hook-form";
 import { FieldControl, type FieldType, type Option } from "./field-control";
 
@@ -166,6 +166,16 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
             <tr>
               {headers.map((h) => {
                 const sorted = h.column.getIsSorted();
+                if (h.column.id === KEY_COLUMN) {
+                  return (
+                    <Fragment key={h.id}>
+                      <th scope="col">#</th>
+                      <th scope="col">
+                        <span className="sr-only">Row actions</span>
+                      </th>
+                    </Fragment>
+                  );
+                }
                 return (
                   <th key={h.id} scope="col" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}>
                     {h.column.getCanSort() ? (
@@ -181,9 +191,6 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
                   </th>
                 );
               })}
-              <th scope="col">
-                <span className="sr-only">Row actions</span>
-              </th>
             </tr>
           </thead>
           <tbody>
@@ -201,9 +208,36 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
                   {row.getVisibleCells().map((cell) => {
                     if (cell.column.id === KEY_COLUMN) {
                       return (
-                        <th key={cell.id} scope="row" className="w-8 border-b border-grid px-2 text-left font-normal">
-                          {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                        </th>
+                        <Fragment key={cell.id}>
+                          <th scope="row" className="w-8 border-b border-grid px-2 text-left font-normal">
+                            {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                          </th>
+                          <td className="whitespace-nowrap px-1 py-1">
+                            <div className="flex gap-1">
+                              {rowActions?.(index)}
+                              <button
+                                type="button"
+                                className="btn-quiet px-2 py-0.5 text-xs"
+                                aria-label={`Duplicate ${noun} row ${index + 1}`}
+                                onClick={() => {
+                                  const rowsNow = all();
+                                  const source = (getValues(`${name}.${index}`) ?? {}) as Record<string, unknown>;
+                                  insert(index + 1, duplicateRow ? duplicateRow(structuredClone(source), rowsNow) : structuredClone(source));
+                                }}
+                              >
+                                Copy
+                              </button>
+                              <button
+                                type="button"
+                                className="btn-quiet px-2 py-0.5 text-xs"
+                                aria-label={`Delete ${noun} row ${index + 1}`}
+                                onClick={() => remove(index)}
+                              >
+                                Delete
+                              </button>
+                            </div>
+                          </td>
+                        </Fragment>
                       );
                     }
                     const colIndex = columns.findIndex((c) => c.key === cell.column.id);
@@ -234,31 +268,6 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
                       </td>
                     );
                   })}
-                  <td className="whitespace-nowrap px-1 py-1">
-                    <div className="flex gap-1">
-                      {rowActions?.(index)}
-                      <button
-                        type="button"
-                        className="btn-quiet px-2 py-0.5 text-xs"
-                        aria-label={`Duplicate ${noun} row ${index + 1}`}
-                        onClick={() => {
-                          const rowsNow = all();
-                          const source = (getValues(`${name}.${index}`) ?? {}) as Record<string, unknown>;
-                          insert(index + 1, duplicateRow ? duplicateRow(structuredClone(source), rowsNow) : structuredClone(source));
-                        }}
-                      >
-                        Duplicate
-                      </button>
-                      <button
-                        type="button"
-                        className="btn-quiet px-2 py-0.5 text-xs"
-                        aria-label={`Delete ${noun} row ${index + 1}`}
-                        onClick={() => remove(index)}
-                      >
-                        Delete
-                      </button>
-                    </div>
-                  </td>
                 </tr>
               );
             })}
