@@ -116,14 +116,17 @@ export function kindIs<K extends Equipment["kind"]>(...kinds: K[]) {
   return (e: Equipment): e is EquipmentOf<K> => (kinds as Equipment["kind"][]).includes(e.kind);
 }
 
+/** Equipment of the given kinds in record order; cached per run, so callers inside per-circuit loops stay linear. */
 export function equipmentOfKind<K extends Equipment["kind"]>(ctx: CheckContext, ...kinds: K[]): Indexed<EquipmentOf<K>>[] {
-  const out: Indexed<EquipmentOf<K>>[] = [];
-  ctx.record.equipment.forEach((item, index) => {
-    if ((kinds as Equipment["kind"][]).includes(item.kind)) {
-      out.push({ item: item as EquipmentOf<K>, index, path: `equipment.${index}` });
-    }
+  return memo(ctx, `kinds:${kinds.join(",")}`, () => {
+    const out: Indexed<EquipmentOf<K>>[] = [];
+    ctx.record.equipment.forEach((item, index) => {
+      if ((kinds as Equipment["kind"][]).includes(item.kind)) {
+        out.push({ item: item as EquipmentOf<K>, index, path: `equipment.${index}` });
+      }
+    });
+    return out;
   });
-  return out;
 }
 
 /**
@@ -133,11 +136,10 @@ export function equipmentOfKind<K extends Equipment["kind"]>(ctx: CheckContext, 
 export class Trace {
   inputs: CheckInput[] = [];
   missing: string[] = [];
-  private seen = new Set<string>();
 
   /** Reads a value the computation cannot do without; records it as missing when absent. */
   need<T extends number | string | boolean>(path: string, label: string, value: T | undefined | null, unit = ""): T | undefined {
-    this.add(path, label, value ?? null, unit);
+    this.add({ path, label, value: value ?? null, unit });
     if (value === undefined || value === null || (typeof value === "number" && !Number.isFinite(value))) {
       if (!this.missing.includes(path)) this.missing.push(path);
       return undefined;
@@ -147,20 +149,21 @@ export class Trace {
 
   /** Records a value read but not required (it may be absent). */
   read<T extends number | string | boolean>(path: string, label: string, value: T | undefined | null, unit = ""): T | undefined {
-    this.add(path, label, value ?? null, unit);
+    this.add({ path, label, value: value ?? null, unit });
     return value ?? undefined;
   }
 
+  /** Takes over another computation's inputs (shared, not copied: results are read-only) and missing fields. */
   merge(other: { inputs: CheckInput[]; missing: string[] }): this {
-    for (const i of other.inputs) this.add(i.path, i.label, i.value, i.unit);
+    for (const i of other.inputs) this.add(i);
     for (const m of other.missing) if (!this.missing.includes(m)) this.missing.push(m);
     return this;
   }
 
-  private add(path: string, label: string, value: CheckInput["value"], unit: string): void {
-    if (this.seen.has(path)) return;
-    this.seen.add(path);
-    this.inputs.push({ path, label, value, unit });
+  // A check reads a handful of fields: a scan is cheaper than a Set per trace.
+  private add(input: CheckInput): void {
+    for (const i of this.inputs) if (i.path === input.path) return;
+    this.inputs.push(input);
   }
 }
 

@@ -34,6 +34,17 @@ export function localRef(edition: NecEdition, topic: LocalTopic): string {
   return `NEC ${edition} ${SAME_IN_ALL_EDITIONS[topic]}`;
 }
 
+const cache = new Map<string, string>();
+
+/** Code references for several topics in one edition (cached: the same strings recur on every circuit). */
 export function refs(edition: NecEdition, ...topics: CodeTopic[]): string[] {
-  return topics.map((t) => codeRef(edition, t));
+  return topics.map((t) => {
+    const key = edition + t;
+    let ref = cache.get(key);
+    if (ref === undefined) {
+      ref = codeRef(edition, t);
+      cache.set(key, ref);
+    }
+    return ref;
+  });
 }

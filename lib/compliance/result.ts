@@ -19,8 +19,14 @@ export interface ResultParts {
   codeRefs: string[];
 }
 
+function unique(list: string[]): string[] {
+  const out: string[] = [];
+  for (const x of list) if (!out.includes(x)) out.push(x);
+  return out;
+}
+
 export function makeResult(def: Pick<CheckDefinition, "id" | "title">, parts: ResultParts): CheckResult {
-  const codeRefs = [...new Set(parts.codeRefs)];
+  const codeRefs = unique(parts.codeRefs);
   return {
     id: parts.subject !== undefined ? `${def.id}:${parts.subject}` : def.id,
     checkId: def.id,
@@ -32,7 +38,7 @@ export function makeResult(def: Pick<CheckDefinition, "id" | "title">, parts: Re
     values: parts.values ?? [],
     formula: parts.formula ?? "",
     inputs: parts.inputs ?? [],
-    missing: [...new Set(parts.missing ?? [])],
+    missing: parts.missing ? unique(parts.missing) : [],
     codeRefs,
   };
 }
@@ -42,7 +48,7 @@ export function needsInput(
   def: Pick<CheckDefinition, "id" | "title">,
   parts: Omit<ResultParts, "status" | "message"> & { message?: string; missing: string[] },
 ): CheckResult {
-  const list = [...new Set(parts.missing)];
+  const list = unique(parts.missing);
   return makeResult(def, {
     ...parts,
     status: "needs-input",
