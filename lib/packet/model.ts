@@ -276,7 +276,10 @@ function draftReasons(input: PacketInput, missingDocs: string[]): string[] {
   if (counts["needs-input"] > 0) reasons.push(`${counts["needs-input"]} check${counts["needs-input"] === 1 ? " needs" : "s need"} input`);
   const labelGaps = results.filter((r) => r.checkId.includes("label") && (r.status === "fail" || r.status === "needs-input"));
   for (const r of labelGaps) reasons.push(`required label missing or incomplete: ${r.subject ?? r.title}`);
-  for (const l of input.labels) if (l.lines.length === 0) reasons.push(`required label ${l.id} has no wording`);
+  for (const l of input.labels) {
+    if (l.lines.length === 0) reasons.push(`required label ${l.id} has no wording`);
+    else if (l.missing?.length) reasons.push(`label ${l.id} incomplete: ${l.missing.join(", ")} missing`);
+  }
   reasons.push(...missingDocs);
   return reasons;
 }
