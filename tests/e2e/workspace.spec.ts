@@ -22,6 +22,9 @@ async function openEditor(page: Page, url: string) {
   await expect(page.getByTestId("check-state")).toHaveText("up to date");
 }
 
+// Wide enough for the checks panel to stand beside the editor, as designers work.
+test.use({ viewport: { width: 1600, height: 1000 } });
+
 const checksGroup = (page: Page, status: string) => page.locator(`[data-status-group="${status}"]`);
 
 test("a new designer enters a stand-alone system with a generator and sees the maximum-voltage check follow the string length", async ({ page, browser }) => {
@@ -75,6 +78,17 @@ test("a new designer enters a stand-alone system with a generator and sees the m
   await page.getByRole("button", { name: "Ratings of equipment row 2" }).click();
   await page.getByLabel("Type", { exact: true }).selectOption("mppt");
   await page.getByLabel("Max PV input voltage (V)").fill("150");
+
+  // Keyboard: ↓ moves to the same column of the next row, Escape puts back what the cell held.
+  await page.getByLabel("Tag, equipment row 1").focus();
+  await page.keyboard.press("ArrowDown");
+  await expect(page.getByLabel("Tag, equipment row 2")).toBeFocused();
+  const maker = page.getByLabel("Manufacturer, equipment row 2");
+  await maker.focus();
+  await page.keyboard.type("Korvne");
+  await page.keyboard.press("Escape");
+  await expect(maker).toHaveValue("");
+  await maker.fill("Korvane");
 
   // Three in series on the controller: the maximum-voltage check fails with the computed value.
   await page.getByRole("button", { name: "+ Add array" }).click();
@@ -143,4 +157,32 @@ test("a new designer enters a stand-alone system with a generator and sees the m
   const body = (await stored.json()) as { record: { client: string; arrays: { modulesInSeries: number }[] } };
   expect(body.record.client).toBe("Larchmere Outdoor Club (north hut)");
   expect(body.record.arrays[0]?.modulesInSeries).toBe(2);
+
+  // The project file downloads as an attachment and imports back as a new project with the same design.
+  const download = page.waitForEvent("download");
+  await page.getByRole("link", { name: "Export project file" }).click();
+  const file = await download;
+  expect(file.suggestedFilename()).toMatch(/^larchmere-ridge-cabin-.*\.sundocket\.json$/);
+  const filePath = path.join(ARTIFACTS, "workspace-export.json");
+  await file.saveAs(filePath);
+  const exported = JSON.parse(fs.readFileSync(filePath, "utf8")) as { name: string; arrays: unknown[]; equipment: unknown[] };
+  expect(exported.name).toBe(name);
+
+  await page.goto("/projects");
+  await page.getByRole("link", { name: "Import project file" }).click();
+  await page.getByLabel("Project file (.json)").setInputFiles({
+    name: "broken.json",
+    mimeType: "application/json",
+    buffer: Buffer.from(JSON.stringify({ ...exported, site: { occupancy: "other-building", mounting: "ground", designLowTempC: -90 } })),
+  });
+  const refused = page.getByRole("table", { name: "Refused fields" });
+  await expect(refused.getByText("site.designLowTempC")).toBeVisible();
+  await expect(refused.getByText("must be between -60 and 70 °C")).toBeVisible();
+  await page.getByLabel("Project file (.json)").setInputFiles(filePath);
+  await page.getByRole("button", { name: "Import as new project" }).click();
+  await expect(page).toHaveURL(/\/projects\/[^/]+$/);
+  expect(page.url()).not.toBe(editorUrl);
+  await openEditor(page, page.url());
+  await expect(page.getByLabel("Modules in series, array row 1")).toHaveValue("2");
+  await expect(checksGroup(page, "pass").getByText(/PV-1: 108\.5 V at -20 °C, within/)).toBeVisible();
 });
