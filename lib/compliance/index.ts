@@ -8,7 +8,7 @@
 import { formatIssues } from "../schemas/fields";
 import { projectRecordSchema, type NecEdition, type ProjectRecord } from "../schemas/project-record";
 import { buildContext } from "./context";
-import { CHECKS, SCOPE_TOPIC } from "./registry";
+import { CHECK_FORMULAS, CHECKS, SCOPE_TOPIC } from "./registry";
 import { makeResult } from "./result";
 import { codeRef } from "./tables";
 import { CHECK_STATUSES, type CheckResult, type CheckRun, type CheckRunOptions, type CheckStatus } from "./types";
@@ -37,7 +37,10 @@ export function runChecks(record: ProjectRecord, options: CheckRunOptions = {}):
         }),
       );
     }
-    for (const r of results) tagged.push({ r, order, seq: seq++ });
+    for (const r of results) {
+      if (r.formula === "") r.formula = CHECK_FORMULAS[check.id] ?? "";
+      tagged.push({ r, order, seq: seq++ });
+    }
   });
   tagged.sort((a, b) => SEVERITY[a.r.status] - SEVERITY[b.r.status] || a.order - b.order || a.seq - b.seq);
   const counts = Object.fromEntries(CHECK_STATUSES.map((s) => [s, 0])) as Record<CheckStatus, number>;

@@ -67,6 +67,26 @@ export const overcurrentProtection: CheckDefinition = {
           const allowed = amp.ok ? amp.value.allowedA : undefined;
           const values = [v("faultFromOtherStringsA", "Fault current from the other strings", faultFromOthersA, "A")];
           if (fuse !== undefined) values.push(v("maxSeriesFuseA", "Module maximum series fuse", fuse, "A"));
+          // Strings paralleled into this output circuit need their own fuses where the others can back-feed a fault beyond the series fuse rating.
+          if (c.kind === "pv-output" && strings > 2 && isc.ok && fuse !== undefined && faultFromOthersA > fuse) {
+            const sources = (ctx.circuitsByArray.get(arrayTag) ?? []).filter((x) => x.item.kind === "pv-source");
+            const unfused = sources.length === 0 || sources.some((x) => x.item.ocpdTag === undefined);
+            if (unfused) {
+              out.push(
+                makeResult(this, {
+                  subject: c.tag,
+                  status: "fail",
+                  message: `${c.tag}: ${strings} strings of ${arrayTag} are paralleled and can feed ${faultFromOthersA.toFixed(1)} A into a faulted string, above the module's ${fuse} A series fuse rating; fuse each string${sources.length === 0 ? " (record the PV source circuits with their fuses)" : ""}.`,
+                  reason: "string fuses required on the source circuits",
+                  values,
+                  formula: `1.25 × Isc × (${strings} − 1) = ${faultFromOthersA.toFixed(1)} A vs ${fuse} A`,
+                  inputs: t.inputs,
+                  codeRefs: [...codeRefs, ...refs(ed, "string-fuse")],
+                }),
+              );
+              continue;
+            }
+          }
           if (c.kind === "pv-output" || strings <= 1) {
             out.push(
               makeResult(this, {

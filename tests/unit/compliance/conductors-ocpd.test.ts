@@ -197,3 +197,16 @@ describe("voltage drop (a recommendation: warns, never fails)", () => {
     expect(run(k).results.filter((x) => x.checkId === "voltage-drop").some((x) => x.status === "fail")).toBe(false);
   });
 });
+
+describe("string fuses on a PV output circuit", () => {
+  it("fails three or more paralleled strings without source-circuit fuses", () => {
+    const j = exampleJson("tamarack-hut");
+    array(j, "PV-1").stringsInParallel = 3;
+    equipment(j, "CC-1").maxPvInputCurrentA = 40;
+    // The whole array on one output circuit, no source circuits recorded: 690.9(A), 1.25 × 10.45 × 2 = 26.1 A > 20 A
+    circuit(j, "C-1").kind = "pv-output";
+    const r = result(run(j), "overcurrent-protection:C-1");
+    expect(r.status).toBe("fail");
+    expect(r.message).toMatch(/fuse each string/);
+  });
+});

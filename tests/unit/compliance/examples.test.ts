@@ -149,3 +149,11 @@ describe("result contract", () => {
     expect(JSON.stringify(run(exampleJson("ferncliff-farmhouse")))).toBe(JSON.stringify(run(exampleJson("ferncliff-farmhouse"))));
   });
 });
+
+describe("every result explains itself", () => {
+  it("carries a formula in words", () => {
+    for (const name of ["market-stall", "tamarack-hut", "ferncliff-farmhouse"] as const) {
+      for (const r of run(exampleJson(name)).results) expect(r.formula.length, r.id).toBeGreaterThan(0);
+    }
+  });
+});
