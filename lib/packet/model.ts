@@ -217,7 +217,7 @@ function systemFigures(record: ProjectRecord) {
 function scopeLines(record: ProjectRecord): string[] {
   const eq = equipmentByTag(record);
   const lines: string[] = [
-    `${SYSTEM_KIND_LABEL[record.systemKind]} for a ${OCCUPANCY_LABEL[record.site.occupancy].toLowerCase()}, ${record.site.mounting}-mounted array.`,
+    `${SYSTEM_KIND_LABEL[record.systemKind]} for ${record.site.occupancy === "one-two-family-dwelling" ? "a one- and two-family dwelling" : "a building other than a one- and two-family dwelling"}, ${record.site.mounting}-mounted array.`,
   ];
   for (const a of record.arrays) {
     const m = eq.get(a.moduleTag);

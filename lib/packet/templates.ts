@@ -75,6 +75,8 @@ const HELPERS: Record<string, Handlebars.HelperDelegate> = {
   and: (...args: unknown[]) => args.slice(0, -1).every(Boolean),
   or: (...args: unknown[]) => args.slice(0, -1).some(Boolean),
   upper: (s: unknown) => String(s ?? "").toUpperCase(),
+  /** `{{plural system.batteryUnits "unit" "units"}}` → "1 unit", "4 units". */
+  plural: (n: unknown, one: unknown, many: unknown) => `${String(n)} ${Number(n) === 1 ? String(one) : String(many)}`,
   join: (list: unknown, sep: unknown) =>
     Array.isArray(list) ? list.join(typeof sep === "string" ? sep : ", ") : "",
 };
