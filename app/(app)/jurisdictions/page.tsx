@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { EmptyState, PageHeader, Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
 import { listJurisdictions } from "@/lib/services/jurisdictions/list";
@@ -32,7 +33,11 @@ export default async function JurisdictionsPage() {
             <tbody>
               {rows.map((j) => (
                 <tr key={j.id}>
-                  <td className="font-medium">{j.name}</td>
+                  <td className="font-medium">
+                    <Link href={`/jurisdictions/${j.id}`} className="underline decoration-rule underline-offset-2 hover:decoration-ink">
+                      {j.name}
+                    </Link>
+                  </td>
                   <td>{j.region}</td>
                   <td className="figure">{j.necEdition}</td>
                   <td className="figure">{j.residentialCode === "none" ? "—" : j.residentialCode}</td>

@@ -1,0 +1,104 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { TemplateEditor } from "@/components/jurisdictions/template-editor";
+import { PageHeader, Refusal } from "@/components/ui/page-header";
+import { pageContext } from "@/lib/auth/page-context";
+import { can } from "@/lib/auth/permissions";
+import { ServiceError } from "@/lib/services/errors";
+import { getJurisdiction } from "@/lib/services/jurisdictions/get";
+import { listSheetTemplates } from "@/lib/services/jurisdictions/templates";
+
+export const metadata: Metadata = { title: "Jurisdiction" };
+
+const DOCUMENT_LABELS: Record<string, string> = {
+  "equipment-datasheets": "Equipment datasheets",
+  "storage-listing": "Storage listing",
+  "site-plan": "Site plan",
+  "structural-letter": "Structural letter",
+};
+
+function Field({ label, children }: { label: string; children: React.ReactNode }) {
+  return (
+    <div className="border-b border-grid py-1.5">
+      <dt className="field-label">{label}</dt>
+      <dd className="text-sm">{children}</dd>
+    </div>
+  );
+}
+
+export default async function JurisdictionPage({ params }: { params: Promise<{ id: string }> }) {
+  const { ctx, allowed } = await pageContext("jurisdiction:read");
+  if (!allowed) return <Refusal message="Jurisdiction records are kept by the permit office." />;
+  const { id } = await params;
+  let j;
+  try {
+    j = getJurisdiction(ctx, id);
+  } catch (error) {
+    if (error instanceof ServiceError && error.code === "not-found") {
+      return (
+        <div role="alert" className="sheet border-l-4 border-l-signal px-4 py-4 text-sm">
+          <p className="font-semibold">{error.message}</p>
+          <Link href="/jurisdictions" className="mt-2 inline-block underline decoration-rule underline-offset-2">
+            Back to the jurisdictions
+          </Link>
+        </div>
+      );
+    }
+    throw error;
+  }
+  const templates = listSheetTemplates(ctx, id);
+  const contact = j.contact ?? {};
+  const labelRules = j.labelRules ?? {};
+  return (
+    <>
+      <PageHeader title={j.name} sheet={`Jurisdiction · ${j.region || "region not recorded"}`}>
+        <Link href="/jurisdictions" className="btn-quiet">
+          All jurisdictions
+        </Link>
+      </PageHeader>
+      <div className="grid gap-4 lg:grid-cols-[20rem_1fr]">
+        <section aria-label="Jurisdiction record" className="sheet px-4 py-3">
+          <h2 className="mb-1 text-sm font-semibold">Record</h2>
+          <dl>
+            <Field label="NEC edition">
+              <span className="figure">{j.necEdition}</span>
+            </Field>
+            <Field label="Residential code">{j.residentialCode === "none" ? "—" : j.residentialCode}</Field>
+            <Field label="Voltage-drop limit">
+              <span className="figure">{j.voltageDropLimitPct != null ? `${j.voltageDropLimitPct} %` : "3 % (default)"}</span>
+            </Field>
+            <Field label="Storage limit per location">
+              <span className="figure">{j.storageAggregateLimitKWh != null ? `${j.storageAggregateLimitKWh} kWh` : "per the code table"}</span>
+            </Field>
+            <Field label="Required documents">
+              {j.requiredDocuments.length ? j.requiredDocuments.map((d) => DOCUMENT_LABELS[d] ?? d).join(", ") : "none recorded"}
+            </Field>
+            <Field label="Label rules">
+              {[labelRules.material, labelRules.reflective ? "reflective" : null, labelRules.minLetterHeightIn ? `letters ≥ ${labelRules.minLetterHeightIn} in` : null, labelRules.colours]
+                .filter(Boolean)
+                .join("; ") || "—"}
+            </Field>
+            <Field label="Submission">{j.submissionMethod}</Field>
+            <Field label="Contact">
+              {[contact.name, contact.email, contact.phone, contact.portalUrl, contact.address].filter(Boolean).join(" · ") || "—"}
+            </Field>
+            <Field label="Typical review">
+              <span className="figure">{j.typicalReviewDays != null ? `${j.typicalReviewDays} days` : "—"}</span>
+            </Field>
+            <Field label="Fees">{j.feeNotes || "—"}</Field>
+            <Field label="Local amendments">{j.amendments || "—"}</Field>
+            <Field label="Template overrides">
+              {templates.filter((t) => t.overridden).map((t) => t.name).join(", ") || "none: the shipped templates apply"}
+            </Field>
+          </dl>
+        </section>
+        <TemplateEditor
+          jurisdictionId={j.id}
+          version={j.version}
+          canEdit={can(ctx.roles, "jurisdiction:edit")}
+          templates={templates}
+        />
+      </div>
+    </>
+  );
+}
