@@ -413,7 +413,6 @@ function findValue(results: CheckResult[], checkId: string, keys: string[]): str
 
 function sitePlanBlocks(input: PacketInput): Block[] {
   const { record } = input;
-  const eq = equipmentByTag(record);
   const rows: Cell[][] = record.equipment.map((e) => {
     let where = "As shown on the plan";
     if (e.kind === "battery") {
@@ -428,7 +427,6 @@ function sitePlanBlocks(input: PacketInput): Block[] {
   for (const a of record.arrays) {
     rows.push([a.tag, "PV array", `${a.modulesInSeries} × ${a.stringsInParallel} of ${a.moduleTag}`, String(a.modulesInSeries * a.stringsInParallel), `${record.site.mounting === "roof" ? "Roof" : "Ground"} mount, feeds ${a.feedsTag}`]);
   }
-  void eq;
   return [
     { kind: "figure", figure: "site-plan", caption: input.sitePlan ? `Site plan: ${input.sitePlan.fileName}` : "Site plan not attached" },
     table([["Tag", 1], ["Equipment", 2], ["Make and model", 3], ["Qty", 0.6, "right"], ["Location", 5]], rows, "Equipment and battery locations"),

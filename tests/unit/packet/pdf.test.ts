@@ -223,7 +223,25 @@ describe("permit packet PDF from the engine's own results", () => {
   });
 });
 
-void fixtureRecord;
+describe("schedules longer than a sheet", () => {
+  it("continue on further pages of the same sheet with the column headings repeated", async () => {
+    const base = fixtureRecord.circuits[3]!;
+    const circuits = Array.from({ length: 90 }, (_, i) => ({ ...base, tag: `B${i + 1}`, kind: "ac-branch" as const, loadCurrentA: 10 }));
+    const pdf = await renderPacketPdf(fixtureInput({ record: { ...fixtureRecord, circuits: [...fixtureRecord.circuits, ...circuits] } }));
+    const text = await readPdfText(pdf.bytes);
+    const sheet = pdf.sheetPages.find((s) => s.sheet === "E-004")!;
+    expect(sheet.pageCount).toBeGreaterThan(1);
+    const pages = text.pages.slice(sheet.firstPage - 1, sheet.firstPage - 1 + sheet.pageCount);
+    pages.forEach((p, i) => {
+      expect(p, `E-004 page ${i + 1}`).toContain("Circuit From → to Kind Conductor");
+      expect(p).toContain(`page ${i + 1} of ${sheet.pageCount} of this sheet`);
+    });
+    const all = pages.join(" ");
+    for (const c of circuits) expect(all).toContain(` ${c.tag} INV-1 → LC-1 `);
+    const cover = text.pages[0]!;
+    expect(cover).toContain(`E-004 Conductor and overcurrent schedule ${sheet.firstPage}–${sheet.firstPage + sheet.pageCount - 1}`);
+  });
+});
 
 describe("datasheet pages as they come", () => {
   it("stamps rotated pages and pages that leave a transform behind, with the band at the same size", async () => {
