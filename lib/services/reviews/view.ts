@@ -1,0 +1,124 @@
+import { eq } from "drizzle-orm";
+import { jurisdictions } from "../../../db/schema";
+import { can } from "../../auth/permissions";
+import { canonicalJson, sha256Hex } from "../../canonical-json";
+import { CHECK_STATUSES, type CheckResult, type CheckRun, type CheckStatus } from "../../compliance/types";
+import { requirePermission, type ServiceContext } from "../context";
+import { ServiceError } from "../errors";
+import { getProjectRecord } from "../projects/get-record";
+import { listRevisionReviews, type ReviewEntry } from "./history";
+import { toLicenceView, type LicenceView } from "./licence";
+import { findRevisionForReview, PACKET_SHEETS, snapshotIntact, snapshotRun } from "./shared";
+
+export type ReviewCheck = Pick<CheckResult, "id" | "checkId" | "title" | "status" | "message" | "values" | "formula" | "codeRefs"> & {
+  subject: string | null;
+  reason: string | null;
+};
+
+export interface ReviewWorkspace {
+  revision: {
+    id: string;
+    number: number;
+    state: "generating" | "ready" | "failed";
+    progressStep: string;
+    error: string | null;
+    reviewState: "draft" | "in-review" | "returned" | "approved";
+    isDraft: boolean;
+    pageCount: number | null;
+    recordSha256: string;
+    pdfSha256: string | null;
+    createdAt: string;
+    createdByName: string | null;
+    /** Inline PDF for the reader's frame, and the download of the same file. */
+    pdfViewUrl: string | null;
+    pdfDownloadUrl: string | null;
+  };
+  project: { id: string; name: string; client: string; address: string; jurisdictionName: string | null; status: string };
+  edition: CheckRun["edition"] | null;
+  counts: CheckRun["counts"] | null;
+  /** Check results of the snapshot, grouped by status, worst first; empty groups left out. */
+  groups: { status: CheckStatus; results: ReviewCheck[] }[];
+  sheets: readonly { code: string; title: string }[];
+  /** False when the frozen record no longer hashes to recordSha256; such a revision cannot be approved. */
+  snapshotIntact: boolean;
+  /** True when the project's record today differs from the snapshot; null when it cannot be read. */
+  recordChangedSince: boolean | null;
+  history: ReviewEntry[];
+  /** The actor's own licence when they review; null otherwise or before they have recorded one. */
+  licence: LicenceView | null;
+  mayDecide: boolean;
+  maySend: boolean;
+}
+
+/** Everything the review page shows, read from the revision's snapshots rather than the live design. */
+export function getReviewWorkspace(ctx: ServiceContext, revisionId: string, options: { now?: Date } = {}): ReviewWorkspace {
+  requirePermission(ctx, "review:read", "read reviews");
+  const { row, project, createdByName } = findRevisionForReview(ctx, revisionId);
+  const run = snapshotRun(row);
+  const groups = CHECK_STATUSES.map((status) => ({
+    status,
+    results: (run?.results ?? [])
+      .filter((r) => r.status === status)
+      .map((r) => ({
+        id: r.id,
+        checkId: r.checkId,
+        title: r.title,
+        subject: r.subject ?? null,
+        status: r.status,
+        message: r.message,
+        reason: r.reason ?? null,
+        values: r.values,
+        formula: r.formula,
+        codeRefs: r.codeRefs,
+      })),
+  })).filter((g) => g.results.length > 0);
+
+  let recordChangedSince: boolean | null = null;
+  try {
+    recordChangedSince = sha256Hex(canonicalJson(getProjectRecord(ctx, project.id).record)) !== row.recordSha256;
+  } catch (error) {
+    // A stored project that no longer validates cannot be compared; the page says so rather than guessing.
+    if (!(error instanceof ServiceError)) throw error;
+  }
+  const jurisdiction = project.jurisdictionId
+    ? ctx.db.select({ name: jurisdictions.name }).from(jurisdictions).where(eq(jurisdictions.id, project.jurisdictionId)).get()
+    : undefined;
+  const hasPdf = row.state === "ready" && Boolean(row.pdfPath);
+  const reviewer = can(ctx.roles, "review:decide");
+  return {
+    revision: {
+      id: row.id,
+      number: row.number,
+      state: row.state,
+      progressStep: row.progressStep,
+      error: row.error,
+      reviewState: row.reviewState,
+      isDraft: row.isDraft,
+      pageCount: row.pageCount,
+      recordSha256: row.recordSha256,
+      pdfSha256: row.pdfSha256,
+      createdAt: row.createdAt,
+      createdByName,
+      pdfViewUrl: hasPdf ? `/api/reviews/${row.id}/pdf` : null,
+      pdfDownloadUrl: hasPdf ? `/api/revisions/${row.id}/pdf` : null,
+    },
+    project: {
+      id: project.id,
+      name: project.name,
+      client: project.client,
+      address: project.address,
+      jurisdictionName: jurisdiction?.name ?? null,
+      status: project.status,
+    },
+    edition: run?.edition ?? null,
+    counts: run?.counts ?? null,
+    groups,
+    sheets: PACKET_SHEETS,
+    snapshotIntact: snapshotIntact(row),
+    recordChangedSince,
+    history: listRevisionReviews(ctx, row.id),
+    licence: reviewer && can(ctx.roles, "licence:edit-own") ? toLicenceView(ctx, options.now) : null,
+    mayDecide: reviewer && row.state === "ready" && row.reviewState === "in-review",
+    maySend: can(ctx.roles, "review:send") && row.state === "ready" && (row.reviewState === "draft" || row.reviewState === "returned"),
+  };
+}
