@@ -14,6 +14,8 @@ import type { CheckResult, CheckStatus } from "../types";
 export const DEFAULT_MODULE_TEMP_RISE_C = 30;
 /** Headroom a buck MPPT controller needs above the battery's charge voltage, V (common practice). */
 export const CONTROLLER_HEADROOM_V = 5;
+/** A PWM controller connects the array straight to the battery: Vmp need only clear the charge voltage by the switch's drop, V (common practice). */
+export const PWM_HEADROOM_V = 1;
 
 export const mpptWindow: CheckDefinition = {
   id: "mppt-window",
@@ -54,7 +56,9 @@ export const mpptWindow: CheckDefinition = {
       const hotVmp = vmp * n * (1 + (coeff / 100) * (cellC - 25));
       const floors: { label: string; v: number }[] = [];
       if (minV !== undefined) floors.push({ label: `${input.label} lowest tracking voltage`, v: minV });
-      if (chargeV !== undefined) floors.push({ label: `battery charge voltage ${chargeV.toFixed(1)} V + ${CONTROLLER_HEADROOM_V} V headroom`, v: chargeV + CONTROLLER_HEADROOM_V });
+      const fed = parts.feeds?.item;
+      const headroom = fed?.kind === "charge-controller" && fed.controllerType === "pwm" ? PWM_HEADROOM_V : CONTROLLER_HEADROOM_V;
+      if (chargeV !== undefined) floors.push({ label: `battery charge voltage ${chargeV.toFixed(1)} V + ${headroom} V headroom`, v: chargeV + headroom });
       const values = [
         v("cellTempC", "Cell temperature (high ambient + rise)", cellC, "°C"),
         v("hotVmpV", "String Vmp at the hot cell temperature", hotVmp, "V"),

@@ -210,3 +210,31 @@ describe("string fuses on a PV output circuit", () => {
     expect(r.message).toMatch(/fuse each string/);
   });
 });
+
+describe("handbook-style worked examples (from memory)", () => {
+  it("derates 8 AWG THWN-2 for six conductors at 40 °C: 55 A × 0.80 × 0.91 = 40.04 A", () => {
+    // From memory, after the NEC Handbook commentary on 310.15: Table 310.16 8 AWG Cu 90 °C = 55 A;
+    // Table 310.15(B)(1) 36–40 °C, 90 °C = 0.91; Table 310.15(C)(1) 4–6 conductors = 0.80.
+    const j = exampleJson("market-stall");
+    j.equipment.push({ tag: "P-9", kind: "ac-panel", busRatingA: 100, voltage: "120/240" }, { tag: "CB-9", kind: "breaker", ratingA: 40, voltageRatingV: 240, currentType: "ac" });
+    j.circuits.push({ tag: "BR-1", fromTag: "P-9", toTag: "CB-9", kind: "ac-branch", loadCurrentA: 30, nominalVoltageV: 240, size: "8", insulation: "THWN-2", insulationTempRatingC: 90, terminalTempRatingC: 75, currentCarryingConductors: 6, ambientTempC: 40, lengthFt: 50, ocpdTag: "CB-9", egcSize: "10" });
+    const r = result(run(j), "conductor-ampacity:BR-1");
+    expect(value(r, "correctedA")).toBeCloseTo(40.04, 2);
+    // 1.25 × 30 A = 37.5 A ≤ 50 A (75 °C column) and 30 A ≤ 40.04 A: passes
+    expect(r.status).toBe("pass");
+  });
+
+  it("corrects a 12-module string by Table 690.7(A) at −20 °C: 40 V × 12 × 1.18 = 566.4 V", () => {
+    // From memory, after the NEC Handbook commentary on 690.7(A): Table 690.7(A), −16 to −20 °C → 1.18
+    const j = exampleJson("ferncliff-farmhouse");
+    const m = equipment(j, "MOD-1");
+    m.vocV = 40;
+    delete m.tempCoeffVocPctPerC;
+    j.site.designLowTempC = -20;
+    array(j, "PV-1").modulesInSeries = 12;
+    for (const inp of equipment(j, "INV-1").mpptInputs) inp.maxVoltageV = 600;
+    const r = result(run(j), "max-pv-voltage:PV-1");
+    expect(value(r, "maxVoltageV")).toBeCloseTo(566.4, 1);
+    expect(r.status).toBe("pass");
+  });
+});
