@@ -5,12 +5,23 @@ import { useState } from "react";
 import { fetchJson } from "@/lib/fetch-json";
 import type { AttachmentView } from "@/lib/services/attachments/view";
 import { formatBytes } from "@/lib/uploads/format-bytes";
-import { KIND_RULES } from "@/lib/uploads/kinds";
+import { KIND_RULES, type AttachmentKind } from "@/lib/uploads/kinds";
 
 /** Twelve hex digits: enough to tell files apart by eye and to find one in a packet's document index. */
 const SHA_PREFIX = 12;
 
-export function AttachmentList({ attachments, canDelete }: { attachments: AttachmentView[]; canDelete: boolean }) {
+export function AttachmentList({
+  attachments,
+  canDelete,
+  linkableKinds,
+  equipmentTags,
+}: {
+  attachments: AttachmentView[];
+  canDelete: boolean;
+  /** Kinds the viewer may attach, and so re-link. */
+  linkableKinds: readonly AttachmentKind[];
+  equipmentTags: string[];
+}) {
   if (attachments.length === 0) {
     return <p className="sheet px-4 py-8 text-center text-sm text-ink-soft">No files attached yet. Datasheets, the site plan and listings added above appear here.</p>;
   }
@@ -33,7 +44,7 @@ export function AttachmentList({ attachments, canDelete }: { attachments: Attach
         </thead>
         <tbody>
           {attachments.map((a) => (
-            <AttachmentRow key={a.id} attachment={a} canDelete={canDelete} />
+            <AttachmentRow key={a.id} attachment={a} canDelete={canDelete} canLink={linkableKinds.includes(a.kind)} equipmentTags={equipmentTags} />
           ))}
         </tbody>
       </table>
@@ -41,12 +52,39 @@ export function AttachmentList({ attachments, canDelete }: { attachments: Attach
   );
 }
 
-function AttachmentRow({ attachment: a, canDelete }: { attachment: AttachmentView; canDelete: boolean }) {
+function AttachmentRow({
+  attachment: a,
+  canDelete,
+  canLink,
+  equipmentTags,
+}: {
+  attachment: AttachmentView;
+  canDelete: boolean;
+  canLink: boolean;
+  equipmentTags: string[];
+}) {
   const router = useRouter();
   const [confirming, setConfirming] = useState(false);
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const kept = a.usedByRevisions.length > 0;
+
+  async function link(tag: string) {
+    setBusy(true);
+    setError(null);
+    try {
+      await fetchJson(`/api/attachments/${a.id}`, {
+        method: "PATCH",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ equipmentTag: tag || null }),
+      });
+      router.refresh();
+    } catch (e) {
+      setError(e instanceof Error ? e.message : "The link was not changed.");
+    } finally {
+      setBusy(false);
+    }
+  }
 
   async function remove() {
     setBusy(true);
@@ -76,7 +114,27 @@ function AttachmentRow({ attachment: a, canDelete }: { attachment: AttachmentVie
         ) : null}
       </td>
       <td>{KIND_RULES[a.kind].label}</td>
-      <td className="figure">{a.equipmentTag ?? <span className="text-ink-faint">—</span>}</td>
+      <td className="figure">
+        {canLink && equipmentTags.length > 0 ? (
+          <select
+            className="input w-auto py-0.5 text-sm"
+            aria-label={`Equipment for ${a.fileName}`}
+            value={a.equipmentTag ?? ""}
+            disabled={busy}
+            onChange={(e) => link(e.target.value)}
+          >
+            {KIND_RULES[a.kind].equipment === "required" ? null : <option value="">—</option>}
+            {a.equipmentTag && !equipmentTags.includes(a.equipmentTag) ? <option value={a.equipmentTag}>{a.equipmentTag} (not in the design)</option> : null}
+            {equipmentTags.map((t) => (
+              <option key={t} value={t}>
+                {t}
+              </option>
+            ))}
+          </select>
+        ) : (
+          (a.equipmentTag ?? <span className="text-ink-faint">—</span>)
+        )}
+      </td>
       <td className="figure text-right">{a.pageCount ?? <span className="text-ink-faint" title="Images are drawn onto a sheet">image</span>}</td>
       <td className="figure whitespace-nowrap text-right">{formatBytes(a.sizeBytes)}</td>
       <td className="figure text-xs">

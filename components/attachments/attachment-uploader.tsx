@@ -29,6 +29,9 @@ interface UploadAnswer extends Body {
   attachment?: { id: string; pageCount: number | null };
 }
 
+/** Kinds that usually show or document one piece of equipment; the tag carries over when switching among them. */
+const EQUIPMENT_KINDS: readonly AttachmentKind[] = ["datasheet", "storage-listing", "photo"];
+
 type Outcome = { id: string; fileName: string; target: string; state: "attached" | "duplicate" | "refused"; message: string };
 
 const ACCEPT_BY_MIME: Record<string, string[]> = {
@@ -82,6 +85,8 @@ export function AttachmentUploader({
       new Uppy<UploadMeta, UploadAnswer>({
         id: `attachments-${projectId}`,
         autoProceed: true,
+        // Refusals are expected answers, shown in the list below; they are not page errors.
+        logger: { debug: () => {}, warn: (...args: unknown[]) => console.warn(...args), error: (...args: unknown[]) => console.warn(...args) },
         allowMultipleUploadBatches: true,
         restrictions: { maxFileSize: maxBytes, allowedFileTypes: allowedTypes(kinds[0] ?? "other") },
         meta: { projectId, kind: kinds[0] ?? "other", equipmentTag: kinds[0] === "datasheet" ? firstMissing : "" },
@@ -109,6 +114,7 @@ export function AttachmentUploader({
   }, [uppy, projectId, kind, equipmentTag, maxBytes, rule.equipment]);
 
   useEffect(() => {
+    const refusedIds = new Set<string>();
     const record = (file: UppyFile<UploadMeta, UploadAnswer> | undefined, state: Outcome["state"], message: string) => {
       if (!file) return;
       setOutcomes((prev) => [{ id: file.id, fileName: file.name ?? "file", target: targetOf(file.meta), state, message }, ...prev.filter((o) => o.id !== file.id)].slice(0, 20));
@@ -117,14 +123,25 @@ export function AttachmentUploader({
       const body = response.body;
       record(file, body?.duplicate ? "duplicate" : "attached", body?.message ?? "Attached.");
     };
-    const onError = (file: UppyFile<UploadMeta, UploadAnswer> | undefined, error: { message: string }) => {
-      const offline = /network|status 0|failed to fetch/i.test(error.message);
+    const onError = (file: UppyFile<UploadMeta, UploadAnswer> | undefined, error: { message: string }, response?: { status?: number }) => {
+      const status = response?.status ?? (error as { request?: XMLHttpRequest }).request?.status ?? 0;
+      const offline = status === 0;
       record(file, "refused", offline ? "The connection was lost before the file arrived. Use Retry in the uploader." : error.message);
+      if (file && status >= 400 && status < 500) refusedIds.add(file.id);
     };
     const onRestriction = (file: UppyFile<UploadMeta, UploadAnswer> | undefined, error: Error) => {
       record(file, "refused", error.message);
     };
-    const onComplete = () => router.refresh();
+    const onComplete = () => {
+      // A refusal will not change on a second try, so the file leaves the uploader instead of offering Retry; its message stays below.
+      if (refusedIds.size > 0) {
+        for (const id of refusedIds) if (uppy.getFile(id)) uppy.removeFile(id);
+        refusedIds.clear();
+        // The status bar would still say "Upload failed" for files no longer shown; retryable failures keep it.
+        if (!uppy.getFiles().some((f) => f.error)) uppy.setState({ error: null });
+      }
+      router.refresh();
+    };
     uppy.on("upload-success", onSuccess);
     uppy.on("upload-error", onError);
     uppy.on("restriction-failed", onRestriction);
@@ -140,6 +157,8 @@ export function AttachmentUploader({
   function chooseKind(next: AttachmentKind) {
     setKind(next);
     if (KIND_RULES[next].equipment === "required" && !equipmentTag) setEquipmentTag(firstMissing);
+    // Site plans, letters, stamps and the like document the job, not one piece of equipment.
+    if (!EQUIPMENT_KINDS.includes(next)) setEquipmentTag("");
   }
 
   const refused = outcomes.filter((o) => o.state === "refused");

@@ -40,7 +40,7 @@ test("a designer attaches a datasheet for an equipment tag through the uploader,
   const downloadUrl = await row.getByRole("link", { name: fileName }).getAttribute("href");
   try {
     await expect(row.getByRole("cell").nth(1)).toHaveText("Datasheet");
-    await expect(row.getByRole("cell").nth(2)).toHaveText("BAT-1");
+    await expect(row.getByRole("combobox", { name: `Equipment for ${fileName}` })).toHaveValue("BAT-1");
     await expect(row.getByRole("cell").nth(3)).toHaveText("3");
     await expect(batteryItem).toContainText("Attached");
 

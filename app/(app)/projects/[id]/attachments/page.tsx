@@ -13,10 +13,11 @@ import { loadProject } from "../load-project";
 
 export const metadata: Metadata = { title: "Attachments" };
 
-function equipmentDescription(e: ProjectRecord["equipment"][number]): string {
+function equipmentDescription(e: ProjectRecord["equipment"][number], withKind = true): string {
   const model = [e.manufacturer, e.model].filter(Boolean).join(" ");
   const kind = e.kind.replace(/-/g, " ");
-  return model ? `${model} (${kind})` : kind;
+  if (!model) return kind;
+  return withKind ? `${model} (${kind})` : model;
 }
 
 /** The jurisdiction's required documents, item by item, with the same rules the submittal-completeness check applies. */
@@ -54,7 +55,7 @@ export default async function ProjectAttachmentsPage({ params }: { params: Promi
     items = checklist(record);
     equipment = record.equipment.map((e) => ({
       tag: e.tag,
-      description: equipmentDescription(e),
+      description: equipmentDescription(e, false),
       hasDatasheet: record.attachments.some((a) => a.kind === "datasheet" && a.equipmentTag === e.tag),
     }));
   } else {
@@ -75,7 +76,12 @@ export default async function ProjectAttachmentsPage({ params }: { params: Promi
         <h2 id="attachments-title" className="text-sm font-semibold">
           Attached files <span className="figure font-normal text-ink-soft">({attachments.length})</span>
         </h2>
-        <AttachmentList attachments={attachments} canDelete={can(ctx.roles, "attachment:delete")} />
+        <AttachmentList
+          attachments={attachments}
+          canDelete={can(ctx.roles, "attachment:delete")}
+          linkableKinds={kinds}
+          equipmentTags={equipment.map((e) => e.tag)}
+        />
         <p className="text-xs text-ink-soft">
           Files are stored by their SHA-256, so the same file added twice is recognised. A file merged into a packet revision is kept with that
           revision and cannot be deleted.
