@@ -1,5 +1,6 @@
 import { rgb, type PDFFont, type PDFPage } from "pdf-lib";
 import { DEJAVU_CAP_HEIGHT } from "../packet/fonts";
+import { drawText } from "../packet/text-layer";
 import { textWidth, wrapText } from "../packet/text";
 import { labelArtwork, type LabelArtwork, type Rgb } from "./artwork";
 import type { LabelRequirement } from "./types";
@@ -87,14 +88,14 @@ export function drawLabelLayout(page: PDFPage, art: LabelArtwork, layout: LabelL
     drawAlertSymbol(page, cx, baseline - capH * 0.06, symbolSize, symbol.triangle, symbol.mark);
     cx += symbolSize + gap;
   }
-  page.drawText(art.signalWord, { x: cx, y: baseline, size, font: fonts.bold, color: colour(art.header.text) });
+  drawText(page, art.signalWord, { x: cx, y: baseline, size, font: fonts.bold, color: colour(art.header.text) });
   const textSize = layout.textSize * scale;
   const lh = layout.lineHeightPt * scale;
   let y = top - hh - layout.paddingPt * scale * 0.7 - textSize * DEJAVU_CAP_HEIGHT;
   for (const line of layout.lines) {
     const font = line.bold ? fonts.bold : fonts.regular;
     const lw = textWidth(font, line.text, textSize);
-    page.drawText(line.text, { x: x + (w - lw) / 2, y, size: textSize, font, color: rgb(0, 0, 0) });
+    drawText(page, line.text, { x: x + (w - lw) / 2, y, size: textSize, font, color: rgb(0, 0, 0) });
     y -= lh;
   }
   page.drawRectangle({ x, y: top - h, width: w, height: h, borderColor: rgb(0, 0, 0), borderWidth: Math.max(0.5, 1.2 * scale) });

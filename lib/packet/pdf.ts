@@ -9,6 +9,7 @@ import { STATUS_SHAPE, STATUS_WORD, formatCheckValue } from "./format";
 import type { Block, Cell } from "./markup";
 import { buildPacketModel, type PacketModel, type Sheet } from "./model";
 import { prepareOneLine, type OneLineDrawer } from "./one-line";
+import { beginTextLayer, drawText, endTextLayer } from "./text-layer";
 import { fitText, textWidth, wrapText } from "./text";
 import type { PacketInput, PacketPdf, SheetPages } from "./types";
 
@@ -80,8 +81,8 @@ function textItem(font: PDFFont, size: number, lh: number, line: string, color: 
     h: lh,
     draw(page, x, top) {
       const y = top - lh + (lh - size) / 2 + size * 0.22;
-      if (prefix) page.drawText(prefix, { x, y, size, font, color });
-      page.drawText(line, { x: x + indent, y, size, font, color });
+      if (prefix) drawText(page, prefix, { x, y, size, font, color });
+      drawText(page, line, { x: x + indent, y, size, font, color });
     },
   };
 }
@@ -99,7 +100,7 @@ function statusBadge(page: PDFPage, fonts: PdfFonts, status: CheckStatus, x: num
   const y = top - h;
   if (status === "fail") page.drawRectangle({ x, y, width: w, height: h, color: SIGNAL });
   else page.drawRectangle({ x, y, width: w, height: h, borderColor: INK, borderWidth: 0.6 });
-  page.drawText(text, { x: x + 3, y: y + (h - size) / 2 + size * 0.18, size, font, color: status === "fail" ? WHITE : INK });
+  drawText(page, text, { x: x + 3, y: y + (h - size) / 2 + size * 0.18, size, font, color: status === "fail" ? WHITE : INK });
   return w;
 }
 
@@ -136,7 +137,7 @@ function tableItems(ctx: Ctx, block: Extract<Block, { kind: "table" }>, w: numbe
             cell.lines.forEach((line, li) => {
               const tw = textWidth(cell.font, line, size);
               const tx = align === "right" ? cx + cw - padX - tw : align === "center" ? cx + (cw - tw) / 2 : cx + padX;
-              page.drawText(line, { x: tx, y: top - padY - (li + 1) * lh + 2.2, size, font: cell.font, color: INK });
+              drawText(page, line, { x: tx, y: top - padY - (li + 1) * lh + 2.2, size, font: cell.font, color: INK });
             });
           }
           if (i > 0) page.drawLine({ start: { x: cx, y: top }, end: { x: cx, y: top - h }, thickness: 0.3, color: HAIR });
@@ -163,7 +164,7 @@ function checkCardItems(ctx: Ctx, r: CheckResult, w: number): Item[] {
     draw(page, x, top) {
       page.drawRectangle({ x, y: top - headH, width: w, height: headH, color: r.status === "fail" ? rgb(0.98, 0.92, 0.92) : rgb(0.96, 0.96, 0.97) });
       statusBadge(page, fonts, r.status, x + 4, top - 3.5, 10.5, 6.8);
-      titleLines.forEach((line, i) => page.drawText(line, { x: x + 80, y: top - 11.5 - i * 10, size: 8, font: fonts.bold, color: INK }));
+      titleLines.forEach((line, i) => drawText(page, line, { x: x + 80, y: top - 11.5 - i * 10, size: 8, font: fonts.bold, color: INK }));
       page.drawLine({ start: { x, y: top - headH }, end: { x: x + w, y: top - headH }, thickness: 0.4, color: RULE });
     },
   });
@@ -181,7 +182,7 @@ function checkCardItems(ctx: Ctx, r: CheckResult, w: number): Item[] {
     items.push(indent({
       h: 11,
       draw(page, x, top, ww) {
-        page.drawText(title.toUpperCase(), { x, y: top - 8.5, size: 6.2, font: fonts.condensedBold, color: MUTED });
+        drawText(page, title.toUpperCase(), { x, y: top - 8.5, size: 6.2, font: fonts.condensedBold, color: MUTED });
         page.drawLine({ start: { x, y: top - 10.5 }, end: { x: x + ww, y: top - 10.5 }, thickness: 0.3, color: HAIR });
       },
     }));
@@ -194,10 +195,10 @@ function checkCardItems(ctx: Ctx, r: CheckResult, w: number): Item[] {
       items.push(indent({
         h,
         draw(page, x, top, ww) {
-          labelLines.forEach((l, i) => page.drawText(l, { x, y: top - (i + 1) * SMALL_LH + 2.3, size: SMALL, font: fonts.condensed, color: INK }));
+          labelLines.forEach((l, i) => drawText(page, l, { x, y: top - (i + 1) * SMALL_LH + 2.3, size: SMALL, font: fonts.condensed, color: INK }));
           valueLines.forEach((l, i) => {
             const tw = textWidth(valueFont, l, SMALL);
-            page.drawText(l, { x: x + ww - tw, y: top - (i + 1) * SMALL_LH + 2.3, size: SMALL, font: valueFont, color: INK });
+            drawText(page, l, { x: x + ww - tw, y: top - (i + 1) * SMALL_LH + 2.3, size: SMALL, font: valueFont, color: INK });
           });
         },
       }));
@@ -217,14 +218,14 @@ function sitePlanItem(ctx: Ctx, w: number, h: number, caption: string): Item {
     draw(page, x, top) {
       const boxH = h - 14;
       page.drawRectangle({ x, y: top - boxH, width: w, height: boxH, borderColor: INK, borderWidth: 0.8 });
-      page.drawText(caption, { x, y: top - h + 3, size: SMALL, font: fonts.condensed, color: MUTED });
+      drawText(page, caption, { x, y: top - h + 3, size: SMALL, font: fonts.condensed, color: MUTED });
       if (!sitePlan) {
         page.drawLine({ start: { x, y: top }, end: { x: x + w, y: top - boxH }, thickness: 0.3, color: HAIR });
         page.drawLine({ start: { x, y: top - boxH }, end: { x: x + w, y: top }, thickness: 0.3, color: HAIR });
         const msg = "SITE PLAN NOT ATTACHED";
         const tw = textWidth(fonts.bold, msg, 16);
         page.drawRectangle({ x: x + w / 2 - tw / 2 - 8, y: top - boxH / 2 - 12, width: tw + 16, height: 28, color: WHITE });
-        page.drawText(msg, { x: x + w / 2 - tw / 2, y: top - boxH / 2 - 4, size: 16, font: fonts.bold, color: INK });
+        drawText(page, msg, { x: x + w / 2 - tw / 2, y: top - boxH / 2 - 4, size: 16, font: fonts.bold, color: INK });
         return;
       }
       const srcW = sitePlan.kind === "page" ? sitePlan.page.width : sitePlan.image.width;
@@ -270,7 +271,7 @@ function labelRowItem(ctx: Ctx, labels: PacketInput["labels"], w: number): Item 
       cells.forEach((c, i) => {
         const cx = x + i * (cellW + GUTTER);
         drawLabel(page, c.label, { x: cx, y: top - 4 - c.artH, width: artW, height: c.artH }, fonts);
-        c.text.forEach((t, li) => page.drawText(t.text, { x: cx + artW + 10, y: top - 4 - (li + 1) * SMALL_LH + 2, size: SMALL, font: t.font, color: t.color }));
+        c.text.forEach((t, li) => drawText(page, t.text, { x: cx + artW + 10, y: top - 4 - (li + 1) * SMALL_LH + 2, size: SMALL, font: t.font, color: t.color }));
       });
       page.drawLine({ start: { x, y: top - h + 4 }, end: { x: x + w, y: top - h + 4 }, thickness: 0.3, color: HAIR });
     },
@@ -300,7 +301,7 @@ class SheetWriter {
     this.y = FLOW_TOP;
     const { fonts } = this.ctx;
     const heading = `${this.sheet.code}  ${this.sheet.title.toUpperCase()}${this.pages.length > 1 ? "  (CONTINUED)" : ""}`;
-    this.page.drawText(heading, { x: CONTENT.x0, y: CONTENT.top - 13, size: 12, font: fonts.bold, color: INK });
+    drawText(this.page, heading, { x: CONTENT.x0, y: CONTENT.top - 13, size: 12, font: fonts.bold, color: INK });
     this.page.drawLine({ start: { x: CONTENT.x0, y: CONTENT.top - 19 }, end: { x: CONTENT.x1, y: CONTENT.top - 19 }, thickness: 1.2, color: INK });
     if (this.sheet.columns > 1) {
       for (let c = 1; c < this.sheet.columns; c += 1) {
@@ -393,7 +394,7 @@ class SheetWriter {
               if (i === 0) {
                 const s = 10;
                 p.drawSvgPath(`M ${s / 2} 0 L ${s} ${s * 0.87} L 0 ${s * 0.87} Z`, { x: x + 7, y: top - 1.5, borderColor: INK, borderWidth: 1, color: WHITE });
-                p.drawText("!", { x: x + 10.6, y: top - 8.6, size: 6.5, font: fonts.bold, color: INK });
+                drawText(p, "!", { x: x + 10.6, y: top - 8.6, size: 6.5, font: fonts.bold, color: INK });
               }
               it.draw(p, x + 22, top, ww - 26);
             },
@@ -412,8 +413,8 @@ class SheetWriter {
             return {
               h,
               draw(p, x, top, ww) {
-                keyLines.forEach((l, i) => p.drawText(l, { x, y: top - (i + 1) * (BODY_LH - 0.5) + 2.5, size: BODY - 0.5, font: fonts.condensedBold, color: MUTED }));
-                valLines.forEach((l, i) => p.drawText(l, { x: x + keyW, y: top - (i + 1) * (BODY_LH - 0.5) + 2.5, size: BODY - 0.5, font: fonts.regular, color: INK }));
+                keyLines.forEach((l, i) => drawText(p, l, { x, y: top - (i + 1) * (BODY_LH - 0.5) + 2.5, size: BODY - 0.5, font: fonts.condensedBold, color: MUTED }));
+                valLines.forEach((l, i) => drawText(p, l, { x: x + keyW, y: top - (i + 1) * (BODY_LH - 0.5) + 2.5, size: BODY - 0.5, font: fonts.regular, color: INK }));
                 p.drawLine({ start: { x, y: top - h + 0.5 }, end: { x: x + ww, y: top - h + 0.5 }, thickness: 0.25, color: HAIR });
               },
             };
@@ -489,8 +490,8 @@ function drawZones(page: PDFPage, fonts: PdfFonts) {
     page.drawLine({ start: { x, y: outer.y0 }, end: { x, y: INNER.y0 }, thickness: 0.4, color: INK });
     if (i < cols) {
       const n = String(cols - i);
-      page.drawText(n, { x: x + cw / 2 - 2, y: INNER.y1 + 2.2, size: 6, font: fonts.condensed, color: MUTED });
-      page.drawText(n, { x: x + cw / 2 - 2, y: outer.y0 + 2.2, size: 6, font: fonts.condensed, color: MUTED });
+      drawText(page, n, { x: x + cw / 2 - 2, y: INNER.y1 + 2.2, size: 6, font: fonts.condensed, color: MUTED });
+      drawText(page, n, { x: x + cw / 2 - 2, y: outer.y0 + 2.2, size: 6, font: fonts.condensed, color: MUTED });
     }
   }
   for (let j = 0; j <= rows; j += 1) {
@@ -499,8 +500,8 @@ function drawZones(page: PDFPage, fonts: PdfFonts) {
     page.drawLine({ start: { x: INNER.x1, y }, end: { x: outer.x1, y }, thickness: 0.4, color: INK });
     if (j < rows) {
       const letter = "ABCDEF"[j] ?? "";
-      page.drawText(letter, { x: outer.x0 + 2.5, y: y + rh / 2 - 2, size: 6, font: fonts.condensed, color: MUTED });
-      page.drawText(letter, { x: INNER.x1 + 2.5, y: y + rh / 2 - 2, size: 6, font: fonts.condensed, color: MUTED });
+      drawText(page, letter, { x: outer.x0 + 2.5, y: y + rh / 2 - 2, size: 6, font: fonts.condensed, color: MUTED });
+      drawText(page, letter, { x: INNER.x1 + 2.5, y: y + rh / 2 - 2, size: 6, font: fonts.condensed, color: MUTED });
     }
   }
 }
@@ -519,12 +520,12 @@ function drawTitleBlock(ctx: Ctx, info: PageInfo, pageNo: number, total: number,
     y -= 8;
   };
   const label = (t: string) => {
-    page.drawText(t, { x, y: y - 6, size: 5.8, font: fonts.condensedBold, color: MUTED });
+    drawText(page, t, { x, y: y - 6, size: 5.8, font: fonts.condensedBold, color: MUTED });
     y -= 9;
   };
   const lines = (t: string, font: PDFFont, size: number, max = 3) => {
     for (const l of wrapText(font, size, t, w).slice(0, max)) {
-      page.drawText(l, { x, y: y - size, size, font, color: INK });
+      drawText(page, l, { x, y: y - size, size, font, color: INK });
       y -= size * 1.25;
     }
   };
@@ -541,9 +542,9 @@ function drawTitleBlock(ctx: Ctx, info: PageInfo, pageNo: number, total: number,
   lines(`${tb.edition}`, fonts.condensedBold, 7.2, 1);
   rule();
   label("REVISION");
-  page.drawText(`Rev ${tb.revision}`, { x, y: y - 8, size: 8, font: fonts.bold, color: INK });
-  page.drawText(tb.date, { x: x + 44, y: y - 8, size: 8, font: fonts.condensed, color: INK });
-  page.drawText(model.marking.approved ? "Approved" : model.draft.isDraft ? "Draft for review" : "Issued for review", { x: x + 100, y: y - 8, size: 7, font: fonts.condensed, color: INK });
+  drawText(page, `Rev ${tb.revision}`, { x, y: y - 8, size: 8, font: fonts.bold, color: INK });
+  drawText(page, tb.date, { x: x + 44, y: y - 8, size: 8, font: fonts.condensed, color: INK });
+  drawText(page, model.marking.approved ? "Approved" : model.draft.isDraft ? "Draft for review" : "Issued for review", { x: x + 100, y: y - 8, size: 7, font: fonts.condensed, color: INK });
   y -= 12;
   rule();
   label(model.marking.approved ? "PROFESSIONAL REVIEW" : "REVIEW STATUS");
@@ -566,7 +567,7 @@ function drawTitleBlock(ctx: Ctx, info: PageInfo, pageNo: number, total: number,
       [a.licenceDiscipline, fonts.condensed, 7],
       [`Approved ${a.approvedAt.slice(0, 10)}`, fonts.condensed, 7],
     ] as const) {
-      page.drawText(fitText(font, size, t, w - 8), { x: x + 4, y: ty - size, size, font, color: INK });
+      drawText(page, fitText(font, size, t, w - 8), { x: x + 4, y: ty - size, size, font, color: INK });
       ty -= size * 1.3;
     }
   } else {
@@ -574,10 +575,10 @@ function drawTitleBlock(ctx: Ctx, info: PageInfo, pageNo: number, total: number,
     let ty = boxTop - 50;
     for (const m of msg) {
       const tw = textWidth(fonts.bold, m, 8.5);
-      if (m) page.drawText(m, { x: x + (w - tw) / 2, y: ty, size: 8.5, font: fonts.bold, color: INK });
+      if (m) drawText(page, m, { x: x + (w - tw) / 2, y: ty, size: 8.5, font: fonts.bold, color: INK });
       ty -= 11;
     }
-    page.drawText("Stamp", { x: x + 4, y: boxTop - boxH + 4, size: 5.8, font: fonts.condensed, color: MUTED });
+    drawText(page, "Stamp", { x: x + 4, y: boxTop - boxH + 4, size: 5.8, font: fonts.condensed, color: MUTED });
   }
   y = boxTop - boxH - 2;
   rule();
@@ -586,12 +587,12 @@ function drawTitleBlock(ctx: Ctx, info: PageInfo, pageNo: number, total: number,
   // The sheet number sits in the bottom corner, where a reader flipping the set looks.
   const numSize = 24;
   page.drawLine({ start: { x: TB.x0, y: TB.y0 + 58 }, end: { x: TB.x1, y: TB.y0 + 58 }, thickness: 0.6, color: INK });
-  page.drawText("SHEET", { x, y: TB.y0 + 49, size: 5.8, font: fonts.condensedBold, color: MUTED });
-  page.drawText(info.sheet, { x, y: TB.y0 + 22, size: numSize, font: fonts.bold, color: INK });
+  drawText(page, "SHEET", { x, y: TB.y0 + 49, size: 5.8, font: fonts.condensedBold, color: MUTED });
+  drawText(page, info.sheet, { x, y: TB.y0 + 22, size: numSize, font: fonts.bold, color: INK });
   const sub = info.count > 1 ? `page ${info.index} of ${info.count} of this sheet` : "";
-  if (sub) page.drawText(sub, { x, y: TB.y0 + 11, size: 6.5, font: fonts.condensed, color: INK });
+  if (sub) drawText(page, sub, { x, y: TB.y0 + 11, size: 6.5, font: fonts.condensed, color: INK });
   const pn = `${pageNo} / ${total}`;
-  page.drawText(pn, { x: TB.x1 - 8 - textWidth(fonts.condensed, pn, 7), y: TB.y0 + 49, size: 7, font: fonts.condensed, color: INK });
+  drawText(page, pn, { x: TB.x1 - 8 - textWidth(fonts.condensed, pn, 7), y: TB.y0 + 49, size: 7, font: fonts.condensed, color: INK });
 }
 
 function drawBand(ctx: Ctx, page: PDFPage) {
@@ -601,10 +602,10 @@ function drawBand(ctx: Ctx, page: PDFPage) {
   if (!model.marking.approved) {
     const t = model.marking.reviewText;
     const tw = textWidth(fonts.bold, t, 8.5);
-    page.drawText(t, { x: INNER.x0 + (TB.x0 - INNER.x0 - tw) / 2, y: y0 + 5.5, size: 8.5, font: fonts.bold, color: INK });
+    drawText(page, t, { x: INNER.x0 + (TB.x0 - INNER.x0 - tw) / 2, y: y0 + 5.5, size: 8.5, font: fonts.bold, color: INK });
   } else {
     const t = `${model.marking.approvalLines[0] ?? ""} · ${model.marking.footer}`;
-    page.drawText(fitText(fonts.condensedBold, 8, t, TB.x0 - INNER.x0 - 12), { x: INNER.x0 + 6, y: y0 + 5.5, size: 8, font: fonts.condensedBold, color: INK });
+    drawText(page, fitText(fonts.condensedBold, 8, t, TB.x0 - INNER.x0 - 12), { x: INNER.x0 + 6, y: y0 + 5.5, size: 8, font: fonts.condensedBold, color: INK });
   }
 }
 
@@ -738,6 +739,7 @@ async function renderOnce(
 ): Promise<{ stable: boolean; pdf: PacketPdf; coverPages: number }> {
   const doc = await PDFDocument.create();
   useNativeDeflate(doc);
+  beginTextLayer(doc);
   const fonts = await embedPacketFonts(doc);
   const sitePlan = await embedSitePlan(doc, input);
   const stamp = input.approval?.stampImage
@@ -777,6 +779,7 @@ async function renderOnce(
   coverWriter.writeBlocks(coverSheet.blocks);
   const coverPages = coverWriter.pages.length;
   if (coverPages !== coverGuess) {
+    endTextLayer(doc);
     return { stable: false, pdf: { bytes: new Uint8Array(), pageCount: 0, sheetPages: [] }, coverPages };
   }
 
@@ -812,6 +815,7 @@ async function renderOnce(
     }
   });
 
+  endTextLayer(doc);
   compressSheetContent(doc, infos.filter((i) => !i.datasheet).map((i) => i.page));
   const t = model.titleBlock;
   doc.setTitle(`${t.project} — permit packet, revision ${t.revision}`);
