@@ -110,8 +110,17 @@ export function AttachmentUploader({
 
   useEffect(() => {
     uppy.setMeta({ projectId, kind, equipmentTag: rule.equipment === "required" || equipmentTag ? equipmentTag : "" });
-    uppy.setOptions({ restrictions: { maxFileSize: maxBytes, allowedFileTypes: allowedTypes(kind) } });
-  }, [uppy, projectId, kind, equipmentTag, maxBytes, rule.equipment]);
+    uppy.setOptions({
+      restrictions: { maxFileSize: maxBytes, allowedFileTypes: allowedTypes(kind) },
+      locale: {
+        strings: {
+          youCanOnlyUploadFileTypes: `A ${rule.label.toLowerCase()} must be ${describeAccepted(kind)}; choose another kind for other files.`,
+          exceedsSize: "“%{file}” is larger than the largest file accepted, %{size}. Reduce it (for a scan, a lower resolution) or split it.",
+          noDuplicates: "“%{fileName}” is already in the uploader.",
+        },
+      },
+    });
+  }, [uppy, projectId, kind, equipmentTag, maxBytes, rule.equipment, rule.label]);
 
   useEffect(() => {
     const refusedIds = new Set<string>();
