@@ -9,6 +9,7 @@ export interface NavLink {
 /** The side navigation; each link shows to the roles that work there. */
 export const NAV_LINKS: NavLink[] = [
   { href: "/projects", label: "Projects", roles: ["designer", "reviewer", "office", "admin"] },
+  { href: "/library", label: "Equipment library", roles: ["designer"] },
   { href: "/reviews", label: "Review queue", roles: ["reviewer"] },
   { href: "/submissions", label: "Submissions", roles: ["office", "designer"] },
   { href: "/jurisdictions", label: "Jurisdictions", roles: ["office", "designer", "reviewer"] },

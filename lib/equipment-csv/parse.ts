@@ -18,6 +18,9 @@ import {
   type RatingField,
 } from "../schemas/library-item";
 import type { EquipmentKind } from "../schemas/project-record";
+import { inUnit, readNumberCell, type Read } from "./cells";
+
+export { readNumberCell };
 
 export const REQUIRED_COLUMNS = ["kind", "manufacturer", "model"] as const;
 /** One request, one transaction: a library file is tens to hundreds of rows. */
@@ -128,25 +131,6 @@ function readHeader(header: string[], body: string[][]): HeaderPlan {
     columns.push(null);
   });
   return { columns, problems };
-}
-
-const NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
-
-type Read<T> = { ok: true; value: T } | { ok: false; message: string };
-
-function inUnit(words: string): string {
-  return words ? `, in ${words}` : "";
-}
-
-export function readNumberCell(raw: string, unitWords: string): Read<number> {
-  // A typographic minus (U+2212) comes out of word processors; it means the same sign.
-  const s = raw.trim().replace(/^\u2212/, "-");
-  if (NUMBER.test(s)) return { ok: true, value: Number(s) };
-  if (/^[+-]?\d{1,3}(,\d{3})+(\.\d+)?$/.test(s) || /^[+-]?\d+,\d+$/.test(s)) {
-    return { ok: false, message: `write the number with a decimal point and no thousands separators (e.g. 1500 or 49.5)${inUnit(unitWords)}` };
-  }
-  if (/^[+-]?(\d|\.\d)/.test(s)) return { ok: false, message: `write the number only${inUnit(unitWords)}` };
-  return { ok: false, message: `must be a number${inUnit(unitWords)}` };
 }
 
 const YES = new Set(["yes", "y", "true", "1"]);
