@@ -15,6 +15,23 @@ const KIND_OPTIONS: Option[] = EQUIPMENT_KINDS.map((k) => ({ value: k, label: EQ
 const INVERTER_KINDS = new Set(["inverter", "inverter-charger", "hybrid-inverter"]);
 const AUTO_TAG = new RegExp(`^(${[...new Set(Object.values(TAG_PREFIX))].join("|")})-\\d+$`);
 
+export const EQUIPMENT_COLUMNS: GridColumn[] = [
+  { key: "tag", header: "Tag", type: "text", width: "w-20" },
+  { key: "kind", header: "Kind", type: "select", options: KIND_OPTIONS, required: true, width: "w-40" },
+  { key: "manufacturer", header: "Manufacturer", type: "text", width: "w-32" },
+  { key: "model", header: "Model", type: "text", width: "w-32" },
+  { key: "quantity", header: "Qty", type: "integer", width: "w-14" },
+  { key: "listing", header: "Listing", type: "text", width: "w-28" },
+];
+
+export const MPPT_INPUT_COLUMNS: GridColumn[] = [
+  { key: "id", header: "Input id", type: "text", width: "w-16" },
+  { key: "maxVoltageV", header: "Max voltage", unit: "V", type: "number" },
+  { key: "maxCurrentA", header: "Max current", unit: "A", type: "number" },
+  { key: "minOperatingVoltageV", header: "Window low", unit: "V", type: "number" },
+  { key: "maxOperatingVoltageV", header: "Window high", unit: "V", type: "number" },
+];
+
 interface LibraryItem {
   id: string;
   kind: EquipmentKind;
@@ -93,13 +110,7 @@ function MpptInputs({ index }: { index: number }) {
         name={`equipment.${index}.mpptInputs`}
         label={`MPPT inputs of equipment row ${index + 1}`}
         noun="MPPT input"
-        columns={[
-          { key: "id", header: "Input id", type: "text", width: "w-16" },
-          { key: "maxVoltageV", header: "Max voltage", unit: "V", type: "number" },
-          { key: "maxCurrentA", header: "Max current", unit: "A", type: "number" },
-          { key: "minOperatingVoltageV", header: "Window low", unit: "V", type: "number" },
-          { key: "maxOperatingVoltageV", header: "Window high", unit: "V", type: "number" },
-        ]}
+        columns={MPPT_INPUT_COLUMNS}
         newRow={(rows) => ({ id: String.fromCharCode(65 + rows.length) })}
         duplicateRow={(row, rows) => ({ ...row, id: String.fromCharCode(65 + rows.length) })}
       />
@@ -148,31 +159,24 @@ export function EquipmentSection() {
     if (open !== null && open >= count) setOpen(null);
   }, [open, count]);
   const columns = useMemo<GridColumn[]>(
-    () => [
-      { key: "tag", header: "Tag", type: "text", width: "w-20" },
-      {
-        key: "kind",
-        header: "Kind",
-        type: "select",
-        options: KIND_OPTIONS,
-        required: true,
-        width: "w-40",
-        onValueChange: (i, value) => {
-          const row = getValues(`equipment.${i}`) as Record<string, unknown>;
-          const next = changeKind(row, value as EquipmentKind);
-          // A tag the product gave (MOD-2) follows the kind (CC-1); a tag the designer typed stays.
-          if (typeof row.tag === "string" && AUTO_TAG.test(row.tag)) {
-            const others = [...tagsRef.current.all].filter((t) => t !== row.tag);
-            next.tag = nextTag(TAG_PREFIX[value as EquipmentKind], others);
-          }
-          setValue(`equipment.${i}`, next, { shouldDirty: true, shouldValidate: true });
-        },
-      },
-      { key: "manufacturer", header: "Manufacturer", type: "text", width: "w-32" },
-      { key: "model", header: "Model", type: "text", width: "w-32" },
-      { key: "quantity", header: "Qty", type: "integer", width: "w-14" },
-      { key: "listing", header: "Listing", type: "text", width: "w-28" },
-    ],
+    () =>
+      EQUIPMENT_COLUMNS.map((col) =>
+        col.key !== "kind"
+          ? col
+          : {
+              ...col,
+              onValueChange: (i: number, value: unknown) => {
+                const row = getValues(`equipment.${i}`) as Record<string, unknown>;
+                const next = changeKind(row, value as EquipmentKind);
+                // A tag the product gave (MOD-2) follows the kind (CC-1); a tag the designer typed stays.
+                if (typeof row.tag === "string" && AUTO_TAG.test(row.tag)) {
+                  const others = [...tagsRef.current.all].filter((t) => t !== row.tag);
+                  next.tag = nextTag(TAG_PREFIX[value as EquipmentKind], others);
+                }
+                setValue(`equipment.${i}`, next, { shouldDirty: true, shouldValidate: true });
+              },
+            },
+      ),
     [getValues, setValue],
   );
   const all = () => [...tags.all];

@@ -1,7 +1,7 @@
 "use client";
 
 import { BATTERY_LOCATIONS } from "@/lib/schemas/project-record";
-import { FormField, type Option } from "./field-control";
+import { FormField, type FieldControlProps, type Option } from "./field-control";
 
 const SYSTEM_KIND_OPTIONS: Option[] = [
   { value: "stand-alone", label: "Stand-alone" },
@@ -28,6 +28,100 @@ const RAPID_SHUTDOWN_OPTIONS: Option[] = [
 
 const BATTERY_LOCATION_OPTIONS: Option[] = BATTERY_LOCATIONS.map((v) => ({ value: v, label: v.replace(/-/g, " ") }));
 
+type FieldSpec = Pick<FieldControlProps, "path" | "label" | "type" | "options" | "required"> & { unit?: string; help?: string; wide?: boolean };
+
+export const PROJECT_FIELDS: FieldSpec[] = [
+  { path: "name", label: "Project name", type: "text", required: true },
+  { path: "client", label: "Client", type: "text" },
+  { path: "systemKind", label: "System kind", type: "select", options: SYSTEM_KIND_OPTIONS, required: true },
+  {
+    path: "daysOfAutonomy",
+    label: "Days of autonomy",
+    unit: "days",
+    type: "number",
+    help: "Days the batteries carry the loads without sun; two to three by common practice for stand-alone systems.",
+  },
+  {
+    path: "rapidShutdownMethod",
+    label: "Rapid-shutdown method",
+    type: "select",
+    options: RAPID_SHUTDOWN_OPTIONS,
+    help: "Needed where PV circuits run on or in a building (690.12).",
+  },
+];
+
+export const SITE_FIELDS: FieldSpec[] = [
+  { path: "site.address", label: "Site address", type: "text", wide: true },
+  {
+    path: "site.occupancy",
+    label: "Occupancy",
+    type: "select",
+    options: OCCUPANCY_OPTIONS,
+    required: true,
+    help: "One- and two-family dwellings limit PV system voltage to 600 V (690.7).",
+  },
+  { path: "site.mounting", label: "Mounting", type: "select", options: MOUNTING_OPTIONS, required: true },
+  {
+    path: "site.roofClearanceIn",
+    label: "Roof clearance of raceways",
+    unit: "in",
+    type: "number",
+    help: "Height of PV raceways above the roof surface, for the rooftop temperature adder (Table 310.15(B)(2) in 2020/2023; 310.15(B)(3)(c) in 2017).",
+  },
+  {
+    path: "site.designLowTempC",
+    label: "Design low temperature",
+    unit: "°C",
+    type: "number",
+    help: "Usually the extreme annual mean minimum design dry-bulb temperature for the nearest weather station in a climate-data handbook (690.7(A) informational note). Allowed −60 … +70 °C.",
+  },
+  {
+    path: "site.designLowTempSource",
+    label: "Source of the low temperature",
+    type: "text",
+    help: "Name the station, the table and its edition, so the reviewer can trace the figure.",
+  },
+  {
+    path: "site.designHighTempC",
+    label: "Design high temperature",
+    unit: "°C",
+    type: "number",
+    help: "Usually the 2 % annual design dry-bulb temperature for the nearest station from the same handbook (common practice for ampacity correction and the MPPT window). Allowed −60 … +70 °C.",
+  },
+  { path: "site.designHighTempSource", label: "Source of the high temperature", type: "text", help: "Station, table, edition." },
+  {
+    path: "site.moduleTempRiseC",
+    label: "Module temperature rise",
+    unit: "°C",
+    type: "number",
+    help: "Cell temperature above ambient at the design high; about 30 °C for rack and roof mounts by common practice, used when left empty.",
+  },
+  {
+    path: "site.sunHoursPerDay",
+    label: "Sun hours per day",
+    unit: "h",
+    type: "number",
+    help: "Peak sun hours of the worst month the system must serve (common practice), from a solar-resource map or dataset for the site.",
+  },
+  {
+    path: "site.batteryLocation",
+    label: "Battery location",
+    type: "select",
+    options: BATTERY_LOCATION_OPTIONS,
+    help: "Drives the storage siting limits (IRC R328 / R330, NFPA 855 chapter 15). Never a habitable room.",
+  },
+  { path: "site.batteryLocationNote", label: "Battery location note", type: "text" },
+  {
+    path: "site.batterySpacingIn",
+    label: "Spacing between storage units",
+    unit: "in",
+    type: "number",
+    help: "3 ft (36 in) unless large-scale fire testing supports less.",
+  },
+  { path: "site.hasSmokeOrHeatDetection", label: "Smoke or heat detection", type: "tri-state" },
+  { path: "site.hasVehicleImpactProtection", label: "Vehicle-impact protection", type: "tri-state", help: "Needed where storage stands in a garage." },
+];
+
 export function Section({ id, title, sheet, children, aside }: { id: string; title: string; sheet: string; children: React.ReactNode; aside?: React.ReactNode }) {
   return (
     <section id={id} aria-labelledby={`${id}-heading`} className="sheet scroll-mt-4">
@@ -49,23 +143,9 @@ export function ProjectSection() {
   return (
     <Section id="project" title="Project and system" sheet="A · 1">
       <div className="grid gap-4 sm:grid-cols-2">
-        <FormField path="name" label="Project name" type="text" required />
-        <FormField path="client" label="Client" type="text" />
-        <FormField path="systemKind" label="System kind" type="select" options={SYSTEM_KIND_OPTIONS} required />
-        <FormField
-          path="daysOfAutonomy"
-          label="Days of autonomy"
-          unit="days"
-          type="number"
-          help="Days the batteries carry the loads without sun; two to three by common practice for stand-alone systems."
-        />
-        <FormField
-          path="rapidShutdownMethod"
-          label="Rapid-shutdown method"
-          type="select"
-          options={RAPID_SHUTDOWN_OPTIONS}
-          help="Needed where PV circuits run on or in a building (690.12)."
-        />
+        {PROJECT_FIELDS.map((f) => (
+          <FormField key={f.path} {...f} />
+        ))}
       </div>
     </Section>
   );
@@ -81,75 +161,9 @@ export function SiteSection({ jurisdiction }: { jurisdiction: { name: string; ne
         <span className="ml-2 text-xs text-ink-faint">— the permit office keeps the jurisdiction record; its edition sets the code references.</span>
       </p>
       <div className="grid gap-4 sm:grid-cols-2">
-        <FormField path="site.address" label="Site address" type="text" wide />
-        <FormField
-          path="site.occupancy"
-          label="Occupancy"
-          type="select"
-          options={OCCUPANCY_OPTIONS}
-          required
-          help="One- and two-family dwellings limit PV system voltage to 600 V (690.7)."
-        />
-        <FormField path="site.mounting" label="Mounting" type="select" options={MOUNTING_OPTIONS} required />
-        <FormField
-          path="site.roofClearanceIn"
-          label="Roof clearance of raceways"
-          unit="in"
-          type="number"
-          help="Height of PV raceways above the roof surface, for the rooftop temperature adder (Table 310.15(B)(2) in 2020/2023; 310.15(B)(3)(c) in 2017)."
-        />
-        <FormField
-          path="site.designLowTempC"
-          label="Design low temperature"
-          unit="°C"
-          type="number"
-          help="Usually the extreme annual mean minimum design dry-bulb temperature for the nearest weather station in a climate-data handbook (690.7(A) informational note). Allowed −60 … +70 °C."
-        />
-        <FormField
-          path="site.designLowTempSource"
-          label="Source of the low temperature"
-          type="text"
-          help="Name the station, the table and its edition, so the reviewer can trace the figure."
-        />
-        <FormField
-          path="site.designHighTempC"
-          label="Design high temperature"
-          unit="°C"
-          type="number"
-          help="Usually the 2 % annual design dry-bulb temperature for the nearest station from the same handbook (common practice for ampacity correction and the MPPT window). Allowed −60 … +70 °C."
-        />
-        <FormField path="site.designHighTempSource" label="Source of the high temperature" type="text" help="Station, table, edition." />
-        <FormField
-          path="site.moduleTempRiseC"
-          label="Module temperature rise"
-          unit="°C"
-          type="number"
-          help="Cell temperature above ambient at the design high; about 30 °C for rack and roof mounts by common practice, used when left empty."
-        />
-        <FormField
-          path="site.sunHoursPerDay"
-          label="Sun hours per day"
-          unit="h"
-          type="number"
-          help="Peak sun hours of the worst month the system must serve (common practice), from a solar-resource map or dataset for the site."
-        />
-        <FormField
-          path="site.batteryLocation"
-          label="Battery location"
-          type="select"
-          options={BATTERY_LOCATION_OPTIONS}
-          help="Drives the storage siting limits (IRC R328 / R330, NFPA 855 chapter 15). Never a habitable room."
-        />
-        <FormField path="site.batteryLocationNote" label="Battery location note" type="text" />
-        <FormField
-          path="site.batterySpacingIn"
-          label="Spacing between storage units"
-          unit="in"
-          type="number"
-          help="3 ft (36 in) unless large-scale fire testing supports less."
-        />
-        <FormField path="site.hasSmokeOrHeatDetection" label="Smoke or heat detection" type="tri-state" />
-        <FormField path="site.hasVehicleImpactProtection" label="Vehicle-impact protection" type="tri-state" help="Needed where storage stands in a garage." />
+        {SITE_FIELDS.map((f) => (
+          <FormField key={f.path} {...f} />
+        ))}
       </div>
     </Section>
   );
