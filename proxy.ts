@@ -8,5 +8,7 @@ import { authConfig } from "./auth.config";
 export default NextAuth(authConfig).auth;
 
 export const config = {
-  matcher: ["/((?!_next/static|_next/image|favicon.ico|fonts/).*)"],
+  // Uploads bypass the proxy: it would buffer only the first 10 MB of a body, and
+  // the upload route checks the session itself like every route handler.
+  matcher: ["/((?!_next/static|_next/image|favicon.ico|fonts/|api/uploads).*)"],
 };
