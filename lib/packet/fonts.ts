@@ -3,6 +3,9 @@ import path from "node:path";
 import fontkit from "@pdf-lib/fontkit";
 import { PDFHexString, type PDFDocument, type PDFFont } from "pdf-lib";
 
+type Fontkit = Parameters<PDFDocument["registerFontkit"]>[0];
+type Font = ReturnType<Fontkit["create"]>;
+
 /** DejaVu (Bitstream Vera licence, see fonts/pdf/LICENSE-DejaVu.txt): covers °, ×, −, →, ✓ and the status shapes. */
 export const PDF_FONT_DIR = path.join(process.cwd(), "fonts", "pdf");
 
@@ -76,9 +79,26 @@ function cachePerCharacter(font: PDFFont, file: string): PDFFont {
   return font;
 }
 
+/**
+ * Parsed fonts shared by every document: fontkit decodes glyph tables lazily
+ * and keeps them on the font object, so a fresh parse per packet paid for the
+ * same glyphs again. Each document still makes its own subset.
+ */
+const parsed = new Map<Uint8Array, Font>();
+const sharedFontkit: Fontkit = {
+  create(data: Uint8Array, postscriptName?: string) {
+    let font = parsed.get(data);
+    if (!font) {
+      font = fontkit.create(data, postscriptName);
+      parsed.set(data, font);
+    }
+    return font;
+  },
+};
+
 /** Embeds the packet fonts as subsets, so a packet carries only the glyphs it prints. */
 export async function embedPacketFonts(doc: PDFDocument, dir = PDF_FONT_DIR): Promise<PdfFonts> {
-  doc.registerFontkit(fontkit);
+  doc.registerFontkit(sharedFontkit);
   const entries = await Promise.all(
     (Object.keys(FILES) as FontRole[]).map(
       async (role) => [role, cachePerCharacter(await doc.embedFont(fontBytes(FILES[role], dir), { subset: true }), `${dir}/${FILES[role]}`)] as const,
