@@ -6,6 +6,7 @@
  * a 200-circuit project well inside one animation frame (16 ms), and cost
  * growing linearly with the circuits.
  */
+import { cpus, loadavg } from "node:os";
 import { performance } from "node:perf_hooks";
 import { parseProjectFile, runChecks } from "../lib/compliance/index";
 import type { ProjectRecord, ProjectRecordInput } from "../lib/schemas/project-record";
@@ -65,7 +66,7 @@ function median(xs: number[]): number {
 
 function main(): void {
   const sizes = [20, 200, 2000];
-  const rows: string[][] = [["circuits", "results", "runs", "median ms", "µs / circuit", "parse ms"]];
+  const rows: string[][] = [["circuits", "results", "runs", "median ms", "µs / circuit", "cpu ms / run", "parse ms"]];
   for (const n of sizes) {
     const parsed = parseProjectFile(generatedProject(n));
     if (!parsed.ok) throw new Error(parsed.issues.map((i) => `${i.path}: ${i.message}`).join("\n"));
@@ -74,11 +75,14 @@ function main(): void {
     for (let i = 0; i < 3; i++) runChecks(record);
     const times: number[] = [];
     let results = 0;
+    const cpu0 = process.cpuUsage();
     for (let i = 0; i < runs; i++) {
       const t0 = performance.now();
       results = runChecks(record).results.length;
       times.push(performance.now() - t0);
     }
+    const cpu = process.cpuUsage(cpu0);
+    const cpuMsPerRun = (cpu.user + cpu.system) / 1000 / runs;
     const parseTimes: number[] = [];
     for (let i = 0; i < 5; i++) {
       const t0 = performance.now();
@@ -86,14 +90,17 @@ function main(): void {
       parseTimes.push(performance.now() - t0);
     }
     const med = median(times);
-    rows.push([String(record.circuits.length), String(results), String(runs), med.toFixed(2), ((med * 1000) / record.circuits.length).toFixed(1), median(parseTimes).toFixed(2)]);
+    rows.push([String(record.circuits.length), String(results), String(runs), med.toFixed(2), ((med * 1000) / record.circuits.length).toFixed(1), cpuMsPerRun.toFixed(2), median(parseTimes).toFixed(2)]);
   }
   const widths = rows[0]!.map((_, c) => Math.max(...rows.map((r) => r[c]!.length)));
   for (const [i, r] of rows.entries()) {
     process.stdout.write(r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]!) : cell.padStart(widths[c]!))).join("  ") + "\n");
     if (i === 0) process.stdout.write(widths.map((w) => "-".repeat(w)).join("  ") + "\n");
   }
-  process.stdout.write("\nmedian of repeated full runChecks calls (after warm-up); parse = zod validation of the same project\n");
+  const [load1] = loadavg();
+  process.stdout.write(
+    `\nmedian wall time of repeated full runChecks calls (after warm-up); cpu = this process's CPU time per run (less sensitive to a busy machine);\nparse = zod validation of the same project. Load average ${load1!.toFixed(1)} on ${cpus().length} cores.\n`,
+  );
 }
 
 if (process.argv[1]?.endsWith("bench-checks.ts")) main();

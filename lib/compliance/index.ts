@@ -18,14 +18,12 @@ export { CHECK_STATUSES } from "./types";
 export { loadSummary, type LoadSummary } from "./load-summary";
 export { CHECKS } from "./registry";
 
-const SEVERITY: Record<CheckStatus, number> = Object.fromEntries(CHECK_STATUSES.map((s, i) => [s, i])) as Record<CheckStatus, number>;
-
 export function runChecks(record: ProjectRecord, options: CheckRunOptions = {}): CheckRun {
   const edition: NecEdition = options.edition ?? record.jurisdiction.necEdition;
   const ctx = buildContext(record, edition);
-  const tagged: { r: CheckResult; order: number; seq: number }[] = [];
-  let seq = 0;
-  CHECKS.forEach((check, order) => {
+  // Buckets per status, filled in catalogue order: a stable sort by severity then catalogue, in linear time.
+  const buckets = Object.fromEntries(CHECK_STATUSES.map((st) => [st, [] as CheckResult[]])) as Record<CheckStatus, CheckResult[]>;
+  for (const check of CHECKS) {
     const results = check.run(ctx);
     if (results.length === 0) {
       results.push(
@@ -39,13 +37,11 @@ export function runChecks(record: ProjectRecord, options: CheckRunOptions = {}):
     }
     for (const r of results) {
       if (r.formula === "") r.formula = CHECK_FORMULAS[check.id] ?? "";
-      tagged.push({ r, order, seq: seq++ });
+      buckets[r.status].push(r);
     }
-  });
-  tagged.sort((a, b) => SEVERITY[a.r.status] - SEVERITY[b.r.status] || a.order - b.order || a.seq - b.seq);
-  const counts = Object.fromEntries(CHECK_STATUSES.map((s) => [s, 0])) as Record<CheckStatus, number>;
-  for (const { r } of tagged) counts[r.status] += 1;
-  return { edition, results: tagged.map((x) => x.r), counts };
+  }
+  const counts = Object.fromEntries(CHECK_STATUSES.map((st) => [st, buckets[st].length])) as Record<CheckStatus, number>;
+  return { edition, results: CHECK_STATUSES.flatMap((st) => buckets[st]), counts };
 }
 
 export type ParseResult =

@@ -34,17 +34,19 @@ export function localRef(edition: NecEdition, topic: LocalTopic): string {
   return `NEC ${edition} ${SAME_IN_ALL_EDITIONS[topic]}`;
 }
 
-const cache = new Map<string, string>();
+const cache: Partial<Record<NecEdition, Map<CodeTopic, string>>> = {};
 
 /** Code references for several topics in one edition (cached: the same strings recur on every circuit). */
 export function refs(edition: NecEdition, ...topics: CodeTopic[]): string[] {
-  return topics.map((t) => {
-    const key = edition + t;
-    let ref = cache.get(key);
+  const byTopic = (cache[edition] ??= new Map());
+  const out: string[] = [];
+  for (const t of topics) {
+    let ref = byTopic.get(t);
     if (ref === undefined) {
       ref = codeRef(edition, t);
-      cache.set(key, ref);
+      byTopic.set(t, ref);
     }
-    return ref;
-  });
+    out.push(ref);
+  }
+  return out;
 }

@@ -26,21 +26,22 @@ function unique(list: string[]): string[] {
 }
 
 export function makeResult(def: Pick<CheckDefinition, "id" | "title">, parts: ResultParts): CheckResult {
-  const codeRefs = unique(parts.codeRefs);
-  return {
-    id: parts.subject !== undefined ? `${def.id}:${parts.subject}` : def.id,
+  const subject = parts.subject;
+  const r: CheckResult = {
+    id: subject !== undefined ? `${def.id}:${subject}` : def.id,
     checkId: def.id,
-    title: parts.subject !== undefined ? `${def.title}: ${parts.subject}` : def.title,
-    ...(parts.subject !== undefined ? { subject: parts.subject } : {}),
+    title: subject !== undefined ? `${def.title}: ${subject}` : def.title,
     status: parts.status,
     message: parts.message,
-    ...(parts.reason !== undefined ? { reason: parts.reason } : {}),
     values: parts.values ?? [],
     formula: parts.formula ?? "",
     inputs: parts.inputs ?? [],
-    missing: parts.missing ? unique(parts.missing) : [],
-    codeRefs,
+    missing: parts.missing && parts.missing.length ? unique(parts.missing) : [],
+    codeRefs: unique(parts.codeRefs),
   };
+  if (subject !== undefined) r.subject = subject;
+  if (parts.reason !== undefined) r.reason = parts.reason;
+  return r;
 }
 
 /** A needs-input result that names every missing field. */

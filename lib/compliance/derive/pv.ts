@@ -13,6 +13,10 @@ export interface ArrayParts {
 }
 
 export function arrayParts(ctx: CheckContext, tag: string): ArrayParts | undefined {
+  return memo(ctx, `array-parts:${tag}`, () => findArrayParts(ctx, tag));
+}
+
+function findArrayParts(ctx: CheckContext, tag: string): ArrayParts | undefined {
   const array = ctx.arrays.get(tag);
   if (!array) return undefined;
   const m = ctx.equipment.get(array.item.moduleTag);
