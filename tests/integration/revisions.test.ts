@@ -180,12 +180,36 @@ describe("a failed generation", () => {
     expect(row.error).toMatch(/^Step "datasheets": /);
     expect(row.error).toContain("cc-1-datasheet.pdf");
     expect([row.pdfPath, row.pdfSha256, row.docxPath, row.docxSha256, row.pageCount]).toEqual([null, null, null, null, null]);
+    expect(row.attachmentIds).toEqual([]);
     expect(filesUnder(packetsDir)).toEqual(before);
     expect(await codeOf(() => getRevisionFile(designer, started.revisionId, "pdf", { packetsDir }))).toBe("not-found");
 
     const next = startRevision(designer, id, { dispatch: noDispatch });
     expect(next.number).toBe(started.number + 1);
   }, 60_000);
+});
+
+describe("generation in its own process", () => {
+  it("renders in the detached worker while the caller carries on, and ends ready", async () => {
+    // The worker inherits this environment, so it opens the same temporary database and folders.
+    process.env.DATABASE_PATH = env.file;
+    process.env.PACKETS_DIR = packetsDir;
+    process.env.UPLOADS_DIR = uploadsDir;
+    const started = startRevision(designer, projectId);
+    expect(getRevision(designer, started.revisionId).state).toBe("generating");
+    const seen = new Set<string>();
+    let view = getRevision(designer, started.revisionId);
+    for (let waited = 0; view.state === "generating" && waited < 110_000; waited += 250) {
+      await new Promise((r) => setTimeout(r, 250));
+      view = getRevision(designer, started.revisionId);
+      seen.add(view.progressStep);
+    }
+    expect(view.error).toBeNull();
+    expect(view).toMatchObject({ state: "ready", progressStep: "done" });
+    expect(seen.size).toBeGreaterThan(1);
+    const pdf = await getRevisionFile(designer, started.revisionId, "pdf", { packetsDir });
+    expect(Buffer.from(pdf.bytes.subarray(0, 5)).toString("latin1")).toBe("%PDF-");
+  }, 120_000);
 });
 
 describe("who may generate", () => {
