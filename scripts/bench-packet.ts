@@ -2,7 +2,8 @@
  * Packet benchmark: a project with ten attached 20-page datasheets. Times the
  * whole packet (sheets, one-line, label artwork, datasheets merged and
  * stamped) against pdf-lib alone merging the same ten files, and prints the
- * ratio and the peak resident memory. Run: npx tsx scripts/bench-packet.ts
+ * ratio (wall time, and CPU time, which a shared machine disturbs less) and
+ * the peak resident memory. Run: npx tsx scripts/bench-packet.ts
  */
 import fs from "node:fs";
 import path from "node:path";
