@@ -62,6 +62,8 @@ export async function seedDemoRevisions(db: Db, orgId: string): Promise<void> {
         attachmentIds: documents.attachmentIds,
         isDraft: preflight.isDraft,
         createdBy: designer.id,
+        // The approved set predates its submission (first event 2026-11-02); the one in review is current.
+        ...(approved ? { createdAt: "2026-10-28T15:20:00.000Z" } : {}),
       })
       .returning()
       .get();
@@ -83,6 +85,7 @@ export async function seedDemoRevisions(db: Db, orgId: string): Promise<void> {
             expiresOn: licence.expiresOn,
           },
           approvedSha256: recordSha256,
+          createdAt: "2026-10-30T10:05:00.000Z",
         })
         .run();
       const submission = db
