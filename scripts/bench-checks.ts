@@ -72,7 +72,7 @@ function main(): void {
     if (!parsed.ok) throw new Error(parsed.issues.map((i) => `${i.path}: ${i.message}`).join("\n"));
     const record: ProjectRecord = parsed.record;
     const runs = n >= 2000 ? 15 : 41;
-    for (let i = 0; i < 3; i++) runChecks(record);
+    for (let i = 0; i < 10; i++) runChecks(record);
     const times: number[] = [];
     let results = 0;
     const cpu0 = process.cpuUsage();
