@@ -134,7 +134,7 @@ function ImportOutcome({ outcome }: { outcome: Outcome }) {
   const rows = [
     ...report.taken.map((t) => ({ row: t.row, kind: t.kind as string, name: `${t.manufacturer} ${t.model}`, ok: true, reasons: [] as string[] })),
     ...report.refused.map((r) => ({ row: r.row, kind: r.kind, name: `${r.manufacturer} ${r.model}`.trim(), ok: false, reasons: r.problems.map((p) => p.text) })),
-  ].sort((a, b) => a.row - b.row);
+  ].sort((a, b) => Number(a.ok) - Number(b.ok) || a.row - b.row); // refused rows first: they are the ones to fix
   return (
     <div className="mt-4" role="status" aria-live="polite">
       <p className="mb-2 text-sm">

@@ -129,10 +129,12 @@ export interface ItemFormProps {
   onSaved: (item: LibraryItemView) => void;
   onCancel: () => void;
   onReload?: () => void;
+  /** Told when the form gains or loses unsaved changes, so the page can ask before discarding them. */
+  onDirtyChange?: (dirty: boolean) => void;
 }
 
 /** Adds or edits one library item; every rating shows its unit, its allowed range and where the value usually comes from. */
-export function ItemForm({ kind, item, onSaved, onCancel, onReload }: ItemFormProps) {
+export function ItemForm({ kind, item, onSaved, onCancel, onReload, onDirtyChange }: ItemFormProps) {
   const uid = useId();
   const fields = useMemo(() => ratingFieldsForKind(kind), [kind]);
   const [serverError, setServerError] = useState<{ message: string; conflict: boolean } | null>(null);
@@ -162,6 +164,16 @@ export function ItemForm({ kind, item, onSaved, onCancel, onReload }: ItemFormPr
   useEffect(() => {
     headingRef.current?.focus();
   }, []);
+
+  const dirty = formState.isDirty;
+  useEffect(() => {
+    onDirtyChange?.(dirty);
+    if (!dirty) return;
+    const warn = (event: BeforeUnloadEvent) => event.preventDefault();
+    window.addEventListener("beforeunload", warn);
+    return () => window.removeEventListener("beforeunload", warn);
+  }, [dirty, onDirtyChange]);
+  useEffect(() => () => onDirtyChange?.(false), [onDirtyChange]);
 
   const onSubmit = handleSubmit(async (data) => {
     setServerError(null);

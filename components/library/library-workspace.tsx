@@ -1,7 +1,7 @@
 "use client";
 
 import { useQuery, useQueryClient } from "@tanstack/react-query";
-import { useCallback, useId, useMemo, useState } from "react";
+import { useCallback, useId, useMemo, useRef, useState } from "react";
 import { fetchJson } from "@/lib/fetch-json";
 import { EQUIPMENT_KINDS, KIND_LABELS, type EquipmentKind, type LibraryItemView } from "@/lib/schemas/library-item";
 import { ImportPanel } from "./import-panel";
@@ -29,6 +29,18 @@ export function LibraryWorkspace({ canEdit }: { canEdit: boolean }) {
   const [busyId, setBusyId] = useState<string | null>(null);
   // A remount after a conflict reload gives the form the fresh version and values.
   const [formKey, setFormKey] = useState(0);
+
+  const dirtyRef = useRef(false);
+  const onDirtyChange = useCallback((dirty: boolean) => {
+    dirtyRef.current = dirty;
+  }, []);
+  /** Opens another panel, asking first when the open form holds unsaved changes. */
+  const openPanel = useCallback((next: Panel) => {
+    if (dirtyRef.current && !window.confirm("Discard the unsaved changes in the open form?")) return false;
+    dirtyRef.current = false;
+    setPanel(next);
+    return true;
+  }, []);
 
   const refresh = useCallback(() => queryClient.invalidateQueries({ queryKey: ["library"] }), [queryClient]);
 
@@ -58,14 +70,17 @@ export function LibraryWorkspace({ canEdit }: { canEdit: boolean }) {
   );
   const onRetire = useCallback((i: LibraryItemView) => void setRetired(i, true), [setRetired]);
   const onRestore = useCallback((i: LibraryItemView) => void setRetired(i, false), [setRetired]);
-  const onEdit = useCallback((item: LibraryItemView) => {
-    setNotice(null);
-    setPanel({ mode: "edit", item });
-  }, []);
+  const onEdit = useCallback(
+    (item: LibraryItemView) => {
+      if (openPanel({ mode: "edit", item })) setNotice(null);
+    },
+    [openPanel],
+  );
 
   const reloadEdited = useCallback(async () => {
     if (panel?.mode !== "edit") return;
     const fresh = await fetchJson<{ item: LibraryItemView }>(`/api/library/${panel.item.id}`);
+    dirtyRef.current = false;
     setPanel({ mode: "edit", item: fresh.item });
     setFormKey((k) => k + 1);
     await refresh();
@@ -95,14 +110,14 @@ export function LibraryWorkspace({ canEdit }: { canEdit: boolean }) {
             type="button"
             className="btn"
             onClick={() => {
+              if (!openPanel({ mode: "add", kind: addKind })) return;
               setNotice(null);
-              setPanel({ mode: "add", kind: addKind });
               setFormKey((k) => k + 1);
             }}
           >
             Add item
           </button>
-          <button type="button" className="btn-quiet" onClick={() => setPanel({ mode: "import" })}>
+          <button type="button" className="btn-quiet" onClick={() => openPanel({ mode: "import" })}>
             Import CSV…
           </button>
           <a className="btn-quiet" href="/api/library/example-csv" download>
@@ -125,9 +140,11 @@ export function LibraryWorkspace({ canEdit }: { canEdit: boolean }) {
           key={`${panel.mode}-${panel.mode === "edit" ? panel.item.id : panel.kind}-${formKey}`}
           kind={panel.mode === "edit" ? panel.item.kind : panel.kind}
           item={panel.mode === "edit" ? panel.item : undefined}
-          onCancel={() => setPanel(null)}
+          onCancel={() => openPanel(null)}
           onReload={reloadEdited}
+          onDirtyChange={onDirtyChange}
           onSaved={(saved) => {
+            dirtyRef.current = false;
             setPanel(null);
             setNotice({ text: `${panel.mode === "edit" ? "Saved" : "Added"} ${saved.manufacturer} ${saved.model}.` });
             void refresh();

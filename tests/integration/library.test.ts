@@ -119,8 +119,13 @@ describe("equipment library services", () => {
     expect(listLibraryItems(designerA, { kind: "pv-module" }).map((i) => i.id)).toContain(item.id);
   });
 
-  it("filters by kind and refuses an unknown kind", () => {
+  it("filters by kind, or several kinds, and refuses an unknown kind", () => {
     expect(listLibraryItems(designerA, { kind: "battery" })).toEqual([]);
+    createLibraryItem(designerA, { kind: "battery", manufacturer: "Ostin Cells", model: "OC-12100", capacityKWh: 1.28 });
+    const kinds = listLibraryItems(designerA, { kind: "battery, pv-module" }).map((i) => i.kind);
+    expect(new Set(kinds)).toEqual(new Set(["battery", "pv-module"]));
+    expect(kinds.length).toBe(listLibraryItems(designerA).length);
+    expect(codeOf(() => listLibraryItems(designerA, { kind: "battery,solar-panel" }))).toBe("invalid");
     expect(codeOf(() => listLibraryItems(designerA, { kind: "solar-panel" }))).toBe("invalid");
   });
 });

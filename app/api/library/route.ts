@@ -4,7 +4,7 @@ import { handle, readJson } from "@/lib/http";
 import { createLibraryItem } from "@/lib/services/library/create";
 import { listLibraryItems } from "@/lib/services/library/list";
 
-/** GET /api/library?kind=<kind>&includeRetired=0|1 → { items }; the project editor's picker reads this. */
+/** GET /api/library?kind=<kind>[,<kind>…]&includeRetired=0|1 → { items }; the project editor's picker reads this. */
 export const GET = handle(async (request: Request) => {
   const ctx = await requireContext();
   const url = new URL(request.url);
