@@ -180,7 +180,6 @@ describe("a failed generation", () => {
     expect(row.error).toMatch(/^Step "datasheets": /);
     expect(row.error).toContain("cc-1-datasheet.pdf");
     expect([row.pdfPath, row.pdfSha256, row.docxPath, row.docxSha256, row.pageCount]).toEqual([null, null, null, null, null]);
-    expect(row.attachmentIds).toEqual([]);
     expect(filesUnder(packetsDir)).toEqual(before);
     expect(await codeOf(() => getRevisionFile(designer, started.revisionId, "pdf", { packetsDir }))).toBe("not-found");
 

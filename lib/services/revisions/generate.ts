@@ -45,7 +45,6 @@ export function failRevision(db: Db, revisionId: string, reason: string, step?: 
     .set({
       state: "failed",
       error: `Step "${step ?? row.progressStep}": ${reason}`,
-      attachmentIds: [],
       pdfPath: null,
       pdfSha256: null,
       pageCount: null,
@@ -225,9 +224,9 @@ export async function generateRevisionArtifacts(db: Db, revisionId: string, opti
   } catch (error) {
     for (const file of written) await removePacketFile(root, file.key).catch(() => undefined);
     const reason = reasonOf(error);
-    // A failed revision holds nothing: no files, and no claim on attachments that would stop their deletion.
+    // The attachment ids stay, so an approved revision whose stamped rendering failed can be rendered again.
     db.update(packetRevisions)
-      .set({ state: "failed", error: `Step "${step}": ${reason}`, attachmentIds: [], pdfPath: null, pdfSha256: null, pageCount: null, docxPath: null, docxSha256: null })
+      .set({ state: "failed", error: `Step "${step}": ${reason}`, pdfPath: null, pdfSha256: null, pageCount: null, docxPath: null, docxSha256: null })
       .where(and(eq(packetRevisions.id, row.id), stillOurs))
       .run();
   }
