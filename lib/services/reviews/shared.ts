@@ -41,7 +41,8 @@ export function snapshotRun(row: Pick<PacketRevision, "resultsSnapshot">): Check
 }
 
 export function resultLabel(result: Pick<CheckResult, "title" | "subject">): string {
-  return result.subject ? `${result.title} (${result.subject})` : result.title;
+  // Titles of per-item checks often name their subject already ("… : C-2").
+  return result.subject && !result.title.includes(result.subject) ? `${result.title} (${result.subject})` : result.title;
 }
 
 /** How a note's target is named to the designer: "Check: Conductor ampacity (PV-1)", "Sheet E-003 Calculations". */
