@@ -142,6 +142,24 @@ function labelTable(l: PacketInput["labels"][number]): FileChild[] {
   ];
 }
 
+/** Pixel size from a PNG header or a JPEG start-of-frame marker, so the picture keeps its proportions. */
+export function imageSize(bytes: Uint8Array, type: "png" | "jpeg"): { width: number; height: number } | null {
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  if (type === "png") return bytes.length >= 24 ? { width: view.getUint32(16), height: view.getUint32(20) } : null;
+  let i = 2;
+  while (i + 9 < bytes.length) {
+    if (bytes[i] !== 0xff) return null;
+    const marker = bytes[i + 1]!;
+    const length = view.getUint16(i + 2);
+    // SOF0…SOF15 except DHT (C4), JPG (C8) and DAC (CC) carry the frame size.
+    if (marker >= 0xc0 && marker <= 0xcf && marker !== 0xc4 && marker !== 0xc8 && marker !== 0xcc) {
+      return { height: view.getUint16(i + 5), width: view.getUint16(i + 7) };
+    }
+    i += 2 + length;
+  }
+  return null;
+}
+
 function blockChildren(block: Block, input: PacketInput): FileChild[] {
   switch (block.kind) {
     case "heading":
@@ -179,9 +197,12 @@ function blockChildren(block: Block, input: PacketInput): FileChild[] {
       if (block.figure === "site-plan") {
         const sp = input.sitePlan;
         if (sp && sp.type !== "pdf") {
+          const size = imageSize(sp.bytes, sp.type) ?? { width: 3, height: 2 };
+          // 9 × 5.5 in of a landscape letter page, at the 96 px per inch docx measures in.
+          const scale = Math.min((9 * 96) / size.width, (5.5 * 96) / size.height);
           return [
             new Paragraph({
-              children: [new ImageRun({ type: sp.type === "png" ? "png" : "jpg", data: sp.bytes, transformation: { width: 600, height: 400 }, altText: { name: "Site plan", description: sp.fileName, title: "Site plan" } })],
+              children: [new ImageRun({ type: sp.type === "png" ? "png" : "jpg", data: sp.bytes, transformation: { width: Math.round(size.width * scale), height: Math.round(size.height * scale) }, altText: { name: "Site plan", description: sp.fileName, title: "Site plan" } })],
             }),
           ];
         }

@@ -104,7 +104,12 @@ export type TemplateValidation = { ok: true } | { ok: false; line: number; messa
 interface Scope {
   shape: Shape;
   inEach: boolean;
+  /** Inside {{#if approved}} / {{#if approval}}, where the approval's fields exist. */
+  approvalGuarded: boolean;
 }
+
+/** Present only once a reviewer approves; the rest of the time it is empty and its fields do not exist. */
+const APPROVAL_ONLY = "approval";
 
 class UnknownVariable extends Error {
   constructor(
@@ -127,13 +132,27 @@ function resolvePath(p: hbs.AST.PathExpression, stack: Scope[]): Shape {
   const top = stack[stack.length - 1]!;
   if (p.data) {
     const [head, ...rest] = p.parts;
-    if (head === "root") return walkParts(stack[0]!.shape, rest, p.original, line);
+    if (head === "root") {
+      guardApproval(rest, top, p.original, line);
+      return walkParts(stack[0]!.shape, rest, p.original, line);
+    }
     if (top.inEach && ["index", "first", "last", "key"].includes(head ?? "")) return S;
     throw new UnknownVariable(p.original, line, `unknown variable "${p.original}"`);
   }
   const scope = stack[stack.length - 1 - p.depth];
   if (!scope) throw new UnknownVariable(p.original, line, `"${p.original}" climbs above the top of the template`);
+  if (scope === stack[0]) guardApproval(p.parts, top, p.original, line);
   return walkParts(scope.shape, p.parts, p.original, line);
+}
+
+function guardApproval(parts: string[], current: Scope, original: string, line: number) {
+  if (parts[0] === APPROVAL_ONLY && parts.length > 1 && !current.approvalGuarded) {
+    throw new UnknownVariable(
+      original,
+      line,
+      `"${original}" exists only on an approved revision; put it inside {{#if approved}} … {{/if}}`,
+    );
+  }
 }
 
 function walkParts(shape: Shape, parts: string[], original: string, line: number): Shape {
@@ -149,6 +168,13 @@ function walkParts(shape: Shape, parts: string[], original: string, line: number
     current = current[part]!;
   }
   return current;
+}
+
+function isApprovalPath(node: hbs.AST.Expression | undefined): boolean {
+  if (!node || node.type !== "PathExpression") return false;
+  const p = node as hbs.AST.PathExpression;
+  const parts = p.data && p.parts[0] === "root" ? p.parts.slice(1) : p.parts;
+  return parts.length === 1 && (parts[0] === "approved" || parts[0] === APPROVAL_ONLY);
 }
 
 function checkExpression(node: hbs.AST.Expression, stack: Scope[]): Shape | null {
@@ -194,6 +220,7 @@ function walk(node: Node, stack: Scope[]): void {
       const p = b.path as hbs.AST.PathExpression;
       const name = p.original;
       const line = p.loc?.start.line ?? 1;
+      const top = stack[stack.length - 1]!;
       if (!BLOCK_HELPERS.has(name)) {
         throw new UnknownVariable(name, line, `unknown block helper "${name}" (use if, unless, each or with)`);
       }
@@ -205,12 +232,14 @@ function walk(node: Node, stack: Scope[]): void {
         if (!argShape || !Array.isArray(argShape)) {
           throw new UnknownVariable(arg && "original" in arg ? String(arg.original) : name, line, `#each needs a list`);
         }
-        inner = [...stack, { shape: (argShape as readonly [Shape])[0], inEach: true }];
+        inner = [...stack, { shape: (argShape as readonly [Shape])[0], inEach: true, approvalGuarded: top.approvalGuarded }];
       } else if (name === "with") {
         if (!argShape || !isObjectShape(argShape)) {
           throw new UnknownVariable(arg && "original" in arg ? String(arg.original) : name, line, `#with needs an object`);
         }
-        inner = [...stack, { shape: argShape, inEach: false }];
+        inner = [...stack, { shape: argShape, inEach: false, approvalGuarded: top.approvalGuarded || isApprovalPath(arg) }];
+      } else if (name === "if" && isApprovalPath(arg)) {
+        inner = [...stack.slice(0, -1), { ...top, approvalGuarded: true }];
       }
       if (b.program) walk(b.program, inner);
       if (b.inverse) walk(b.inverse, stack);
@@ -242,7 +271,7 @@ export function validateTemplate(name: SheetTemplateName | string, source: strin
     return { ok: false, line, message: `syntax error: ${first}${expecting ? ` (expecting ${expecting})` : ""}` };
   }
   try {
-    walk(ast, [{ shape: TEMPLATE_CONTEXT_SHAPE, inEach: false }]);
+    walk(ast, [{ shape: TEMPLATE_CONTEXT_SHAPE, inEach: false, approvalGuarded: false }]);
   } catch (error) {
     if (error instanceof UnknownVariable) {
       return { ok: false, line: error.line, message: `line ${error.line}: ${error.message}`, name: error.variable };

@@ -1,8 +1,8 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { renderPacketDocx } from "@/lib/packet/docx";
+import { imageSize, renderPacketDocx } from "@/lib/packet/docx";
 import { formatNumber } from "@/lib/packet/format";
 import { AHJ_FOOTER, REVIEW_MARKING, SHEET_PLAN } from "@/lib/packet/model";
-import { PV_OUTPUT_ALLOWED_A, fixtureInput, fixtureRecord, makeDatasheetPdf } from "./fixtures";
+import { PV_OUTPUT_ALLOWED_A, fixtureInput, fixtureRecord, makeDatasheetPdf, makePng } from "./fixtures";
 import { readZip, wordTableRows, wordText } from "./zip";
 
 function part(zip: Map<string, Buffer>, pattern: RegExp): string {
@@ -90,5 +90,15 @@ describe("permit packet DOCX", () => {
     expect(header).toContain("PE-E 40417");
     expect(footer).toContain(AHJ_FOOTER);
     expect(header + footer + body).not.toContain(REVIEW_MARKING);
+  });
+
+  it("embeds a site photo at its own proportions", async () => {
+    expect(imageSize(makePng(300, 120, [10, 20, 30]), "png")).toEqual({ width: 300, height: 120 });
+    const bytes = await renderPacketDocx(fixtureInput({ sitePlan: { bytes: makePng(300, 120, [10, 20, 30]), type: "png", fileName: "site.png" } }));
+    const z = readZip(bytes);
+    expect([...z.keys()].some((k) => k.startsWith("word/media/"))).toBe(true);
+    const extent = /<wp:extent cx="(\d+)" cy="(\d+)"/.exec(z.get("word/document.xml")!.toString("utf8"));
+    expect(extent).not.toBeNull();
+    expect(Number(extent![1]) / Number(extent![2])).toBeCloseTo(2.5, 2);
   });
 });

@@ -39,6 +39,14 @@ describe("validateTemplate", () => {
     expect(validateTemplate("cover", "{{#each project.name}}{{/each}}")).toMatchObject({ ok: false, name: "project.name" });
   });
 
+  it("accepts the approval's fields only where the revision is known to be approved", () => {
+    expect(validateTemplate("cover", "Stamped by {{approval.reviewerName}}")).toMatchObject({ ok: false, line: 1, name: "approval.reviewerName" });
+    expect(validateTemplate("cover", "{{#if approved}}\nStamped by {{approval.reviewerName}}\n{{/if}}")).toEqual({ ok: true });
+    expect(validateTemplate("cover", "{{#with approval}}{{licenceNumber}}{{/with}}")).toEqual({ ok: true });
+    expect(validateTemplate("cover", "{{#if approved}}{{#each sheets}}{{../approval.licenceNumber}}{{/each}}{{/if}}")).toEqual({ ok: true });
+    expect(validateTemplate("cover", "{{#if approved}}yes{{else}}\n{{approval.approvedAt}}{{/if}}")).toMatchObject({ ok: false, line: 2 });
+  });
+
   it("refuses unknown helpers and partials", () => {
     expect(validateTemplate("cover", "x\n{{shout project.name}}")).toMatchObject({ ok: false, line: 2, name: "shout" });
     expect(validateTemplate("cover", "{{> letterhead}}")).toMatchObject({ ok: false, line: 1 });
