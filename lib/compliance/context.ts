@@ -182,6 +182,12 @@ export function v(key: string, label: string, value: number | string | boolean, 
   return { key, label, value: typeof value === "number" ? round(value, 3) : value, unit };
 }
 
+/** "10 AWG", "3/0 AWG", "250 kcmil" — as written on a conductor schedule. */
+export function sizeLabel(size: string, material?: "cu" | "al"): string {
+  const unit = /^\d+$/.test(size) && Number(size) >= 250 ? "kcmil" : "AWG";
+  return `${size} ${unit}${material ? (material === "cu" ? " Cu" : " Al") : ""}`;
+}
+
 export function tagLabel(e: { tag: string; manufacturer?: string; model?: string }): string {
   const name = [e.manufacturer, e.model].filter((s) => s && s.length > 0).join(" ");
   return name ? `${e.tag} (${name})` : e.tag;

@@ -1,5 +1,5 @@
 /** 4. Conductor ampacity with conditions of use (690.8(B), 310.15, Table 310.16, 110.14(C)). */
-import { isPvCircuit, type CheckContext } from "../context";
+import { isPvCircuit, sizeLabel, type CheckContext } from "../context";
 import { conductorAmpacity } from "../derive/conductor";
 import { localRef, refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
@@ -29,12 +29,12 @@ export const conductorAmpacityCheck: CheckDefinition = {
       const a = d.value;
       const problems: string[] = [];
       if (a.tableAtTerminalA === undefined || a.tableAtInsulationA === undefined) {
-        problems.push(`Table 310.16 gives no ${a.terminalRatingC} °C ampacity for ${c.size} AWG ${c.material}`);
+        problems.push(`Table 310.16 gives no ${a.terminalRatingC} °C ampacity for ${sizeLabel(c.size!, c.material)}`);
       } else {
         if (a.correction === undefined) problems.push(`${a.insulationRatingC} °C insulation may not be used at ${a.ambientC} °C`);
         if (a.tableAtTerminalA * a.sets < a.requiredUnadjustedA) {
           problems.push(
-            `${c.size} ${c.material === "cu" ? "Cu" : "Al"} at the ${a.terminalRatingC} °C terminal column carries ${a.tableAtTerminalA * a.sets} A, less than the ${a.requiredUnadjustedA.toFixed(1)} A required`,
+            `${sizeLabel(c.size!, c.material)} at the ${a.terminalRatingC} °C terminal column carries ${a.tableAtTerminalA * a.sets} A, less than the ${a.requiredUnadjustedA.toFixed(1)} A required`,
           );
         }
         const corrected = a.correction !== undefined ? a.tableAtInsulationA * a.correction * a.adjustment * a.sets : 0;
@@ -52,7 +52,7 @@ export const conductorAmpacityCheck: CheckDefinition = {
           status,
           message:
             status === "pass"
-              ? `${c.tag}: ${c.size} ${c.material === "cu" ? "Cu" : "Al"} allows ${a.allowedA!.toFixed(1)} A for a ${a.current.currentA.toFixed(1)} A circuit${a.terminalAssumed ? ` (terminals taken as ${a.terminalRatingC} °C per 110.14(C)(1); record the rating)` : ""}.`
+              ? `${c.tag}: ${sizeLabel(c.size!, c.material)} allows ${a.allowedA!.toFixed(1)} A for a ${a.current.currentA.toFixed(1)} A circuit${a.terminalAssumed ? ` (terminals taken as ${a.terminalRatingC} °C per 110.14(C)(1); record the rating)` : ""}.`
               : `${c.tag}: ${problems.join("; ")}.`,
           ...(status === "fail" ? { reason: problems.join("; ") } : a.terminalAssumed ? { reason: "terminal temperature rating not recorded; the 110.14(C)(1) default was used" } : {}),
           values: d.values,

@@ -4,7 +4,7 @@
  * (for an unprotected PV circuit, the device 690.9(B) would call for).
  */
 import { compareConductorSize, minimumEgcSize, nextStandardOcpdRatingA } from "../tables";
-import { isDcCircuit, isPvCircuit, Trace, v, type CheckContext, isProtective } from "../context";
+import { isDcCircuit, isPvCircuit, sizeLabel, Trace, v, type CheckContext, isProtective } from "../context";
 import { circuitCurrent } from "../derive/circuit-current";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
@@ -67,8 +67,8 @@ export const grounding: CheckDefinition = {
           subject: c.tag,
           status: ok ? "pass" : "fail",
           message: ok
-            ? `${c.tag}: ${egc} ${c.egcMaterial === "cu" ? "Cu" : "Al"} EGC meets the ${required} minimum for ${basis}.`
-            : `${c.tag}: ${egc} EGC is smaller than the ${required} that Table 250.122 requires for ${basis}.`,
+            ? `${c.tag}: ${sizeLabel(egc, c.egcMaterial)} EGC meets the ${sizeLabel(required)} minimum for ${basis}.`
+            : `${c.tag}: ${sizeLabel(egc, c.egcMaterial)} EGC is smaller than the ${sizeLabel(required)} that Table 250.122 requires for ${basis}.`,
           ...(ok ? {} : { reason: `EGC ${egc} below ${required}` }),
           values,
           formula: `Table 250.122 at ${ocpdA} A, ${c.egcMaterial} → ${table}${required !== table ? `, limited to the circuit conductor ${required} (250.122(A))` : ""}`,

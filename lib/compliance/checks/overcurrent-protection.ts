@@ -5,7 +5,7 @@
  * module's series fuse rating are fused.
  */
 import { nextStandardOcpdRatingA, smallConductorMaxOcpdA, STANDARD_OCPD_RATINGS_A, standardOcpdRatingsA } from "../tables";
-import { isPvCircuit, Trace, v, type CheckContext } from "../context";
+import { isPvCircuit, sizeLabel, Trace, v, type CheckContext } from "../context";
 import { circuitCurrent } from "../derive/circuit-current";
 import { conductorAmpacity } from "../derive/conductor";
 import { arrayIsc, arrayParts } from "../derive/pv";
@@ -183,10 +183,10 @@ export const overcurrentProtection: CheckDefinition = {
       ];
       if (small !== undefined) values.push(v("smallConductorMaxA", `240.4(D) limit for ${size} AWG ${c.material}`, small, "A"));
       if (small !== undefined && rating > small) {
-        problems.push(`${size} AWG ${c.material === "cu" ? "copper" : "aluminium"} may be protected at no more than ${small} A (240.4(D)); ${e.tag} is ${rating} A`);
+        problems.push(`${e.tag} is ${rating} A, but ${size} AWG ${c.material === "cu" ? "copper" : "aluminium"} may be protected at no more than ${small} A (240.4(D))`);
       }
       if (maxByAmpacity !== undefined && rating > maxByAmpacity) {
-        problems.push(`${e.tag} at ${rating} A does not protect ${size} ${c.material === "cu" ? "Cu" : "Al"} conductors good for ${allowed!.toFixed(1)} A (largest allowed ${maxByAmpacity} A)`);
+        problems.push(`${rating} A is above the ${allowed!.toFixed(1)} A the ${sizeLabel(size, c.material)} conductors carry (largest device ${maxByAmpacity} A, 240.4(B))`);
       }
       if (maxByAmpacity === undefined) problems.push(`the conductor has no usable ampacity to protect`);
       const kind = e.kind === "fuse" ? "fuse" : "breaker";
