@@ -64,11 +64,14 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
   const usableWh = s.usableStorageWh;
   const shortWh = usableWh !== null ? neededWh - usableWh : null;
   const batteries = record.equipment.filter((e) => e.kind === "battery");
+  // A grid-interactive system has the grid for the days without sun: storage is backup, so a shortfall is no warning.
+  const hybrid = record.systemKind === "hybrid";
+  const SLATE_SOFT = "#8796a8";
 
   const energyHeight = Math.max(120, 44 + bars.length * 30);
   const storageData = [
     { name: `Needed, ${targetDays} d`, kwh: neededWh / 1000, fill: SLATE },
-    ...(usableWh !== null ? [{ name: "Usable storage", kwh: usableWh / 1000, fill: shortWh !== null && shortWh > 0 ? CAUTION : OK }] : []),
+    ...(usableWh !== null ? [{ name: "Usable storage", kwh: usableWh / 1000, fill: hybrid ? SLATE_SOFT : shortWh !== null && shortWh > 0 ? CAUTION : OK }] : []),
   ];
 
   return (
@@ -79,6 +82,9 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
           <figcaption id={`${uid}-energy-cap`} className="field-label mb-2">
             Daily energy by load
           </figcaption>
+          {bars.length > 0 && record.loads.length === 0 ? (
+            <p className="px-2 pb-2 text-sm text-ink-soft">No loads recorded yet; only the inverter idle draw is counted.</p>
+          ) : null}
           {bars.length === 0 ? (
             <p className="px-2 py-6 text-sm text-ink-soft">No loads recorded yet. Add the loads to see the daily energy.</p>
           ) : (
@@ -131,23 +137,23 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
                     {b.idle ? <span aria-hidden="true" className="mr-1 text-brass">◆</span> : null}
                     {b.name}
                   </td>
-                  <td className="figure text-xs text-ink-soft">{b.detail}</td>
-                  <td className="figure text-right">{wh(b.wh)}</td>
+                  <td className="figure whitespace-nowrap text-xs text-ink-soft">{b.detail}</td>
+                  <td className="figure whitespace-nowrap text-right">{wh(b.wh)}</td>
                 </tr>
               ))}
               <tr>
                 <td className="font-semibold" colSpan={2}>
                   Daily need
                 </td>
-                <td className="figure text-right font-semibold">{wh(s.dailyTotalWh)}</td>
+                <td className="figure whitespace-nowrap text-right font-semibold">{wh(s.dailyTotalWh)} Wh</td>
               </tr>
               <tr>
                 <td colSpan={2}>Peak simultaneous power</td>
-                <td className="figure text-right">{wh(s.peakSimultaneousW)} W</td>
+                <td className="figure whitespace-nowrap text-right">{wh(s.peakSimultaneousW)} W</td>
               </tr>
               <tr>
                 <td colSpan={2}>Largest starting surge</td>
-                <td className="figure text-right">{wh(s.largestSurgeW)} W</td>
+                <td className="figure whitespace-nowrap text-right">{wh(s.largestSurgeW)} W</td>
               </tr>
             </tbody>
           </table>
@@ -203,23 +209,23 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
             <tbody>
               <tr>
                 <td>Daily need</td>
-                <td className="figure text-right">{wh(s.dailyTotalWh)} Wh</td>
+                <td className="figure whitespace-nowrap text-right">{wh(s.dailyTotalWh)} Wh</td>
               </tr>
               <tr>
                 <td>{daysGiven !== undefined ? "Days of autonomy designed for" : "Days of autonomy (common practice, not set)"}</td>
-                <td className="figure text-right">{targetDays} d</td>
+                <td className="figure whitespace-nowrap text-right">{targetDays} d</td>
               </tr>
               <tr>
                 <td>Needed: daily need × days</td>
-                <td className="figure text-right">{kwh(neededWh)} kWh</td>
+                <td className="figure whitespace-nowrap text-right">{kwh(neededWh)} kWh</td>
               </tr>
               <tr>
                 <td>Usable storage: Σ kWh × qty × depth of discharge</td>
-                <td className="figure text-right">{usableWh !== null ? `${kwh(usableWh)} kWh` : "unknown"}</td>
+                <td className="figure whitespace-nowrap text-right">{usableWh !== null ? `${kwh(usableWh)} kWh` : "unknown"}</td>
               </tr>
               <tr>
                 <td className="font-semibold">Days the storage carries</td>
-                <td className="figure text-right font-semibold">{s.autonomyDays !== null ? `${s.autonomyDays.toFixed(1)} d` : "—"}</td>
+                <td className="figure whitespace-nowrap text-right font-semibold">{s.autonomyDays !== null ? `${s.autonomyDays.toFixed(1)} d` : "—"}</td>
               </tr>
             </tbody>
           </table>
@@ -230,6 +236,10 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
                 {batteries.length === 0
                   ? "No battery in the equipment yet."
                   : "Usable storage needs each battery's energy (kWh, or Ah and nominal voltage) and usable depth of discharge."}
+              </span>
+            ) : hybrid ? (
+              <span className="text-ink-soft">
+                Grid-interactive: the grid carries the days without sun; the storage carries {s.autonomyDays?.toFixed(1) ?? "—"} d of the full daily need as backup.
               </span>
             ) : shortWh !== null && shortWh > 0 ? (
               <span className="text-caution">
@@ -242,9 +252,6 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
             )}{" "}
             <span className="text-ink-soft">Sizing by common practice; the designer and the AHJ decide.</span>
           </p>
-          {record.systemKind === "hybrid" ? (
-            <p className="border-t border-grid px-3 py-2 text-xs text-ink-soft">Grid-interactive system: shown for backup sizing only.</p>
-          ) : null}
         </div>
       </div>
     </section>
