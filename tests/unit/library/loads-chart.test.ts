@@ -13,7 +13,7 @@ function example(name: string): ProjectRecord {
   return parsed.record;
 }
 
-const text = (html: string) => html.replace(/<[^>]+>/g, " ").replace(/\s+/g, " ");
+const text = (html: string) => html.replace(/<[^>]+>/g, " ").replace(/&#x27;/g, "'").replace(/\s+/g, " ");
 
 describe("loads and autonomy figures", () => {
   it("gives every figure of the hut in the tables beside the charts", () => {
