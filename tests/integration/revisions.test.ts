@@ -217,9 +217,13 @@ describe("who may generate", () => {
     expect(await codeOf(() => startRevision(ctx, projectId, { dispatch: noDispatch }))).toBe("forbidden");
   });
 
-  it("refuses a second generation while one is running", async () => {
+  it("refuses a second generation while one is running, and closes one whose process was lost", async () => {
     const id = project(designer, "Hut generated twice");
-    startRevision(designer, id, { dispatch: noDispatch });
+    const first = startRevision(designer, id, { dispatch: noDispatch });
     expect(await codeOf(() => startRevision(designer, id, { dispatch: noDispatch }))).toBe("conflict");
+    const later = new Date(Date.now() + 11 * 60 * 1000);
+    const second = startRevision(designer, id, { dispatch: noDispatch, now: later });
+    expect(second.number).toBe(first.number + 1);
+    expect(getRevision(designer, first.revisionId)).toMatchObject({ state: "failed", error: 'Step "queued": the generation stopped without finishing.' });
   });
 });

@@ -39,7 +39,9 @@ export function startRevision(ctx: ServiceContext, projectId: string, options: S
       .select()
       .from(packetRevisions)
       .where(and(eq(packetRevisions.orgId, ctx.orgId), eq(packetRevisions.projectId, stored.projectId), eq(packetRevisions.state, "generating")))
-      .all();
+      .all()
+      // A stamped set being rendered again after approval is not a new generation, and its createdAt says nothing of when that began.
+      .filter((r) => r.reviewState === "draft");
     for (const r of running) {
       const age = now.getTime() - Date.parse(r.createdAt);
       if (age < STALE_GENERATION_MS) throw conflict(`Revision ${r.number} is still being generated; wait for it to finish.`);
