@@ -23,7 +23,8 @@ export interface ReviewDeskProps {
   edition: string | null;
   groups: { status: CheckStatus; results: ReviewCheck[] }[];
   sheets: readonly { code: string; title: string }[];
-  failCount: number;
+  /** Points a person must confirm on site, which a stamp does not settle. */
+  attestCount: number;
   mayDecide: boolean;
   reviewerName: string;
   /** The reviewer's own licence as the stamp will print it, with what blocks an approval. */
@@ -269,9 +270,11 @@ export function ReviewDesk(props: ReviewDeskProps) {
             <p className="mt-3 border-l-4 border-l-caution bg-caution-soft px-3 py-2 text-sm" data-testid="approve-blocked">
               <span aria-hidden="true">▲ </span>
               Before you can approve: {blockers.join("; ")}.{" "}
-              <Link href="/reviews/licence" className="underline underline-offset-2">
-                Your licence and stamp
-              </Link>
+              {licence && licence.blockers.length === 0 ? null : (
+                <Link href="/reviews/licence" className="underline underline-offset-2">
+                  Your licence and stamp
+                </Link>
+              )}
             </p>
           ) : null}
           <div className="mt-4 flex flex-wrap items-center gap-3">
@@ -349,10 +352,10 @@ export function ReviewDesk(props: ReviewDeskProps) {
             <p className="mt-2 text-sm leading-relaxed text-ink-soft">
               The approval is bound to this revision&apos;s record. Any change to the design makes a new revision that needs review again. Local codes and the AHJ still govern.
             </p>
-            {props.failCount > 0 ? (
-              <p className="mt-2 border-l-4 border-l-signal px-3 py-1.5 text-sm">
-                <span aria-hidden="true">■ </span>
-                {props.failCount} check{props.failCount === 1 ? " fails" : "s fail"} in this revision. Your stamp says you accept the design as it stands.
+            {props.attestCount > 0 ? (
+              <p className="mt-2 border-l-4 border-l-brass px-3 py-1.5 text-sm">
+                <span aria-hidden="true">☐ </span>
+                {props.attestCount} point{props.attestCount === 1 ? " is" : "s are"} to be confirmed on site; your stamp does not settle {props.attestCount === 1 ? "it" : "them"}.
               </p>
             ) : null}
             <label className="mt-4 flex items-start gap-2 text-sm">

@@ -12,6 +12,7 @@ import { ServiceError } from "../../lib/services/errors";
 import { createProject } from "../../lib/services/projects/create";
 import { getProjectRecord } from "../../lib/services/projects/get-record";
 import { saveProjectRecord } from "../../lib/services/projects/save-record";
+import { uploadAttachment } from "../../lib/services/attachments";
 import { generateRevisionArtifacts, getRevisionFile, startRevision } from "../../lib/services/revisions";
 import {
   decideReview,
@@ -98,6 +99,29 @@ function firstFailingResult(revisionId: string): { id: string; title: string } {
   const ws = getReviewWorkspace(reviewer, revisionId);
   const fail = ws.groups.find((g) => g.status === "fail") ?? ws.groups[0]!;
   return fail.results[0]!;
+}
+
+const stall = projectRecordSchema.parse(JSON.parse(fs.readFileSync("examples/market-stall.json", "utf8")));
+const stallJurisdiction = makeJurisdiction(db, org.id, stall.jurisdiction.necEdition);
+
+async function onePagePdf(label: string): Promise<Uint8Array> {
+  const doc = await PDFDocument.create();
+  doc.addPage([612, 792]).drawText(label, { x: 72, y: 700, size: 14, font: await doc.embedFont(StandardFonts.Helvetica) });
+  return doc.save();
+}
+
+/** The market stall with every document its jurisdiction asks for, so its revision is complete rather than a draft. */
+async function completeRevision(name: string): Promise<{ projectId: string; revisionId: string }> {
+  const { id } = createProject(designer, { name, client: stall.client, systemKind: stall.systemKind, jurisdictionId: stallJurisdiction.id, address: stall.site.address });
+  saveProjectRecord(designer, id, { ...stall, name }, getProjectRecord(designer, id).version);
+  for (const tag of ["MOD-1", "CC-1", "BAT-1", "INV-1"]) {
+    await uploadAttachment(designer, { projectId: id, kind: "datasheet", equipmentTag: tag, fileName: `${tag}.pdf`, bytes: await onePagePdf(`${name} ${tag} datasheet`) });
+  }
+  await uploadAttachment(designer, { projectId: id, kind: "storage-listing", equipmentTag: "BAT-1", fileName: "listing.pdf", bytes: await onePagePdf(`${name} storage listing`) });
+  await uploadAttachment(designer, { projectId: id, kind: "site-plan", fileName: "site.pdf", bytes: await onePagePdf(`${name} site plan`) });
+  const revisionId = await readyRevision(id);
+  expect(revisionRow(revisionId).isDraft, "the complete stall is not a draft").toBe(false);
+  return { projectId: id, revisionId };
 }
 
 let projectId = "";
@@ -237,9 +261,16 @@ describe("the reviewer's licence and stamp", () => {
 });
 
 describe("approving", () => {
+  let stallProjectId = "";
+  let approvable = "";
+  beforeAll(async () => {
+    ({ projectId: stallProjectId, revisionId: approvable } = await completeRevision("Market stall review copy"));
+    await sendForReview(designer, approvable, { deliver: noDelivery });
+  }, 90_000);
+
   it("refuses without a licence on file, with an expired licence, without a stamp, or unconfirmed", async () => {
-    const attempt = (ctx: ServiceContext, extra: Record<string, unknown> = {}) =>
-      codeOf(() => decideReview(ctx, { revisionId, decision: "approved", confirmStamp: true, ...extra }, { deliver: noDelivery, dispatch: render, now: NOW }));
+    const attempt = (ctx: ServiceContext, extra: Record<string, unknown> = {}, now = NOW) =>
+      codeOf(() => decideReview(ctx, { revisionId: approvable, decision: "approved", confirmStamp: true, ...extra }, { deliver: noDelivery, dispatch: render, now }));
     // secondReviewer has no licence record.
     expect(await attempt(secondReviewer)).toBe("invalid");
     // reviewer has a licence but no stamp yet.
@@ -247,14 +278,21 @@ describe("approving", () => {
     await uploadStampImage(reviewer, { fileName: "ines-stamp.png", bytes: makePng(240, 240, [150, 20, 30]) });
     expect(getOwnLicence(reviewer)!.stamp?.fileName).toBe("ines-stamp.png");
     expect(await attempt(reviewer, { confirmStamp: false })).toBe("invalid");
-    // Expired: the same licence read a few years on.
-    expect(await codeOf(() => decideReview(reviewer, { revisionId, decision: "approved", confirmStamp: true }, { deliver: noDelivery, dispatch: render, now: new Date("2029-01-01T00:00:00Z") }))).toBe("invalid");
+    // Expired: the same licence (good through 2028-07-31) read a few years on.
+    expect(await attempt(reviewer, {}, new Date("2029-01-01T00:00:00Z"))).toBe("invalid");
+    expect(revisionRow(approvable).reviewState).toBe("in-review");
+  });
+
+  it("refuses to stamp a draft: its cover says it is not complete for submittal", async () => {
+    expect(revisionRow(revisionId)).toMatchObject({ isDraft: true, reviewState: "in-review" });
+    const error = await decideReview(reviewer, { revisionId, decision: "approved", confirmStamp: true }, { deliver: noDelivery, dispatch: render, now: NOW }).catch((e: unknown) => e);
+    expect((error as ServiceError).code).toBe("invalid");
+    expect((error as ServiceError).issues[0]).toMatchObject({ path: "revision", message: "is a draft" });
     expect(revisionRow(revisionId).reviewState).toBe("in-review");
   });
 
   it("refuses a revision whose frozen record no longer matches its SHA-256", async () => {
-    const tamperedProject = newProject(designer, "Tamarack hut tampered copy");
-    const tampered = await readyRevision(tamperedProject);
+    const { revisionId: tampered } = await completeRevision("Market stall tampered copy");
     await sendForReview(designer, tampered, { deliver: noDelivery });
     const row = revisionRow(tampered);
     db.update(packetRevisions)
@@ -268,15 +306,15 @@ describe("approving", () => {
 
   it("snapshots the licence, binds the approval to the record hash and stamps every page, even after the project changed", async () => {
     // The designer keeps working after sending: the approval is of the snapshot that was reviewed.
-    const stored = getProjectRecord(designer, projectId);
-    saveProjectRecord(designer, projectId, { ...stored.record, client: `${stored.record.client} (changed)` }, stored.version);
-    const before = getReviewWorkspace(reviewer, revisionId);
+    const stored = getProjectRecord(designer, stallProjectId);
+    saveProjectRecord(designer, stallProjectId, { ...stored.record, client: `${stored.record.client} (changed)` }, stored.version);
+    const before = getReviewWorkspace(reviewer, approvable);
     expect(before.recordChangedSince).toBe(true);
     expect(before.mayDecide).toBe(true);
-    const pdfBefore = revisionRow(revisionId).pdfSha256;
+    const pdfBefore = revisionRow(approvable).pdfSha256;
 
-    const decided = await decideReview(reviewer, { revisionId, decision: "approved", generalNotes: "Reviewed.", confirmStamp: true }, { deliver: noDelivery, dispatch: render, now: NOW });
-    const row = revisionRow(revisionId);
+    const decided = await decideReview(reviewer, { revisionId: approvable, decision: "approved", generalNotes: "Reviewed.", confirmStamp: true }, { deliver: noDelivery, dispatch: render, now: NOW });
+    const row = revisionRow(approvable);
     expect(decided.approvedSha256).toBe(row.recordSha256);
     expect(row.reviewState).toBe("approved");
     expect(row.state).toBe("ready");
@@ -292,9 +330,9 @@ describe("approving", () => {
       expiresOn: licence.expiresOn,
     });
     expect(review.approvedSha256).toBe(row.recordSha256);
-    expect(db.select().from(projects).where(eq(projects.id, projectId)).get()!.status).toBe("approved");
+    expect(db.select().from(projects).where(eq(projects.id, stallProjectId)).get()!.status).toBe("approved");
 
-    const text = await readPdfText((await getRevisionFile(designer, revisionId, "pdf", { packetsDir })).bytes);
+    const text = await readPdfText((await getRevisionFile(designer, approvable, "pdf", { packetsDir })).bytes);
     text.pages.forEach((page, i) => {
       expect(page, `page ${i + 1}`).toContain(licence.licenceNumber);
       expect(page, `page ${i + 1}`).toContain(reviewer.user.name);
@@ -306,21 +344,21 @@ describe("approving", () => {
     const mail = mailTo(designer.user.email, "approved");
     expect(mail).toHaveLength(1);
     expect(mail[0]!.bodyText).toContain(licence.licenceNumber);
-    expect(db.select().from(auditLog).where(and(eq(auditLog.action, "review.approved"), eq(auditLog.entityId, revisionId))).all()).toHaveLength(1);
+    expect(db.select().from(auditLog).where(and(eq(auditLog.action, "review.approved"), eq(auditLog.entityId, approvable))).all()).toHaveLength(1);
 
     // A later licence edit does not rewrite what was stamped.
     saveOwnLicence(reviewer, { licenceNumber: "PE-E-999999", region: "Westmark", discipline: "Electrical", expiresOn: "2031-01-01", version: licence.version }, { now: NOW });
     expect(db.select().from(reviews).where(eq(reviews.id, decided.reviewId)).get()!.licenceSnapshot?.licenceNumber).toBe(licence.licenceNumber);
 
-    expect(await codeOf(() => sendForReview(designer, revisionId, { deliver: noDelivery }))).toBe("conflict");
-    expect(await codeOf(() => decideReview(reviewer, { revisionId, decision: "returned", generalNotes: "late" }, { deliver: noDelivery }))).toBe("conflict");
+    expect(await codeOf(() => sendForReview(designer, approvable, { deliver: noDelivery }))).toBe("conflict");
+    expect(await codeOf(() => decideReview(reviewer, { revisionId: approvable, decision: "returned", generalNotes: "late" }, { deliver: noDelivery }))).toBe("conflict");
   }, 90_000);
 
   it("renders the stamped packet again after a failed rendering, keeping the approval", async () => {
-    db.update(packetRevisions).set({ state: "failed", error: "Step \"sheets\": test" }).where(eq(packetRevisions.id, revisionId)).run();
-    expect(await codeOf(() => renderStampedPacketAgain(office, revisionId, { dispatch: render }))).toBe("forbidden");
-    await renderStampedPacketAgain(reviewer, revisionId, { dispatch: render });
-    expect(revisionRow(revisionId)).toMatchObject({ state: "ready", reviewState: "approved" });
-    expect(await codeOf(() => renderStampedPacketAgain(reviewer, revisionId, { dispatch: render }))).toBe("conflict");
+    db.update(packetRevisions).set({ state: "failed", error: "Step \"sheets\": test" }).where(eq(packetRevisions.id, approvable)).run();
+    expect(await codeOf(() => renderStampedPacketAgain(office, approvable, { dispatch: render }))).toBe("forbidden");
+    await renderStampedPacketAgain(reviewer, approvable, { dispatch: render });
+    expect(revisionRow(approvable)).toMatchObject({ state: "ready", reviewState: "approved" });
+    expect(await codeOf(() => renderStampedPacketAgain(reviewer, approvable, { dispatch: render }))).toBe("conflict");
   }, 90_000);
 });

@@ -49,7 +49,7 @@ export interface Decided {
  *
  * Returning needs a reason (a general note or a note on a check or sheet).
  * Approving needs the reviewer's own licence on file, unexpired, with a stamp
- * image; the licence is copied into the review and the approval is bound to
+ * image, and a revision that is not a draft; the licence is copied into the review and the approval is bound to
  * the revision's record SHA-256, after checking that the frozen record still
  * hashes to it. The project may have changed since the revision was made: the
  * approval is of the snapshot that was reviewed, which is what the packet
@@ -96,6 +96,12 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
     }
     if (!snapshotIntact(row)) {
       throw conflict(`The frozen record of revision ${row.number} no longer matches its SHA-256, so it cannot be approved; ask the designer to generate a new revision.`);
+    }
+    // A draft's cover says it is not complete for submittal (checks failing or needing input, labels or documents missing); a stamp on it would say otherwise.
+    if (row.isDraft) {
+      throw invalid(`Revision ${row.number} is a draft: its cover lists what fails or is missing. Return it with notes so the designer can complete it; a draft cannot be stamped.`, [
+        { path: "revision", message: "is a draft" },
+      ]);
     }
     licenceSnapshot = {
       reviewerName: ctx.user.name,

@@ -194,9 +194,12 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
             edition={ws.edition}
             groups={ws.groups}
             sheets={ws.sheets}
-            failCount={ws.counts?.fail ?? 0}
+            attestCount={ws.counts?.attest ?? 0}
             mayDecide={ws.mayDecide}
-            approveRefusals={ws.snapshotIntact ? [] : ["the revision's frozen record no longer matches its SHA-256"]}
+            approveRefusals={[
+              ...(ws.snapshotIntact ? [] : ["the revision's frozen record no longer matches its SHA-256"]),
+              ...(rev.isDraft ? ["this revision is a draft (its cover lists what fails or is missing), so it can only be returned"] : []),
+            ]}
             reviewerName={ctx.user.name}
             licence={
               ws.licence
