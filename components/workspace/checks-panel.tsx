@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { useState } from "react";
 import { CHECK_STATUSES, type CheckResult, type CheckStatus } from "@/lib/compliance";
 import { StatusBadge, statusWord } from "@/components/ui/status-badge";
@@ -12,8 +13,10 @@ function formatFigure(v: number | string | boolean): string {
   return v;
 }
 
-function ResultItem({ result, open, onToggle }: { result: CheckResult; open: boolean; onToggle: () => void }) {
+function ResultItem({ result, open, onToggle, projectId }: { result: CheckResult; open: boolean; onToggle: () => void; projectId: string }) {
   const used = [...result.missing, ...result.inputs.map((i) => i.path)];
+  // Documents are edited on the attachments tab, not in this form.
+  const aboutDocuments = used.some((p) => p === "attachments" || p.startsWith("attachments.") || p.startsWith("jurisdiction.requiredDocuments"));
   return (
     <li className="border-b border-grid last:border-b-0" data-check-id={result.id}>
       <button
@@ -94,6 +97,13 @@ function ResultItem({ result, open, onToggle }: { result: CheckResult; open: boo
               </ul>
             </div>
           ) : null}
+          {aboutDocuments ? (
+            <p>
+              <Link href={`/projects/${projectId}/attachments`} className="underline decoration-query underline-offset-2">
+                Open the attachments
+              </Link>
+            </p>
+          ) : null}
           <p className="figure text-ink-soft">{result.codeRefs.join(" · ")}</p>
         </div>
       ) : null}
@@ -101,7 +111,7 @@ function ResultItem({ result, open, onToggle }: { result: CheckResult; open: boo
   );
 }
 
-export function ChecksPanel() {
+export function ChecksPanel({ projectId }: { projectId: string }) {
   const live = useLive();
   const [openId, setOpenId] = useState<string | null>(null);
   const groups = new Map<CheckStatus, CheckResult[]>();
@@ -165,7 +175,7 @@ export function ChecksPanel() {
               </h3>
               <ul>
                 {results.map((r) => (
-                  <ResultItem key={r.id} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
+                  <ResultItem key={r.id} projectId={projectId} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
                 ))}
               </ul>
             </section>
