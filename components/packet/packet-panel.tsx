@@ -246,6 +246,8 @@ export function PacketPanel({ projectId, canGenerate }: { projectId: string; can
 
   const rows = revisions.data?.revisions ?? [];
   const running = rows.find((r) => r.state === "generating");
+  // A stamped set rendered again after approval does not hold up a new revision.
+  const blocking = rows.some((r) => r.state === "generating" && r.reviewState === "draft");
   const pre = preflight.data;
   const asDraft = pre?.isDraft ?? false;
 
@@ -263,7 +265,7 @@ export function PacketPanel({ projectId, canGenerate }: { projectId: string; can
         )}
         {canGenerate ? (
           <div className="mt-4 flex flex-wrap items-center gap-3 border-t border-grid pt-3">
-            <button type="button" className="btn" disabled={generate.isPending || Boolean(running) || !pre} onClick={() => generate.mutate()}>
+            <button type="button" className="btn" disabled={generate.isPending || blocking || !pre} onClick={() => generate.mutate()}>
               {asDraft ? "Generate packet as draft" : "Generate packet"}
             </button>
             <p className="text-xs text-ink-soft">
