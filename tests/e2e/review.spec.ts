@@ -44,6 +44,13 @@ test("the reviewer returns the seeded revision with a note on a check; the desig
   await signInAs(designer, "designer");
   await designer.goto(revisionUrl);
   await expect(designer.getByRole("list", { name: "Review decisions" })).toContainText(noteText);
+  // The packet tab reads the same notes from the reviews route.
+  const projectHref = await designer.getByRole("region", { name: "Revision and project", exact: true }).getByRole("link", { name: new RegExp(`^${PROJECT}`) }).getAttribute("href");
+  const projectId = /\/projects\/([^/]+)\/packet$/.exec(projectHref ?? "")?.[1];
+  expect(projectId).toBeTruthy();
+  const history = await designer.request.get(`/api/reviews?projectId=${projectId}`);
+  expect(history.status()).toBe(200);
+  expect(JSON.stringify(await history.json())).toContain(noteText);
   // The designer reads the review; deciding is not theirs.
   await expect(designer.getByRole("button", { name: "Approve and stamp" })).toHaveCount(0);
   await designer.getByRole("button", { name: /^Send again unchanged/ }).click();

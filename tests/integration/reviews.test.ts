@@ -312,6 +312,8 @@ describe("approving", () => {
     expect(before.recordChangedSince).toBe(true);
     expect(before.mayDecide).toBe(true);
     const pdfBefore = revisionRow(approvable).pdfSha256;
+    const unstamped = (await getRevisionFile(designer, approvable, "pdf", { packetsDir })).bytes;
+    expect(Buffer.from(unstamped).toString("latin1")).not.toMatch(/\/Subtype\s*\/Image/);
 
     const decided = await decideReview(reviewer, { revisionId: approvable, decision: "approved", generalNotes: "Reviewed.", confirmStamp: true }, { deliver: noDelivery, dispatch: render, now: NOW });
     const row = revisionRow(approvable);
@@ -332,7 +334,10 @@ describe("approving", () => {
     expect(review.approvedSha256).toBe(row.recordSha256);
     expect(db.select().from(projects).where(eq(projects.id, stallProjectId)).get()!.status).toBe("approved");
 
-    const text = await readPdfText((await getRevisionFile(designer, approvable, "pdf", { packetsDir })).bytes);
+    const stamped = (await getRevisionFile(designer, approvable, "pdf", { packetsDir })).bytes;
+    // The stamp image is the packet's only raster: none of the sheets or merged test PDFs draw one.
+    expect(Buffer.from(stamped).toString("latin1")).toMatch(/\/Subtype\s*\/Image/);
+    const text = await readPdfText(stamped);
     text.pages.forEach((page, i) => {
       expect(page, `page ${i + 1}`).toContain(licence.licenceNumber);
       expect(page, `page ${i + 1}`).toContain(reviewer.user.name);

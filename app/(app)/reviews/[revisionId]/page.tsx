@@ -74,7 +74,11 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
 
       <section aria-label="Revision and project" className="sheet mb-5 grid gap-4 px-5 py-4 text-sm sm:grid-cols-2 lg:grid-cols-4">
         <Field label="Project">
-          <p className="font-medium">{project.name}</p>
+          <p className="font-medium">
+            <Link href={`/projects/${project.id}/packet`} className="underline decoration-rule underline-offset-2 hover:decoration-ink">
+              {project.name}
+            </Link>
+          </p>
           <p className="text-ink-soft">{project.client || "—"}</p>
           <p className="text-ink-soft">{project.address || "—"}</p>
         </Field>
