@@ -52,11 +52,13 @@ export interface EditableGridProps {
   rowActions?: (index: number) => ReactNode;
   selectedIndex?: number;
   empty?: ReactNode;
+  /** Told after a row is deleted, so a caller that points at rows by index can follow. */
+  onRemoved?: (index: number) => void;
 }
 
 const KEY_COLUMN = "__row";
 
-export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow, rowActions, selectedIndex, empty }: EditableGridProps) {
+export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow, rowActions, selectedIndex, empty, onRemoved }: EditableGridProps) {
   const { control, getValues, setValue } = useFormContext();
   const { fields, append, insert, remove } = useFieldArray({ control, name });
   const [sorting, setSorting] = useState<SortingState>([]);
@@ -196,7 +198,7 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
           <tbody>
             {rows.length === 0 ? (
               <tr>
-                <td colSpan={columns.length + 2} className="py-4 text-center text-sm text-ink-soft">
+                <td colSpan={columns.length + 2} className="py-4 text-left text-sm text-ink-soft">
                   {empty ?? `No ${noun}s yet.`}
                 </td>
               </tr>
@@ -231,7 +233,10 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
                                 type="button"
                                 className="btn-quiet px-2 py-0.5 text-xs"
                                 aria-label={`Delete ${noun} row ${index + 1}`}
-                                onClick={() => remove(index)}
+                                onClick={() => {
+                                  remove(index);
+                                  onRemoved?.(index);
+                                }}
                               >
                                 Delete
                               </button>

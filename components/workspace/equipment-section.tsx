@@ -205,6 +205,7 @@ export function EquipmentSection() {
         noun="equipment"
         columns={columns}
         selectedIndex={open ?? undefined}
+        onRemoved={(i) => setOpen((o) => (o === null || o === i ? null : o > i ? o - 1 : o))}
         newRow={() => ({ ...changeKind({ quantity: 1, listing: "", manufacturer: "", model: "" }, "pv-module"), tag: nextTag("MOD", all()) })}
         duplicateRow={(row) => ({ ...row, tag: nextTag(TAG_PREFIX[row.kind as EquipmentKind] ?? "EQ", all()) })}
         rowActions={(i) => (
