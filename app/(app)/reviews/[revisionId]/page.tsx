@@ -188,6 +188,17 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
         </section>
 
         <div>
+          {ws.history.length ? (
+            // Earlier decisions come first: the notes a returned revision was sent back with are what a second reading checks.
+            <section aria-labelledby="history-heading" className="mb-8">
+              <h2 id="history-heading" className="mb-3 text-base font-semibold tracking-tight">
+                Decisions on this revision
+              </h2>
+              <div className="sheet px-5 py-4">
+                <ReviewHistoryList entries={ws.history} />
+              </div>
+            </section>
+          ) : null}
           <ReviewDesk
             revisionId={rev.id}
             revisionNumber={rev.number}
@@ -218,14 +229,6 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
             }
             today={today}
           />
-          <section aria-labelledby="history-heading" className="mb-8">
-            <h2 id="history-heading" className="mb-3 text-base font-semibold tracking-tight">
-              Decisions on this revision
-            </h2>
-            <div className="sheet px-5 py-4">
-              <ReviewHistoryList entries={ws.history} />
-            </div>
-          </section>
         </div>
       </div>
     </>
