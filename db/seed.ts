@@ -14,9 +14,12 @@ import { createProject } from "../lib/services/projects/create";
 import { getProjectRecord } from "../lib/services/projects/get-record";
 import { saveProjectRecord } from "../lib/services/projects/save-record";
 import { seedDemoRevisions } from "./seed-revisions";
+import { makeDemoDocument } from "./demo-documents";
+import { uploadAttachment } from "../lib/services/attachments/upload";
 import { migrateDatabase, openDatabase, type Db } from "./client";
 import { DEMO_JURISDICTIONS, DEMO_LICENCE, DEMO_ORG, DEMO_PROJECT_FILES, DEMO_USERS } from "./demo-scenario";
-import { jurisdictions, organisations, projects, reviewerLicences, userRoles, users } from "./schema";
+import { equipmentLibrary, jurisdictions, organisations, projects, reviewerLicences, userRoles, users } from "./schema";
+import { importLibraryCsv } from "../lib/services/library/import-csv";
 
 export async function seed(db: Db): Promise<void> {
   let org = db.select().from(organisations).where(eq(organisations.slug, DEMO_ORG.slug)).get();
@@ -74,6 +77,22 @@ export async function seed(db: Db): Promise<void> {
       address: record.site.address,
     });
     saveProjectRecord(designerCtx, id, record, getProjectRecord(designerCtx, id).version);
+    for (const ref of record.attachments) {
+      await uploadAttachment(designerCtx, {
+        projectId: id,
+        kind: ref.kind,
+        equipmentTag: ref.equipmentTag,
+        fileName: ref.fileName || `${ref.kind}.pdf`,
+        bytes: await makeDemoDocument(record, ref),
+      });
+    }
+  }
+
+  // The firm's equipment library, holding the same makes and models as the demo projects.
+  const hasLibrary = db.select({ id: equipmentLibrary.id }).from(equipmentLibrary).where(eq(equipmentLibrary.orgId, orgId)).get();
+  if (!hasLibrary) {
+    const report = importLibraryCsv(designerCtx, fs.readFileSync(path.resolve(process.cwd(), "examples/equipment-library.csv"), "utf8"));
+    if (report.refused.length) throw new Error(`examples/equipment-library.csv: ${report.refused.length} rows refused`);
   }
 
   await seedDemoRevisions(db, orgId);

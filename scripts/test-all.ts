@@ -63,6 +63,9 @@ async function step(name: string, command: string, args: string[], env: NodeJS.P
 
 async function prepareE2eDatabase(): Promise<void> {
   const dir = path.resolve("data/e2e");
+  // The seed writes packet files; put them where the e2e server (playwright.config.ts) reads them.
+  process.env.PACKETS_DIR = path.join(dir, "packets");
+  process.env.UPLOADS_DIR = path.join(dir, "uploads");
   fs.rmSync(dir, { recursive: true, force: true });
   fs.mkdirSync(dir, { recursive: true });
   const db = openDatabase(path.join(dir, "sundocket.db"));

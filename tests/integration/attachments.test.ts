@@ -192,6 +192,20 @@ describe("delete", () => {
     expect(await store.exists(`${up.attachment.sha256.slice(0, 2)}/${up.attachment.sha256}.pdf`)).toBe(true);
   });
 
+  it("is not held by a draft whose generation failed, but is by a failed re-render of a reviewed revision", async () => {
+    const project = projectWithEquipment();
+    const up = await uploadAttachment(designer, { projectId: project.id, kind: "datasheet", equipmentTag: "INV-1", fileName: "held.pdf", bytes: await makePdf(1, "Held") });
+    const revision = (number: number, reviewState: "draft" | "approved") =>
+      t.db
+        .insert(packetRevisions)
+        .values({ orgId: org.id, projectId: project.id, number, state: "failed", reviewState, recordSnapshot: {}, resultsSnapshot: {}, recordSha256: "0".repeat(64), attachmentIds: [up.attachment.id] })
+        .run();
+    revision(1, "draft");
+    expect(listProjectAttachments(designer, project.id)[0]?.usedByRevisions).toEqual([]);
+    revision(2, "approved");
+    expect((await caught(deleteAttachment(designer, up.attachment.id))).code).toBe("conflict");
+  });
+
   it("deletes an unused attachment and its bytes once no row uses them", async () => {
     const bytes = await makePdf(1, "Letter");
     const p1 = projectWithEquipment();

@@ -71,10 +71,17 @@ export function revisionsUsing(ctx: ServiceContext, projectId?: string | null): 
     ? and(eq(packetRevisions.orgId, ctx.orgId), eq(packetRevisions.projectId, projectId))
     : eq(packetRevisions.orgId, ctx.orgId);
   const rows = ctx.db
-    .select({ number: packetRevisions.number, attachmentIds: packetRevisions.attachmentIds })
+    .select({
+      number: packetRevisions.number,
+      attachmentIds: packetRevisions.attachmentIds,
+      state: packetRevisions.state,
+      reviewState: packetRevisions.reviewState,
+    })
     .from(packetRevisions)
     .where(where)
-    .all();
+    .all()
+    // A draft whose generation failed has no packet to keep whole; a failed re-render of a reviewed revision still does.
+    .filter((r) => !(r.state === "failed" && r.reviewState === "draft"));
   const used = new Map<string, number[]>();
   for (const r of rows) {
     for (const id of Array.isArray(r.attachmentIds) ? r.attachmentIds : []) {
