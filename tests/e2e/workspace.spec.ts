@@ -99,6 +99,9 @@ test("a new designer enters a stand-alone system with a generator and sees the m
   await expect(fail.getByText("Maximum PV system voltage at the design low temperature")).toBeVisible();
   await expect(fail.getByText(/PV-1: 162\.8 V at -20 °C exceeds/)).toBeVisible();
 
+  fs.mkdirSync(ARTIFACTS, { recursive: true });
+  await page.screenshot({ path: path.join(ARTIFACTS, "workspace-editor-fail.png") });
+
   // Choosing the result opens its figures and moves focus to a field it used.
   await fail.getByRole("button", { name: /Maximum PV system voltage/ }).click();
   await expect(fail.getByRole("table", { name: /Values of Maximum PV system voltage/ })).toBeVisible();
@@ -121,7 +124,6 @@ test("a new designer enters a stand-alone system with a generator and sees the m
   await page.getByRole("button", { name: "Save", exact: true }).click();
   await expect(page.getByTestId("save-state")).toHaveText("Saved");
 
-  fs.mkdirSync(ARTIFACTS, { recursive: true });
   await page.getByRole("heading", { name: "PV arrays" }).scrollIntoViewIfNeeded();
   await page.screenshot({ path: path.join(ARTIFACTS, "workspace-editor.png"), fullPage: false });
   const timing = page.getByTestId("engine-time");
@@ -159,12 +161,13 @@ test("a new designer enters a stand-alone system with a generator and sees the m
   expect(body.record.arrays[0]?.modulesInSeries).toBe(2);
 
   // The project file downloads as an attachment and imports back as a new project with the same design.
-  const download = page.waitForEvent("download");
-  await page.getByRole("link", { name: "Export project file" }).click();
-  const file = await download;
-  expect(file.suggestedFilename()).toMatch(/^larchmere-ridge-cabin-.*\.sundocket\.json$/);
+  const exportLink = page.getByRole("link", { name: "Export project file" });
+  await expect(exportLink).toHaveAttribute("download", "");
+  const exportResponse = await page.request.get((await exportLink.getAttribute("href"))!);
+  expect(exportResponse.ok()).toBe(true);
+  expect(exportResponse.headers()["content-disposition"]).toMatch(/^attachment; filename="larchmere-ridge-cabin-.*\.sundocket\.json"$/);
   const filePath = path.join(ARTIFACTS, "workspace-export.json");
-  await file.saveAs(filePath);
+  fs.writeFileSync(filePath, await exportResponse.body());
   const exported = JSON.parse(fs.readFileSync(filePath, "utf8")) as { name: string; arrays: unknown[]; equipment: unknown[] };
   expect(exported.name).toBe(name);
 
