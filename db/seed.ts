@@ -15,6 +15,8 @@ import { getProjectRecord } from "../lib/services/projects/get-record";
 import { saveProjectRecord } from "../lib/services/projects/save-record";
 import { seedDemoRevisions } from "./seed-revisions";
 import { makeDemoDocument } from "./demo-documents";
+import { demoStampPng } from "./demo-stamp";
+import { uploadStampImage } from "../lib/services/reviews/stamp";
 import { uploadAttachment } from "../lib/services/attachments/upload";
 import { migrateDatabase, openDatabase, type Db } from "./client";
 import { DEMO_JURISDICTIONS, DEMO_LICENCE, DEMO_ORG, DEMO_PROJECT_FILES, DEMO_USERS } from "./demo-scenario";
@@ -41,6 +43,11 @@ export async function seed(db: Db): Promise<void> {
   if (!db.select().from(reviewerLicences).where(eq(reviewerLicences.userId, reviewer.id)).get()) {
     const { email: _email, ...licence } = DEMO_LICENCE;
     db.insert(reviewerLicences).values({ ...licence, orgId, userId: reviewer.id }).run();
+  }
+
+  const licence = db.select().from(reviewerLicences).where(eq(reviewerLicences.userId, reviewer.id)).get();
+  if (licence && !licence.stampAttachmentId) {
+    await uploadStampImage(contextForUser(db, reviewer.id), { fileName: "ines-marchetti-stamp.png", bytes: demoStampPng() });
   }
 
   for (const j of DEMO_JURISDICTIONS) {

@@ -2,6 +2,8 @@
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
+import { ReviewHistory } from "@/components/reviews/review-history";
+import { SendForReviewButton } from "@/components/reviews/send-for-review-button";
 import { StateTag } from "@/components/ui/status-badge";
 import { fetchJson } from "@/lib/fetch-json";
 import type { Preflight } from "@/lib/services/revisions/preflight";
@@ -164,7 +166,7 @@ function StateWord({ r }: { r: RevisionView }) {
   );
 }
 
-function RevisionsTable({ rows }: { rows: RevisionView[] }) {
+function RevisionsTable({ rows, canSend }: { rows: RevisionView[]; canSend: boolean }) {
   return (
     <div className="sheet overflow-x-auto">
       <table className="data-table" aria-label="Revisions">
@@ -193,7 +195,14 @@ function RevisionsTable({ rows }: { rows: RevisionView[] }) {
                 {r.state === "generating" ? <p className="mt-1 text-xs text-ink-soft">{PROGRESS_STEP_LABELS[r.progressStep as ProgressStep] ?? r.progressStep}</p> : null}
               </td>
               <td>{r.state === "failed" ? "—" : r.isDraft ? <span className="text-signal">Draft</span> : "Complete"}</td>
-              <td>{r.state === "failed" ? "—" : <StateTag>{REVIEW_STATE_LABELS[r.reviewState] ?? r.reviewState}</StateTag>}</td>
+              <td>
+                {r.state === "failed" ? "—" : <StateTag>{REVIEW_STATE_LABELS[r.reviewState] ?? r.reviewState}</StateTag>}
+                {canSend && r.state === "ready" ? (
+                  <div className="mt-1">
+                    <SendForReviewButton revisionId={r.id} reviewState={r.reviewState} number={r.number} />
+                  </div>
+                ) : null}
+              </td>
               <td className="figure text-right">{r.pageCount ?? "—"}</td>
               <td className="figure text-xs">
                 <span title={r.pdfSha256 ?? undefined}>PDF {shortSha(r.pdfSha256)}</span>
@@ -300,8 +309,11 @@ export function PacketPanel({ projectId, canGenerate }: { projectId: string; can
       ) : rows.length === 0 ? (
         <p className="sheet px-4 py-8 text-center text-sm text-ink-soft">No packet generated yet.</p>
       ) : (
-        <RevisionsTable rows={rows} />
+        <RevisionsTable rows={rows} canSend={canGenerate} />
       )}
+
+      <h2 className="mb-2 mt-6 text-sm font-semibold tracking-tight">Review record</h2>
+      <ReviewHistory projectId={projectId} />
     </div>
   );
 }

@@ -11,6 +11,7 @@ export const NAV_LINKS: NavLink[] = [
   { href: "/projects", label: "Projects", roles: ["designer", "reviewer", "office", "admin"] },
   { href: "/library", label: "Equipment library", roles: ["designer"] },
   { href: "/reviews", label: "Review queue", roles: ["reviewer"] },
+  { href: "/reviews/licence", label: "Licence and stamp", roles: ["reviewer"] },
   { href: "/submissions", label: "Submissions", roles: ["office", "designer"] },
   { href: "/jurisdictions", label: "Jurisdictions", roles: ["office", "designer", "reviewer"] },
   { href: "/install", label: "Approved sets", roles: ["installer", "office"] },

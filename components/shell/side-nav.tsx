@@ -6,10 +6,14 @@ import type { NavLink } from "./nav-links";
 
 export function SideNav({ links }: { links: NavLink[] }) {
   const pathname = usePathname();
+  // The longest link that contains the page is the current one (/reviews/licence, not /reviews).
+  const current = links
+    .filter((link) => pathname === link.href || pathname.startsWith(link.href + "/"))
+    .sort((a, b) => b.href.length - a.href.length)[0]?.href;
   return (
     <nav aria-label="Main" className="flex flex-col gap-0.5 text-sm">
       {links.map((link) => {
-        const active = pathname === link.href || pathname.startsWith(link.href + "/");
+        const active = link.href === current;
         return (
           <Link
             key={link.href}

@@ -39,6 +39,7 @@ describe("e-mail through the outbox", () => {
       needsInputCount: 0,
       attestCount: 3,
       projectId: "p1",
+      revisionId: "r1",
     });
     const queued = env.db.select().from(outbox).where(eq(outbox.id, id)).get();
     expect(queued?.status).toBe("queued");
