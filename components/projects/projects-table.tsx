@@ -4,13 +4,9 @@ import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { StateTag } from "@/components/ui/status-badge";
 import { fetchJson } from "@/lib/fetch-json";
+import { SYSTEM_KIND_LABELS } from "@/lib/schemas/project-record";
 import type { ProjectListRow } from "@/lib/services/projects/list";
 
-const SYSTEM_KIND_LABELS: Record<string, string> = {
-  "stand-alone": "Stand-alone",
-  "stand-alone-generator": "Stand-alone + generator",
-  hybrid: "Hybrid",
-};
 
 export function ProjectsTable() {
   const query = useQuery({
@@ -64,7 +60,7 @@ export function ProjectsTable() {
                 <span className="block text-xs text-ink-soft">{p.address}</span>
               </td>
               <td>{p.client}</td>
-              <td>{SYSTEM_KIND_LABELS[p.systemKind] ?? p.systemKind}</td>
+              <td>{SYSTEM_KIND_LABELS[p.systemKind as keyof typeof SYSTEM_KIND_LABELS] ?? p.systemKind}</td>
               <td>{p.jurisdictionName ?? "—"}</td>
               <td className="figure">{p.necEdition ?? "—"}</td>
               <td className="figure text-right">{p.circuitCount}</td>

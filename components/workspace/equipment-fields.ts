@@ -2,7 +2,7 @@
  * The ratings a designer enters for each equipment kind, in the order they
  * appear on a datasheet. Names and units follow the project record schema.
  */
-import type { EquipmentKind } from "@/lib/schemas/project-record";
+import { EQUIPMENT_KIND_LABELS, type EquipmentKind } from "@/lib/schemas/project-record";
 import type { FieldType, Option } from "./field-control";
 
 export interface RatingField {
@@ -16,21 +16,7 @@ export interface RatingField {
 
 const opts = (...values: string[]): Option[] => values.map((v) => ({ value: v, label: v }));
 
-export const EQUIPMENT_KIND_LABELS: Record<EquipmentKind, string> = {
-  "pv-module": "PV module",
-  "charge-controller": "Charge controller",
-  inverter: "Inverter",
-  "inverter-charger": "Inverter-charger",
-  "hybrid-inverter": "Hybrid inverter",
-  battery: "Battery",
-  generator: "Generator",
-  disconnect: "Disconnect",
-  fuse: "Fuse",
-  breaker: "Breaker",
-  "rapid-shutdown": "Rapid-shutdown device",
-  "ac-panel": "AC panel",
-  busbar: "Bus bar",
-};
+export { EQUIPMENT_KIND_LABELS };
 
 /** Tag prefixes a plan set commonly uses for each kind (common practice). */
 export const TAG_PREFIX: Record<EquipmentKind, string> = {

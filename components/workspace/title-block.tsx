@@ -1,10 +1,6 @@
 import { StateTag } from "@/components/ui/status-badge";
+import { SYSTEM_KIND_LABELS } from "@/lib/schemas/project-record";
 
-const SYSTEM_KIND_LABELS: Record<string, string> = {
-  "stand-alone": "Stand-alone",
-  "stand-alone-generator": "Stand-alone with generator",
-  hybrid: "Hybrid / grid-interactive",
-};
 
 function Cell({ label, children, wide }: { label: string; children: React.ReactNode; wide?: boolean }) {
   return (
@@ -37,7 +33,7 @@ export function TitleBlock(p: {
         <Cell label="Site" wide>
           {p.address || "—"}
         </Cell>
-        <Cell label="System">{SYSTEM_KIND_LABELS[p.systemKind] ?? p.systemKind}</Cell>
+        <Cell label="System">{SYSTEM_KIND_LABELS[p.systemKind as keyof typeof SYSTEM_KIND_LABELS] ?? p.systemKind}</Cell>
         <Cell label="Jurisdiction">
           {p.jurisdiction} <span className="figure text-ink-soft">NEC {p.necEdition}</span>
         </Cell>

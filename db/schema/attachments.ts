@@ -1,19 +1,12 @@
 import { index, integer, sqliteTable, text } from "drizzle-orm/sqlite-core";
+import { ATTACHMENT_KINDS } from "../../lib/schemas/project-record";
 import { createdAt, id } from "./columns";
 import { equipmentLibrary } from "./equipment-library";
 import { organisations } from "./organisations";
 import { projects } from "./projects";
 import { users } from "./users";
 
-export const ATTACHMENT_KINDS = [
-  "datasheet",
-  "site-plan",
-  "storage-listing",
-  "structural-letter",
-  "photo",
-  "stamp",
-  "other",
-] as const;
+export { ATTACHMENT_KINDS };
 
 /** Files are stored under uploads/ by SHA-256; one row per use of a file. */
 export const attachments = sqliteTable(

@@ -2,6 +2,7 @@ import { z } from "zod";
 import {
   batterySchema,
   chargeControllerSchema,
+  EQUIPMENT_KIND_LABELS,
   EQUIPMENT_KINDS,
   generatorSchema,
   inverterSchema,
@@ -119,21 +120,7 @@ export function equipmentFromLibraryItem(item: Pick<LibraryItemView, "id" | "kin
 }
 
 /** Human names of the kinds, for headings and pickers. */
-export const KIND_LABELS: Record<EquipmentKind, string> = {
-  "pv-module": "PV module",
-  "charge-controller": "Charge controller",
-  inverter: "Inverter",
-  "inverter-charger": "Inverter-charger",
-  "hybrid-inverter": "Hybrid inverter",
-  battery: "Battery",
-  generator: "Generator",
-  disconnect: "Disconnect",
-  fuse: "Fuse",
-  breaker: "Breaker",
-  "rapid-shutdown": "Rapid-shutdown device",
-  "ac-panel": "AC panel",
-  busbar: "Bus bar",
-};
+export const KIND_LABELS = EQUIPMENT_KIND_LABELS;
 
 export { mpptInputSchema };
 

@@ -231,6 +231,29 @@ export const EQUIPMENT_KINDS = [
   "busbar",
 ] as const satisfies readonly EquipmentKind[];
 
+/** Names of the kinds, for headings, pickers and tables. */
+export const EQUIPMENT_KIND_LABELS: Record<EquipmentKind, string> = {
+  "pv-module": "PV module",
+  "charge-controller": "Charge controller",
+  inverter: "Inverter",
+  "inverter-charger": "Inverter-charger",
+  "hybrid-inverter": "Hybrid inverter",
+  battery: "Battery",
+  generator: "Generator",
+  disconnect: "Disconnect",
+  fuse: "Fuse",
+  breaker: "Breaker",
+  "rapid-shutdown": "Rapid-shutdown device",
+  "ac-panel": "AC panel",
+  busbar: "Bus bar",
+};
+
+export const SYSTEM_KIND_LABELS: Record<(typeof SYSTEM_KINDS)[number], string> = {
+  "stand-alone": "Stand-alone",
+  "stand-alone-generator": "Stand-alone with generator",
+  hybrid: "Hybrid / grid-interactive",
+};
+
 export const arraySchema = z.object({
   tag: tagSchema,
   moduleTag: tagSchema,

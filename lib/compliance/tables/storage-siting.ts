@@ -20,17 +20,10 @@
  * not check. Never in sleeping rooms, closets or spaces opening into them, or
  * habitable spaces.
  */
+import { BATTERY_LOCATIONS } from "../../schemas/project-record";
 
-export const STORAGE_LOCATION_KINDS = [
-  "utility-closet",
-  "basement",
-  "storage-room",
-  "garage",
-  "accessory-building",
-  "exterior-wall",
-  "outdoors",
-  "habitable-room",
-] as const;
+/** Where a storage unit stands: the record's battery locations. */
+export const STORAGE_LOCATION_KINDS = BATTERY_LOCATIONS;
 export type StorageLocationKind = (typeof STORAGE_LOCATION_KINDS)[number];
 
 export interface StorageSitingRules {
