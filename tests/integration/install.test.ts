@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import { afterAll, describe, expect, it } from "vitest";
-import { packetRevisions } from "../../db/schema";
+import { attachments, packetRevisions } from "../../db/schema";
 import { projectRecordSchema } from "../../lib/schemas/project-record";
 import { ServiceError } from "../../lib/services/errors";
 import { confirmOnSite, getApprovedSet, unconfirmOnSite } from "../../lib/services/install/approved-set";
@@ -56,6 +56,22 @@ describe("approved sets for the installer", () => {
     expect(getApprovedSet(installer, approved.id).confirmations.filter((c) => c.itemId === label.id)).toHaveLength(1);
     unconfirmOnSite(installer, { revisionId: approved.id, itemKind: "label", itemId: label.id });
     expect(getApprovedSet(installer, approved.id).confirmations).toHaveLength(0);
+  });
+
+  it("records a photo of this project with the item, and refuses one of another project", () => {
+    const photoRow = (projectId: string) =>
+      db
+        .insert(attachments)
+        .values({ orgId: org.id, projectId, kind: "photo", fileName: "p.png", mimeType: "image/png", sizeBytes: 10, sha256: "a".repeat(64) })
+        .returning()
+        .get();
+    const mine = photoRow(project.id);
+    const elsewhere = photoRow(makeProject(db, org.id).id);
+    confirmOnSite(installer, { revisionId: approved.id, itemKind: "equipment", itemId: "INV-1" });
+    confirmOnSite(installer, { revisionId: approved.id, itemKind: "equipment", itemId: "INV-1", photoAttachmentId: mine.id });
+    expect(getApprovedSet(installer, approved.id).confirmations.find((c) => c.itemId === "INV-1")?.photoAttachmentId).toBe(mine.id);
+    expect(codeOf(() => confirmOnSite(installer, { revisionId: approved.id, itemKind: "equipment", itemId: "CB-1", photoAttachmentId: elsewhere.id }))).toBe("invalid");
+    expect(getApprovedSet(installer, approved.id).confirmations.find((c) => c.itemId === "CB-1")).toBeUndefined();
   });
 
   it("refuses an item that is not in the approved set, and a role that may not confirm", () => {

@@ -1,5 +1,5 @@
 import { and, eq } from "drizzle-orm";
-import { packetRevisions, projects, reviews, siteConfirmations } from "../../../db/schema";
+import { attachments, packetRevisions, projects, reviews, siteConfirmations } from "../../../db/schema";
 import { requiredLabels, type LabelRequirement } from "../../compliance/labels";
 import { projectRecordSchema, type ProjectRecord } from "../../schemas/project-record";
 import { audit, requirePermission, type ServiceContext } from "../context";
@@ -18,7 +18,7 @@ export interface ApprovedSet {
   approvedAt: string | null;
   hasPdf: boolean;
   /** label id → confirmation; equipment tag → confirmation. */
-  confirmations: { itemKind: "label" | "equipment" | "clearance"; itemId: string; confirmedAt: string; note: string }[];
+  confirmations: { itemKind: "label" | "equipment" | "clearance"; itemId: string; confirmedAt: string; note: string; photoAttachmentId: string | null }[];
 }
 
 /**
@@ -46,7 +46,7 @@ export function getApprovedSet(ctx: ServiceContext, revisionId: string): Approve
     .from(siteConfirmations)
     .where(and(eq(siteConfirmations.revisionId, revisionId), eq(siteConfirmations.orgId, ctx.orgId)))
     .all()
-    .map((c) => ({ itemKind: c.itemKind, itemId: c.itemId, confirmedAt: c.createdAt, note: c.note }));
+    .map((c) => ({ itemKind: c.itemKind, itemId: c.itemId, confirmedAt: c.createdAt, note: c.note, photoAttachmentId: c.photoAttachmentId }));
   return {
     revisionId,
     revisionNumber: row.revision.number,
@@ -63,10 +63,14 @@ export function getApprovedSet(ctx: ServiceContext, revisionId: string): Approve
   };
 }
 
-/** Marks a label as placed (or an item as matching its nameplate) on site; idempotent per item. */
+/**
+ * Marks a label as placed (or an item as matching its nameplate) on site;
+ * idempotent per item. A photo (an attachment of kind "photo" of the same
+ * project) may come with it, or be added to an item already confirmed.
+ */
 export function confirmOnSite(
   ctx: ServiceContext,
-  input: { revisionId: string; itemKind: "label" | "equipment" | "clearance"; itemId: string; note?: string },
+  input: { revisionId: string; itemKind: "label" | "equipment" | "clearance"; itemId: string; note?: string; photoAttachmentId?: string },
 ): void {
   requirePermission(ctx, "install:confirm", "confirm installed items");
   const set = getApprovedSet(ctx, input.revisionId);
@@ -77,12 +81,40 @@ export function confirmOnSite(
         ? set.record.equipment.some((e) => e.tag === input.itemId)
         : input.itemId.length > 0;
   if (!known) throw invalid(`${input.itemId} is not part of the approved set.`, [{ path: "itemId", message: "not in the approved set" }]);
+  if (input.photoAttachmentId) {
+    const photo = ctx.db
+      .select({ id: attachments.id })
+      .from(attachments)
+      .where(
+        and(
+          eq(attachments.id, input.photoAttachmentId),
+          eq(attachments.orgId, ctx.orgId),
+          eq(attachments.projectId, set.projectId),
+          eq(attachments.kind, "photo"),
+        ),
+      )
+      .get();
+    if (!photo) throw invalid("That photo is not a photo of this project.", [{ path: "photoAttachmentId", message: "not a photo of this project" }]);
+  }
+  const photoAttachmentId = input.photoAttachmentId ?? null;
   ctx.db.transaction((tx) => {
-    tx.insert(siteConfirmations)
-      .values({ orgId: ctx.orgId, revisionId: input.revisionId, itemKind: input.itemKind, itemId: input.itemId, confirmedBy: ctx.user.id, note: input.note ?? "" })
-      .onConflictDoNothing()
-      .run();
-    audit(tx, ctx, "site.confirmed", "revision", input.revisionId, { itemKind: input.itemKind, itemId: input.itemId });
+    const insert = tx.insert(siteConfirmations).values({
+      orgId: ctx.orgId,
+      revisionId: input.revisionId,
+      itemKind: input.itemKind,
+      itemId: input.itemId,
+      confirmedBy: ctx.user.id,
+      note: input.note ?? "",
+      photoAttachmentId,
+    });
+    if (photoAttachmentId) {
+      insert
+        .onConflictDoUpdate({ target: [siteConfirmations.revisionId, siteConfirmations.itemKind, siteConfirmations.itemId], set: { photoAttachmentId } })
+        .run();
+    } else {
+      insert.onConflictDoNothing().run();
+    }
+    audit(tx, ctx, "site.confirmed", "revision", input.revisionId, { itemKind: input.itemKind, itemId: input.itemId, photoAttachmentId });
   });
 }
 

@@ -20,3 +20,19 @@ export async function toggleConfirmationAction(_prev: ActionResult | null, formD
   if (result.ok) revalidatePath(`/install/${item.revisionId}`);
   return result as ActionResult;
 }
+
+const photoSchema = z.object({
+  revisionId: z.string().min(1),
+  itemKind: z.enum(["label", "equipment", "clearance"]),
+  itemId: z.string().min(1).max(120),
+  photoAttachmentId: z.string().min(1),
+});
+
+/** Records the photo just uploaded for an item, confirming the item with it. */
+export async function attachPhotoAction(input: z.input<typeof photoSchema>): Promise<ActionResult> {
+  const parsed = photoSchema.safeParse(input);
+  if (!parsed.success) return { ok: false, error: "That photo could not be recorded.", issues: [], code: "invalid" };
+  const result = await runAction((ctx) => confirmOnSite(ctx, parsed.data), "Photo recorded.");
+  if (result.ok) revalidatePath(`/install/${parsed.data.revisionId}`);
+  return result as ActionResult;
+}

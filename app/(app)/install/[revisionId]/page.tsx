@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { ConfirmToggle } from "@/components/install/confirm-toggle";
 import { LabelPreview } from "@/components/install/label-preview";
+import { SitePhoto } from "@/components/install/site-photo";
 import { PageHeader, Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
@@ -30,6 +31,7 @@ export default async function ApprovedSetPage({ params }: { params: Promise<{ re
   }
   const mayConfirm = can(ctx.roles, "install:confirm");
   const done = (kind: string, id: string) => set.confirmations.some((c) => c.itemKind === kind && c.itemId === id);
+  const photoOf = (kind: string, id: string) => set.confirmations.find((c) => c.itemKind === kind && c.itemId === id)?.photoAttachmentId ?? null;
   const labelsDone = set.labels.filter((l) => done("label", l.id)).length;
   const equipmentDone = set.record.equipment.filter((e) => done("equipment", e.tag)).length;
   const clearancesDone = CLEARANCES.filter((c) => done("clearance", c)).length;
@@ -99,6 +101,7 @@ export default async function ApprovedSetPage({ params }: { params: Promise<{ re
                   </a>
                   <ConfirmToggle revisionId={set.revisionId} itemKind="label" itemId={label.id} confirmed={done("label", label.id)} label={label.title} disabled={!mayConfirm} />
                 </div>
+                <SitePhoto projectId={set.projectId} revisionId={set.revisionId} itemKind="label" itemId={label.id} photoAttachmentId={photoOf("label", label.id)} label={`label ${label.title}`} disabled={!mayConfirm} />
               </div>
             </li>
           ))}
@@ -117,6 +120,7 @@ export default async function ApprovedSetPage({ params }: { params: Promise<{ re
                 <th>Kind</th>
                 <th>Make and model on the nameplate</th>
                 <th className="text-right">Qty</th>
+                <th>Nameplate photo</th>
                 <th />
               </tr>
             </thead>
@@ -129,6 +133,9 @@ export default async function ApprovedSetPage({ params }: { params: Promise<{ re
                     {e.manufacturer} {e.model}
                   </td>
                   <td className="figure text-right">{e.quantity}</td>
+                  <td>
+                    <SitePhoto projectId={set.projectId} revisionId={set.revisionId} itemKind="equipment" itemId={e.tag} photoAttachmentId={photoOf("equipment", e.tag)} label={`nameplate of ${e.tag}`} disabled={!mayConfirm} />
+                  </td>
                   <td>
                     <ConfirmToggle revisionId={set.revisionId} itemKind="equipment" itemId={e.tag} confirmed={done("equipment", e.tag)} label={e.tag} disabled={!mayConfirm} />
                   </td>
