@@ -46,18 +46,18 @@ export default defineConfig({
   webServer: externalBaseUrl
     ? []
     : [
-    {
-      command: "npx tsx scripts/fake-smtp.ts",
-      port: SMTP_PORT,
-      reuseExistingServer: false,
-      env: { ...serverEnv },
-    },
-    {
-      command: `npx next start -H localhost -p ${PORT}`,
-      url: `http://localhost:${PORT}/api/health`,
-      reuseExistingServer: false,
-      timeout: 120_000,
-      env: { ...serverEnv },
-    },
-  ],
+        {
+          command: "npx tsx scripts/fake-smtp.ts",
+          port: SMTP_PORT,
+          reuseExistingServer: false,
+          env: { ...serverEnv },
+        },
+        {
+          command: `npx next start -H localhost -p ${PORT}`,
+          url: `http://localhost:${PORT}/api/health`,
+          reuseExistingServer: false,
+          timeout: 120_000,
+          env: { ...serverEnv },
+        },
+      ],
 });
