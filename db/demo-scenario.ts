@@ -27,22 +27,23 @@ export const DEMO_JURISDICTIONS = [
     name: "Alder Bay County",
     region: "Westmark",
     necEdition: "2017" as const,
-    residentialCode: "IRC-2018" as const,
+    residentialCode: "none" as const,
+    voltageDropLimitPct: 3,
     amendments:
       "Building department wants the battery disconnect within sight of the battery bank, labelled on the one-line. Generator inlet location shown on the site plan.",
     submissionMethod: "counter" as const,
     contact: { name: "Permit counter, County Building Division", phone: "555-0142", address: "18 Harbor Road, Alder Bay" },
     typicalReviewDays: 15,
     feeNotes: "Flat electrical permit fee plus plan review; pay at the counter on submission.",
-    requiredDocuments: ["equipment-datasheets", "site-plan"],
+    requiredDocuments: ["equipment-datasheets", "storage-listing", "site-plan"],
   },
   {
     name: "City of Kestrel Falls",
     region: "Westmark",
     necEdition: "2020" as const,
-    residentialCode: "IRC-2021" as const,
-    amendments: "Local amendment: feeder and branch voltage drop limited to 2 % for PV and storage circuits.",
-    voltageDropLimitPct: 2,
+    residentialCode: "none" as const,
+    amendments:
+      "Stalls in Market Square: ground-mounted arrays need a barrier or guard around live parts; inspections are booked through the portal before the Saturday opening.",
     submissionMethod: "portal" as const,
     contact: { name: "Kestrel Falls Permit Center", email: "permits@kestrelfalls.test", portalUrl: "https://permits.kestrelfalls.test" },
     typicalReviewDays: 10,
@@ -53,7 +54,7 @@ export const DEMO_JURISDICTIONS = [
     name: "Marrow Ridge Township",
     region: "Eastfold",
     necEdition: "2023" as const,
-    residentialCode: "IRC-2024" as const,
+    residentialCode: "IRC-2021" as const,
     amendments:
       "Fire marshal reviews every storage installation over 20 kWh; include the UL 9540 listing and the detection plan. Reflective labels required outdoors.",
     submissionMethod: "email" as const,
@@ -65,7 +66,11 @@ export const DEMO_JURISDICTIONS = [
   },
 ];
 
-/** Example project files loaded as the demo's projects, with the state each is left in. */
+/**
+ * Example project files loaded as the demo's projects, with the state each is
+ * left in. Each file's jurisdiction block carries the rules of the demo
+ * jurisdiction above of the same name, so a file and its stored project check alike.
+ */
 export const DEMO_PROJECT_FILES = [
   { file: "examples/market-stall.json", status: "approved" as const },
   { file: "examples/tamarack-hut.json", status: "in-review" as const },
