@@ -1,5 +1,5 @@
 import type { CheckResult, CheckStatus } from "../compliance/types";
-import type { Circuit, Equipment, ProjectRecord } from "../schemas/project-record";
+import { EQUIPMENT_KIND_LABELS, type Circuit, type Equipment, type ProjectRecord } from "../schemas/project-record";
 import { dash, formatNumber, isoDate } from "./format";
 import type { Block, Cell, TableColumn } from "./markup";
 import { renderSheetTemplate, type TemplateContext } from "./templates";
@@ -100,20 +100,11 @@ const LOCATION_LABEL: Record<string, string> = {
   "habitable-room": "habitable room",
 };
 
+// A schedule spells out the two kinds that read ambiguously on a permit sheet.
 const KIND_LABEL: Record<Equipment["kind"], string> = {
-  "pv-module": "PV module",
-  "charge-controller": "Charge controller",
-  inverter: "Inverter",
-  "inverter-charger": "Inverter-charger",
-  "hybrid-inverter": "Hybrid inverter",
-  battery: "Battery",
-  generator: "Generator",
-  disconnect: "Disconnect",
-  fuse: "Fuse",
+  ...EQUIPMENT_KIND_LABELS,
   breaker: "Circuit breaker",
-  "rapid-shutdown": "Rapid-shutdown device",
   "ac-panel": "AC distribution panel",
-  busbar: "Bus bar",
 };
 
 const CIRCUIT_KIND_LABEL: Record<Circuit["kind"], string> = {

@@ -6,6 +6,18 @@ import { migrateDatabase, openDatabase, type Db } from "../../db/client";
 import { jurisdictions, organisations, projects, userRoles, users } from "../../db/schema";
 import type { Role } from "../../lib/auth/roles";
 import { contextForUser, type ServiceContext } from "../../lib/services/context";
+import { ServiceError } from "../../lib/services/errors";
+
+/** The code of the ServiceError a call throws, or undefined when it does not throw. */
+export function codeOf(fn: () => unknown): string | undefined {
+  try {
+    fn();
+  } catch (error) {
+    if (error instanceof ServiceError) return error.code;
+    throw error;
+  }
+  return undefined;
+}
 
 /** A fresh SQLite file migrated from drizzle/, removed when the test file ends. */
 export function tempDatabase(): { db: Db; file: string; cleanup: () => void } {

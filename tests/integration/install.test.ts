@@ -2,9 +2,8 @@ import fs from "node:fs";
 import { afterAll, describe, expect, it } from "vitest";
 import { attachments, packetRevisions } from "../../db/schema";
 import { projectRecordSchema } from "../../lib/schemas/project-record";
-import { ServiceError } from "../../lib/services/errors";
 import { confirmOnSite, getApprovedSet, unconfirmOnSite } from "../../lib/services/install/approved-set";
-import { makeContext, makeOrg, makeProject, tempDatabase } from "./factories";
+import { makeContext, makeOrg, makeProject, tempDatabase, codeOf } from "./factories";
 
 const env = tempDatabase();
 const { db } = env;
@@ -20,15 +19,6 @@ function revision(orgId: string, projectId: string, reviewState: "approved" | "i
     .get();
 }
 
-function codeOf(fn: () => unknown) {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof ServiceError) return error.code;
-    throw error;
-  }
-  return undefined;
-}
 
 describe("approved sets for the installer", () => {
   const org = makeOrg(db);

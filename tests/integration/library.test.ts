@@ -11,21 +11,12 @@ import { listLibraryItems } from "../../lib/services/library/list";
 import { restoreLibraryItem } from "../../lib/services/library/restore";
 import { retireLibraryItem } from "../../lib/services/library/retire";
 import { updateLibraryItem } from "../../lib/services/library/update";
-import { makeContext, makeOrg, tempDatabase } from "./factories";
+import { makeContext, makeOrg, tempDatabase, codeOf } from "./factories";
 
 const env = tempDatabase();
 const { db } = env;
 afterAll(() => env.cleanup());
 
-function codeOf(fn: () => unknown): string | undefined {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof ServiceError) return error.code;
-    throw error;
-  }
-  return undefined;
-}
 
 const MODULE = {
   kind: "pv-module",

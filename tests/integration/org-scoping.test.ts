@@ -10,21 +10,12 @@ import { ServiceError } from "../../lib/services/errors";
 import { contextForUser } from "../../lib/services/context";
 import { projects, users, userRoles } from "../../db/schema";
 import { eq } from "drizzle-orm";
-import { makeContext, makeJurisdiction, makeOrg, makeProject, makeUser, tempDatabase } from "./factories";
+import { makeContext, makeJurisdiction, makeOrg, makeProject, makeUser, tempDatabase, codeOf } from "./factories";
 
 const env = tempDatabase();
 const { db } = env;
 afterAll(() => env.cleanup());
 
-function codeOf(fn: () => unknown): string | undefined {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof ServiceError) return error.code;
-    throw error;
-  }
-  return undefined;
-}
 
 describe("organisation scoping: nothing of organisation B is visible or changeable from A", () => {
   const orgA = makeOrg(db, "Org A");
