@@ -1,0 +1,117 @@
+import { and, asc, desc, eq, notInArray } from "drizzle-orm";
+import { jurisdictions, packetRevisions, projects, submissionEvents, submissions, users } from "../../../db/schema";
+import type { EventKind } from "../../schemas/submission";
+import { requirePermission, type ServiceContext } from "../context";
+import { findSubmissionInOrg, revisionDesigner } from "./shared";
+
+export interface SubmissionEventView {
+  id: string;
+  kind: EventKind;
+  occurredOn: string;
+  userName: string | null;
+  note: string;
+  data: Record<string, unknown>;
+  createdAt: string;
+}
+
+export interface SubmissionView {
+  id: string;
+  projectId: string;
+  projectName: string;
+  projectStatus: string;
+  address: string;
+  jurisdictionName: string;
+  revisionId: string;
+  revisionNumber: number;
+  designerName: string | null;
+  method: "portal" | "email" | "counter";
+  referenceNumber: string;
+  status: EventKind;
+  version: number;
+  createdAt: string;
+  /** Oldest first, as a log reads. */
+  events: SubmissionEventView[];
+}
+
+export function getSubmission(ctx: ServiceContext, submissionId: string): SubmissionView {
+  requirePermission(ctx, "submission:read", "read submissions");
+  const { submission, project, jurisdiction, revision } = findSubmissionInOrg(ctx, submissionId);
+  const events = ctx.db
+    .select({
+      id: submissionEvents.id,
+      kind: submissionEvents.kind,
+      occurredOn: submissionEvents.occurredOn,
+      userName: users.name,
+      note: submissionEvents.note,
+      data: submissionEvents.data,
+      createdAt: submissionEvents.createdAt,
+    })
+    .from(submissionEvents)
+    .leftJoin(users, eq(users.id, submissionEvents.userId))
+    .where(and(eq(submissionEvents.submissionId, submission.id), eq(submissionEvents.orgId, ctx.orgId)))
+    .orderBy(asc(submissionEvents.occurredOn), asc(submissionEvents.createdAt))
+    .all();
+  return {
+    id: submission.id,
+    projectId: project.id,
+    projectName: project.name,
+    projectStatus: project.status,
+    address: project.address,
+    jurisdictionName: jurisdiction.name,
+    revisionId: revision.id,
+    revisionNumber: revision.number,
+    designerName: revisionDesigner(ctx.db, ctx.orgId, revision.createdBy)?.name ?? null,
+    method: submission.method,
+    referenceNumber: submission.referenceNumber,
+    status: submission.status,
+    version: submission.version,
+    createdAt: submission.createdAt,
+    events,
+  };
+}
+
+export interface SubmittableRevision {
+  revisionId: string;
+  projectId: string;
+  projectName: string;
+  revisionNumber: number;
+  jurisdictionName: string;
+  /** The jurisdiction's submission method, offered as the default. */
+  defaultMethod: "portal" | "email" | "counter";
+  approvedAt: string;
+}
+
+/** Approved, finished revisions with a jurisdiction and no open submission: what the office can submit next. */
+export function listSubmittableRevisions(ctx: ServiceContext): SubmittableRevision[] {
+  requirePermission(ctx, "submission:create", "submit packets to a jurisdiction");
+  const submitted = ctx.db
+    .select({ revisionId: submissions.revisionId })
+    .from(submissions)
+    .where(and(eq(submissions.orgId, ctx.orgId), notInArray(submissions.status, ["cancelled", "expired"])))
+    .all()
+    .map((r) => r.revisionId);
+  return ctx.db
+    .select({
+      revisionId: packetRevisions.id,
+      projectId: projects.id,
+      projectName: projects.name,
+      revisionNumber: packetRevisions.number,
+      jurisdictionName: jurisdictions.name,
+      defaultMethod: jurisdictions.submissionMethod,
+      approvedAt: packetRevisions.createdAt,
+    })
+    .from(packetRevisions)
+    .innerJoin(projects, and(eq(projects.id, packetRevisions.projectId), eq(projects.orgId, ctx.orgId)))
+    .innerJoin(jurisdictions, and(eq(jurisdictions.id, projects.jurisdictionId), eq(jurisdictions.orgId, ctx.orgId)))
+    .where(
+      and(
+        eq(packetRevisions.orgId, ctx.orgId),
+        eq(packetRevisions.reviewState, "approved"),
+        eq(packetRevisions.state, "ready"),
+        eq(packetRevisions.isDraft, false),
+        submitted.length ? notInArray(packetRevisions.id, submitted) : undefined,
+      ),
+    )
+    .orderBy(desc(packetRevisions.createdAt))
+    .all();
+}

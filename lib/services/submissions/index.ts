@@ -1,0 +1,3 @@
+export { createSubmission, type CreateOptions, type CreatedSubmission } from "./create";
+export { recordSubmissionEvent, type RecordEventOptions, type RecordedEvent } from "./record-event";
+export { getSubmission, listSubmittableRevisions, type SubmissionView, type SubmissionEventView, type SubmittableRevision } from "./get";
