@@ -1,7 +1,10 @@
 import type { Metadata } from "next";
+import Link from "next/link";
+import { PrintButton } from "@/components/submissions/print-button";
 import { EmptyState, PageHeader, Refusal } from "@/components/ui/page-header";
 import { StateTag } from "@/components/ui/status-badge";
 import { pageContext } from "@/lib/auth/page-context";
+import { can } from "@/lib/auth/permissions";
 import { listSubmissions } from "@/lib/services/revisions/queues";
 
 export const metadata: Metadata = { title: "Submissions" };
@@ -12,7 +15,14 @@ export default async function SubmissionsPage() {
   const rows = listSubmissions(ctx);
   return (
     <>
-      <PageHeader title="Submissions" sheet="Permit applications by jurisdiction" />
+      <PageHeader title="Submissions" sheet="Permit applications by jurisdiction">
+        {rows.length ? <PrintButton /> : null}
+        {can(ctx.roles, "submission:create") ? (
+          <Link href="/submissions/new" className="btn no-print">
+            New submission
+          </Link>
+        ) : null}
+      </PageHeader>
       {rows.length === 0 ? (
         <EmptyState>No submissions yet.</EmptyState>
       ) : (
@@ -32,7 +42,11 @@ export default async function SubmissionsPage() {
             <tbody>
               {rows.map((s) => (
                 <tr key={s.submissionId}>
-                  <td className="font-medium">{s.projectName}</td>
+                  <td className="font-medium">
+                    <Link href={`/submissions/${s.submissionId}`} className="underline decoration-rule underline-offset-2 hover:decoration-ink">
+                      {s.projectName}
+                    </Link>
+                  </td>
                   <td>{s.jurisdictionName}</td>
                   <td className="figure">Rev {s.revisionNumber}</td>
                   <td>{s.method}</td>

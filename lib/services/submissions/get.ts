@@ -78,7 +78,7 @@ export interface SubmittableRevision {
   jurisdictionName: string;
   /** The jurisdiction's submission method, offered as the default. */
   defaultMethod: "portal" | "email" | "counter";
-  approvedAt: string;
+  generatedAt: string;
 }
 
 /** Approved, finished revisions with a jurisdiction and no open submission: what the office can submit next. */
@@ -98,7 +98,7 @@ export function listSubmittableRevisions(ctx: ServiceContext): SubmittableRevisi
       revisionNumber: packetRevisions.number,
       jurisdictionName: jurisdictions.name,
       defaultMethod: jurisdictions.submissionMethod,
-      approvedAt: packetRevisions.createdAt,
+      generatedAt: packetRevisions.createdAt,
     })
     .from(packetRevisions)
     .innerJoin(projects, and(eq(projects.id, packetRevisions.projectId), eq(projects.orgId, ctx.orgId)))

@@ -1,0 +1,91 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { EventForm } from "@/components/submissions/event-form";
+import { PrintButton } from "@/components/submissions/print-button";
+import { SubmissionTimeline } from "@/components/submissions/timeline";
+import { PageHeader, Refusal } from "@/components/ui/page-header";
+import { StateTag } from "@/components/ui/status-badge";
+import { pageContext } from "@/lib/auth/page-context";
+import { can } from "@/lib/auth/permissions";
+import { EVENT_LABELS } from "@/lib/schemas/submission";
+import { ServiceError } from "@/lib/services/errors";
+import { getSubmission } from "@/lib/services/submissions";
+
+export const metadata: Metadata = { title: "Submission" };
+
+const METHOD_LABELS = { portal: "Portal", email: "E-mail", counter: "Counter" } as const;
+const CLOSED = ["finaled", "cancelled"];
+
+function Field({ label, children }: { label: string; children: React.ReactNode }) {
+  return (
+    <div>
+      <p className="field-label">{label}</p>
+      <div className="mt-0.5">{children}</div>
+    </div>
+  );
+}
+
+export default async function SubmissionPage({ params }: { params: Promise<{ submissionId: string }> }) {
+  const { ctx, allowed } = await pageContext("submission:read");
+  if (!allowed) return <Refusal message="Submissions are kept by the permit office." />;
+  const { submissionId } = await params;
+  let s;
+  try {
+    s = getSubmission(ctx, submissionId);
+  } catch (error) {
+    if (error instanceof ServiceError && error.code === "not-found") notFound();
+    throw error;
+  }
+  const today = new Date().toISOString().slice(0, 10);
+  const mayRecord = can(ctx.roles, "submission:record-event");
+
+  return (
+    <>
+      <PageHeader title={s.projectName} sheet={`Submission · ${s.jurisdictionName}`}>
+        <StateTag>{EVENT_LABELS[s.status]}</StateTag>
+        <PrintButton label="Print" />
+        <Link href="/submissions" className="btn-quiet no-print">
+          All submissions
+        </Link>
+      </PageHeader>
+
+      <section aria-label="Submission" className="sheet mb-5 grid gap-4 px-5 py-4 text-sm sm:grid-cols-2 lg:grid-cols-4">
+        <Field label="Project">
+          <p className="font-medium">{s.projectName}</p>
+          <p className="text-ink-soft">{s.address || "—"}</p>
+          <p className="text-ink-soft">Project status: {s.projectStatus}</p>
+        </Field>
+        <Field label="Jurisdiction">
+          <p>{s.jurisdictionName}</p>
+          <p className="text-ink-soft">{METHOD_LABELS[s.method]}</p>
+        </Field>
+        <Field label="Revision">
+          <p className="figure">
+            <Link href={`/reviews/${s.revisionId}`} className="underline decoration-rule underline-offset-2 hover:decoration-ink">
+              Rev {s.revisionNumber}
+            </Link>
+          </p>
+          <p className="text-ink-soft">Designer: {s.designerName ?? "—"}</p>
+        </Field>
+        <Field label="Reference">
+          <p className="figure">{s.referenceNumber || "—"}</p>
+        </Field>
+      </section>
+
+      <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-soft">Timeline</h2>
+      <SubmissionTimeline events={s.events} />
+
+      {mayRecord ? (
+        <section aria-label="Next event" className="no-print mt-6">
+          <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-soft">Record the next event</h2>
+          {CLOSED.includes(s.status) ? (
+            <p className="sheet px-4 py-4 text-sm text-ink-soft">This submission is {EVENT_LABELS[s.status].toLowerCase()}; a new application starts with a new submission.</p>
+          ) : (
+            <EventForm submissionId={s.id} version={s.version} status={s.status} today={today} />
+          )}
+        </section>
+      ) : null}
+    </>
+  );
+}

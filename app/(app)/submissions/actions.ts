@@ -1,0 +1,54 @@
+"use server";
+
+import { revalidatePath } from "next/cache";
+import { runAction, type ActionResult } from "@/lib/auth/action";
+import { createSubmission, recordSubmissionEvent, type CreatedSubmission, type RecordedEvent } from "@/lib/services/submissions";
+
+function reader(formData: FormData) {
+  return (name: string) => {
+    const v = formData.get(name);
+    return typeof v === "string" ? v : undefined;
+  };
+}
+
+/** A new submission of an approved revision, as the office's form sends it; the service parses and authorises. */
+export async function createSubmissionAction(_prev: ActionResult<CreatedSubmission> | null, formData: FormData): Promise<ActionResult<CreatedSubmission>> {
+  const text = reader(formData);
+  const result = await runAction((ctx) =>
+    createSubmission(ctx, {
+      revisionId: text("revisionId"),
+      method: text("method"),
+      referenceNumber: text("referenceNumber"),
+      occurredOn: text("occurredOn"),
+      note: text("note"),
+    }),
+  );
+  if (result.ok) {
+    revalidatePath("/submissions");
+    revalidatePath("/submissions/new");
+  }
+  return result.ok ? { ...result, message: result.data?.message } : result;
+}
+
+export async function recordEventAction(_prev: ActionResult<RecordedEvent> | null, formData: FormData): Promise<ActionResult<RecordedEvent>> {
+  const text = reader(formData);
+  const submissionId = text("submissionId");
+  const result = await runAction((ctx) =>
+    recordSubmissionEvent(ctx, {
+      submissionId,
+      kind: text("kind"),
+      occurredOn: text("occurredOn"),
+      note: text("note"),
+      permitNumber: text("permitNumber"),
+      expiresOn: text("expiresOn"),
+      amountUsd: text("amountUsd"),
+      inspectionKind: text("inspectionKind"),
+      version: text("version") || undefined,
+    }),
+  );
+  if (result.ok && submissionId) {
+    revalidatePath(`/submissions/${submissionId}`);
+    revalidatePath("/submissions");
+  }
+  return result.ok ? { ...result, message: result.data?.message } : result;
+}

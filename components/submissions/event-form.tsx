@@ -1,0 +1,141 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useActionState, useEffect, useState } from "react";
+import { recordEventAction } from "@/app/(app)/submissions/actions";
+import { EVENT_KINDS, EVENT_LABELS, INSPECTION_EVENT_KINDS, INSPECTION_KINDS, INSPECTION_LABELS, type EventKind } from "@/lib/schemas/submission";
+import { FormField } from "./field";
+
+/** The usual next step after each state, offered first; any kind may still be chosen. */
+const USUAL_NEXT: Record<EventKind, EventKind> = {
+  submitted: "in-plan-review",
+  "in-plan-review": "corrections-requested",
+  "on-hold": "in-plan-review",
+  "corrections-requested": "resubmitted",
+  resubmitted: "in-plan-review",
+  approved: "permit-issued",
+  "permit-issued": "inspection-scheduled",
+  "fee-paid": "permit-issued",
+  "inspection-scheduled": "inspection-passed",
+  "inspection-passed": "inspection-scheduled",
+  "inspection-failed": "inspection-scheduled",
+  finaled: "finaled",
+  expired: "resubmitted",
+  cancelled: "cancelled",
+};
+
+interface Values {
+  kind: EventKind;
+  occurredOn: string;
+  note: string;
+  permitNumber: string;
+  expiresOn: string;
+  amountUsd: string;
+  inspectionKind: string;
+}
+
+/** Records the next event of a submission; the fields each kind needs appear with it, and refusals show beside them. */
+export function EventForm({ submissionId, version, status, today }: { submissionId: string; version: number; status: EventKind; today: string }) {
+  const router = useRouter();
+  const [state, action, pending] = useActionState(recordEventAction, null);
+  const blank = (kind: EventKind): Values => ({ kind, occurredOn: today, note: "", permitNumber: "", expiresOn: "", amountUsd: "", inspectionKind: "" });
+  const [values, setValues] = useState<Values>(blank(USUAL_NEXT[status]));
+
+  useEffect(() => {
+    if (state?.ok) {
+      setValues(blank(USUAL_NEXT[state.data?.status ?? status]));
+      router.refresh();
+    }
+    // Only a new result resets the form.
+  }, [state]);
+
+  const issueFor = (name: string) => (state && !state.ok ? state.issues.find((i) => i.path === name)?.message : undefined);
+  const bind = (name: keyof Values) => ({
+    name,
+    value: values[name],
+    onChange: (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => setValues((v) => ({ ...v, [name]: e.target.value })),
+  });
+  const kind = values.kind;
+  const inspection = INSPECTION_EVENT_KINDS.includes(kind);
+
+  return (
+    <form action={action} aria-label="Record an event" className="sheet grid gap-4 px-5 py-5 sm:grid-cols-3">
+      <input type="hidden" name="submissionId" value={submissionId} />
+      <input type="hidden" name="version" value={state?.ok && state.data ? state.data.version : version} />
+      <FormField id="event-kind" label="Event" issue={issueFor("kind")}>
+        {(d, bad) => (
+          <select id="event-kind" {...bind("kind")} className="input w-full" aria-describedby={d} aria-invalid={bad || undefined}>
+            {EVENT_KINDS.map((k) => (
+              <option key={k} value={k}>
+                {EVENT_LABELS[k]}
+              </option>
+            ))}
+          </select>
+        )}
+      </FormField>
+      <FormField
+        id="event-date"
+        label={kind === "inspection-scheduled" ? "Inspection on" : "Date"}
+        hint={kind === "inspection-scheduled" ? "Up to a year ahead." : "The day it happened; not in the future."}
+        issue={issueFor("occurredOn")}
+      >
+        {(d, bad) => <input id="event-date" type="date" {...bind("occurredOn")} className="input w-full" required aria-describedby={d} aria-invalid={bad || undefined} />}
+      </FormField>
+      {inspection ? (
+        <FormField id="event-inspection" label="Inspection" hint="Fire final where the storage calls for it." issue={issueFor("inspectionKind")}>
+          {(d, bad) => (
+            <select id="event-inspection" {...bind("inspectionKind")} className="input w-full" required aria-describedby={d} aria-invalid={bad || undefined}>
+              <option value="">Choose…</option>
+              {INSPECTION_KINDS.map((k) => (
+                <option key={k} value={k}>
+                  {INSPECTION_LABELS[k]}
+                </option>
+              ))}
+            </select>
+          )}
+        </FormField>
+      ) : null}
+      {kind === "permit-issued" ? (
+        <>
+          <FormField id="event-permit" label="Permit number" hint="As printed on the permit card." issue={issueFor("permitNumber")}>
+            {(d, bad) => <input id="event-permit" {...bind("permitNumber")} className="input w-full figure" required autoComplete="off" aria-describedby={d} aria-invalid={bad || undefined} />}
+          </FormField>
+          <FormField id="event-expiry" label="Permit expires on" hint="If the permit states it." issue={issueFor("expiresOn")}>
+            {(d, bad) => <input id="event-expiry" type="date" {...bind("expiresOn")} className="input w-full" aria-describedby={d} aria-invalid={bad || undefined} />}
+          </FormField>
+        </>
+      ) : null}
+      {kind === "fee-paid" ? (
+        <FormField id="event-amount" label="Amount (USD)" hint="As on the receipt." issue={issueFor("amountUsd")}>
+          {(d, bad) => (
+            <input id="event-amount" type="number" min="0.01" step="0.01" inputMode="decimal" {...bind("amountUsd")} className="input w-full figure" required aria-describedby={d} aria-invalid={bad || undefined} />
+          )}
+        </FormField>
+      ) : null}
+      <FormField
+        id="event-note"
+        label="Note"
+        hint={kind === "corrections-requested" ? "What the AHJ asks for; the designer receives it by e-mail." : "Who said what, and what comes next."}
+        issue={issueFor("note")}
+        className="sm:col-span-3"
+      >
+        {(d, bad) => <textarea id="event-note" rows={3} {...bind("note")} className="input w-full" aria-describedby={d} aria-invalid={bad || undefined} />}
+      </FormField>
+      <div className="flex flex-wrap items-center gap-3 sm:col-span-3">
+        <button type="submit" className="btn" disabled={pending}>
+          {pending ? "Recording…" : "Record event"}
+        </button>
+        {state?.ok ? (
+          <p role="status" className="text-sm text-ok">
+            {state.message}
+          </p>
+        ) : null}
+        {state && !state.ok ? (
+          <p role="alert" className="text-sm text-signal">
+            {state.error}
+          </p>
+        ) : null}
+      </div>
+    </form>
+  );
+}

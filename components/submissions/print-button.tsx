@@ -1,0 +1,9 @@
+"use client";
+
+export function PrintButton({ label = "Print queue" }: { label?: string }) {
+  return (
+    <button type="button" className="btn-quiet no-print" onClick={() => window.print()}>
+      {label}
+    </button>
+  );
+}
