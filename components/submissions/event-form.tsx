@@ -1,7 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useActionState, useEffect, useState } from "react";
+import { startTransition, useActionState, useEffect, useState } from "react";
 import { recordEventAction } from "@/app/(app)/submissions/actions";
 import { EVENT_KINDS, EVENT_LABELS, INSPECTION_EVENT_KINDS, INSPECTION_KINDS, INSPECTION_LABELS, type EventKind } from "@/lib/schemas/submission";
 import { FormField } from "./field";
@@ -59,7 +59,16 @@ export function EventForm({ submissionId, version, status, today }: { submission
   const inspection = INSPECTION_EVENT_KINDS.includes(kind);
 
   return (
-    <form action={action} aria-label="Record an event" className="sheet grid gap-4 px-5 py-5 sm:grid-cols-3">
+    <form
+      // Submitted by hand rather than through the action prop: React resets a form after its action, which would clear a controlled select on a refusal.
+      onSubmit={(e) => {
+        e.preventDefault();
+        const data = new FormData(e.currentTarget);
+        startTransition(() => action(data));
+      }}
+      aria-label="Record an event"
+      className="sheet grid gap-4 px-5 py-5 sm:grid-cols-3"
+    >
       <input type="hidden" name="submissionId" value={submissionId} />
       <input type="hidden" name="version" value={state?.ok && state.data ? state.data.version : version} />
       <FormField id="event-kind" label="Event" issue={issueFor("kind")}>

@@ -1,7 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useActionState, useEffect, useState } from "react";
+import { startTransition, useActionState, useEffect, useState } from "react";
 import { createSubmissionAction } from "@/app/(app)/submissions/actions";
 import { SUBMISSION_METHODS, type SubmissionMethod } from "@/lib/schemas/submission";
 import { FormField } from "./field";
@@ -36,7 +36,16 @@ export function NewSubmissionForm({
   const id = (name: string) => `submit-${revisionId}-${name}`;
 
   return (
-    <form action={action} aria-label={`Submit ${label}`} className="grid gap-4 sm:grid-cols-4">
+    <form
+      // Submitted by hand rather than through the action prop: React resets a form after its action, which would clear a controlled select on a refusal.
+      onSubmit={(e) => {
+        e.preventDefault();
+        const data = new FormData(e.currentTarget);
+        startTransition(() => action(data));
+      }}
+      aria-label={`Submit ${label}`}
+      className="grid gap-4 sm:grid-cols-4"
+    >
       <input type="hidden" name="revisionId" value={revisionId} />
       <FormField id={id("method")} label="Method" hint="The jurisdiction's usual method is chosen." issue={issueFor("method")}>
         {(d, bad) => (
