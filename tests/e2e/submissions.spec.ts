@@ -38,3 +38,22 @@ test("the office opens the seeded submission, schedules the final inspection and
   // The earlier entries stand as they were.
   await expect(page.getByRole("list", { name: "Timeline" })).toContainText("Permit E26-01893");
 });
+
+test("a designer reads the seeded submission but may not record an event on it", async ({ page }) => {
+  await signInAs(page, "designer");
+  const list = await page.request.get("/api/submissions");
+  expect(list.status()).toBe(200);
+  const { submissions } = (await list.json()) as { submissions: { submissionId: string; referenceNumber: string }[] };
+  const seeded = submissions.find((s) => s.referenceNumber === REFERENCE);
+  expect(seeded).toBeDefined();
+  const before = ((await (await page.request.get(`/api/submissions/${seeded!.submissionId}`)).json()) as { submission: { events: unknown[] } }).submission.events.length;
+
+  const refused = await page.request.post(`/api/submissions/${seeded!.submissionId}/events`, { data: { kind: "on-hold", occurredOn: "2026-11-20" } });
+  expect(refused.status()).toBe(403);
+  const after = ((await (await page.request.get(`/api/submissions/${seeded!.submissionId}`)).json()) as { submission: { events: unknown[] } }).submission.events.length;
+  expect(after).toBe(before);
+
+  await page.goto(`/submissions/${seeded!.submissionId}`);
+  await expect(page.getByRole("list", { name: "Timeline" })).toContainText("Permit E26-01893");
+  await expect(page.getByRole("form", { name: "Record an event" })).toHaveCount(0);
+});
