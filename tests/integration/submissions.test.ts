@@ -209,3 +209,18 @@ describe("recording events", () => {
     expect(listSubmittableRevisions(outsiderOffice)).toEqual([]);
   });
 });
+
+describe("the queue", () => {
+  it("lists the organisation's submissions with the submitted date, latest event and permit number", async () => {
+    const { listSubmissionQueue } = await import("../../lib/services/submissions");
+    const { revisionId } = revision("approved");
+    const { submissionId } = await createSubmission(office, { ...submitInput(revisionId), referenceNumber: "" }, opts);
+    await recordSubmissionEvent(office, { submissionId, kind: "permit-issued", occurredOn: "2026-11-29", permitNumber: "E26-777" }, opts);
+    const entry = listSubmissionQueue(designer).find((e) => e.submissionId === submissionId)!;
+    expect(entry).toMatchObject({ status: "permit-issued", submittedOn: "2026-11-25", latestOn: "2026-11-29", permitNumber: "E26-777", referenceNumber: "" });
+    expect(listSubmissionQueue(outsiderOffice)).toEqual([]);
+    // An empty reference still gives a readable message.
+    const mail = db.select().from(outbox).where(and(eq(outbox.template, "submitted"), eq(outbox.orgId, org.id))).all().at(-1)!;
+    expect(mail.bodyText).toMatch(/\(portal\)\.$/m);
+  });
+});

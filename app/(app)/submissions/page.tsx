@@ -5,14 +5,17 @@ import { EmptyState, PageHeader, Refusal } from "@/components/ui/page-header";
 import { StateTag } from "@/components/ui/status-badge";
 import { pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
-import { listSubmissions } from "@/lib/services/revisions/queues";
+import { listSubmissionQueue } from "@/lib/services/submissions";
 
 export const metadata: Metadata = { title: "Submissions" };
+
+const METHOD_LABELS = { portal: "portal", email: "e-mail", counter: "counter" } as const;
 
 export default async function SubmissionsPage() {
   const { ctx, allowed } = await pageContext("submission:read");
   if (!allowed) return <Refusal message="Submissions are kept by the permit office." />;
-  const rows = listSubmissions(ctx);
+  const rows = listSubmissionQueue(ctx);
+  const printedOn = new Date().toISOString().slice(0, 10);
   return (
     <>
       <PageHeader title="Submissions" sheet="Permit applications by jurisdiction">
@@ -28,6 +31,7 @@ export default async function SubmissionsPage() {
       ) : (
         <div className="sheet overflow-x-auto">
           <table className="data-table" aria-label="Submissions">
+            <caption className="hidden text-left text-xs print:table-caption">Submission queue as of {printedOn}</caption>
             <thead>
               <tr>
                 <th>Project</th>
@@ -36,6 +40,8 @@ export default async function SubmissionsPage() {
                 <th>Method</th>
                 <th>Reference</th>
                 <th>Latest event</th>
+                <th>On</th>
+                <th>Permit</th>
                 <th>Submitted</th>
               </tr>
             </thead>
@@ -48,13 +54,15 @@ export default async function SubmissionsPage() {
                     </Link>
                   </td>
                   <td>{s.jurisdictionName}</td>
-                  <td className="figure">Rev {s.revisionNumber}</td>
-                  <td>{s.method}</td>
-                  <td className="figure">{s.referenceNumber || "—"}</td>
+                  <td className="figure whitespace-nowrap">Rev {s.revisionNumber}</td>
+                  <td>{METHOD_LABELS[s.method]}</td>
+                  <td className="figure whitespace-nowrap">{s.referenceNumber || "—"}</td>
                   <td>
                     <StateTag>{s.status}</StateTag>
                   </td>
-                  <td className="figure text-xs text-ink-soft">{s.createdAt.slice(0, 10)}</td>
+                  <td className="figure whitespace-nowrap text-xs">{s.latestOn ?? "—"}</td>
+                  <td className="figure whitespace-nowrap">{s.permitNumber ?? "—"}</td>
+                  <td className="figure whitespace-nowrap text-xs text-ink-soft">{s.submittedOn ?? "—"}</td>
                 </tr>
               ))}
             </tbody>
