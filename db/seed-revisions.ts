@@ -114,6 +114,7 @@ export async function seedDemoRevisions(db: Db, orgId: string): Promise<void> {
         },
       ];
       for (const e of events) db.insert(submissionEvents).values({ ...e, orgId, submissionId: submission.id, userId: office.id }).run();
+      db.update(projects).set({ status: "permitted" }).where(eq(projects.id, project.id)).run();
     }
     // Rendered after the review is recorded, so the approved set carries the reviewer's name and licence.
     await renderSeeded(db, revision.id, projectName);
