@@ -1,5 +1,6 @@
 import type { CheckResult, CheckStatus } from "../compliance/types";
 import { EQUIPMENT_KIND_LABELS, type Circuit, type Equipment, type ProjectRecord } from "../schemas/project-record";
+import { DATASHEET_KINDS as DATASHEET_KIND_LIST, missingDocuments as missingOnFileDocuments } from "../compliance/documents";
 import { dash, formatNumber, isoDate } from "./format";
 import type { Block, Cell, TableColumn } from "./markup";
 import { renderSheetTemplate, type TemplateContext } from "./templates";
@@ -117,17 +118,8 @@ const CIRCUIT_KIND_LABEL: Record<Circuit["kind"], string> = {
   "ac-branch": "AC branch",
 };
 
-/** Equipment whose datasheet a permit office asks for by default (the jurisdiction record refines this). */
-const DATASHEET_KINDS = new Set<Equipment["kind"]>([
-  "pv-module",
-  "charge-controller",
-  "inverter",
-  "inverter-charger",
-  "hybrid-inverter",
-  "battery",
-  "generator",
-  "rapid-shutdown",
-]);
+/** Equipment whose datasheet a permit office asks for (the submittal check's list). */
+const DATASHEET_KINDS = new Set<string>(DATASHEET_KIND_LIST);
 
 const STATUS_ORDER: CheckStatus[] = ["fail", "needs-input", "warning", "attest", "pass", "not-applicable"];
 
@@ -236,28 +228,19 @@ function scopeLines(record: ProjectRecord): string[] {
 }
 
 /** Documents the jurisdiction asks for that the packet lacks, each named. */
+/**
+ * The documents the jurisdiction requires that the packet does not carry, in
+ * the submittal check's words: the record's attachment list plus what this
+ * packet was handed to merge.
+ */
 export function missingDocuments(input: PacketInput): string[] {
   const { record } = input;
-  const required = new Set(record.jurisdiction.requiredDocuments);
-  const missing: string[] = [];
-  if (required.has("equipment-datasheets")) {
-    const covered = new Set(input.datasheets.map((d) => d.equipmentTag).filter(Boolean));
-    for (const e of record.equipment) {
-      if (DATASHEET_KINDS.has(e.kind) && !covered.has(e.tag)) missing.push(`no datasheet for ${e.tag}`);
-    }
-  }
-  const hasBattery = record.equipment.some((e) => e.kind === "battery");
-  if (required.has("storage-listing") && hasBattery) {
-    const listed =
-      record.attachments.some((a) => a.kind === "storage-listing") ||
-      input.datasheets.some((d) => /listing/i.test(d.title));
-    if (!listed) missing.push("no storage listing document");
-  }
-  if (required.has("site-plan") && !input.sitePlan) missing.push("no site plan");
-  if (required.has("structural-letter") && !record.attachments.some((a) => a.kind === "structural-letter")) {
-    missing.push("no structural letter");
-  }
-  return missing;
+  const onFile = [
+    ...record.attachments,
+    ...input.datasheets.map((d) => ({ kind: /listing/i.test(d.title) ? "storage-listing" : "datasheet", equipmentTag: d.equipmentTag })),
+    ...(input.sitePlan ? [{ kind: "site-plan" }] : []),
+  ];
+  return missingOnFileDocuments(record, onFile, record.jurisdiction.requiredDocuments);
 }
 
 function draftReasons(input: PacketInput, missingDocs: string[]): string[] {

@@ -3,14 +3,13 @@
  * attached before a packet is sent — incomplete submittals are the commonest
  * reason a packet comes back.
  */
-import { batteries } from "../derive/battery";
+import { missingDocuments } from "../documents";
 import { Trace, v, type CheckContext } from "../context";
 import { refs } from "../refs";
 import { makeResult, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
 
-/** Equipment kinds a datasheet is expected for; protective devices, bus bars and panels are listed on the schedule instead. */
-export const DATASHEET_KINDS: readonly string[] = ["pv-module", "charge-controller", "inverter", "inverter-charger", "hybrid-inverter", "battery", "generator", "rapid-shutdown"];
+export { DATASHEET_KINDS } from "../documents";
 
 export const submittalCompleteness: CheckDefinition = {
   id: "submittal-completeness",
@@ -20,15 +19,7 @@ export const submittalCompleteness: CheckDefinition = {
     const codeRefs = [`${r.jurisdiction.name} submittal requirements`, ...refs(ctx.edition, "listing-use")];
     const t = new Trace();
     t.read("jurisdiction.requiredDocuments", "Documents the jurisdiction requires", r.jurisdiction.requiredDocuments.join(", "));
-    const has = (kind: string, tag?: string) => r.attachments.some((a) => a.kind === kind && (tag === undefined || a.equipmentTag === tag));
-    const missing: string[] = [];
-    const required = new Set(r.jurisdiction.requiredDocuments);
-    if (required.has("equipment-datasheets")) {
-      for (const e of r.equipment) if (DATASHEET_KINDS.includes(e.kind) && !has("datasheet", e.tag)) missing.push(`no datasheet for ${e.tag}`);
-    }
-    if (required.has("storage-listing") && batteries(ctx).length > 0 && !has("storage-listing")) missing.push("no storage listing");
-    if (required.has("site-plan") && !has("site-plan")) missing.push("no site plan");
-    if (required.has("structural-letter") && r.site.mounting === "roof" && !has("structural-letter")) missing.push("no structural letter for the roof mount");
+    const missing = missingDocuments(r, r.attachments, r.jurisdiction.requiredDocuments);
     const ok = missing.length === 0;
     return [
       makeResult(this, {

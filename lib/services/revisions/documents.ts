@@ -1,4 +1,4 @@
-import { DATASHEET_KINDS } from "../../compliance/checks/submittal-completeness";
+import { missingDocuments as missingOnFile } from "../../compliance/documents";
 import type { ProjectRecord } from "../../schemas/project-record";
 
 /** The attachment fields the packet's document selection reads. */
@@ -72,27 +72,7 @@ export function documentTitle(record: ProjectRecord, doc: Pick<DocumentRef, "kin
   }
 }
 
-/**
- * Each document the jurisdiction requires that the project lacks, named so
- * the designer knows what to attach: "no datasheet for INV-1",
- * "no storage listing for BAT-1", "no site plan".
- */
+/** Each required document the project lacks, as the submittal check names it. */
 export function missingDocuments(record: ProjectRecord, attachments: readonly DocumentRef[], required: readonly RequiredDocument[]): string[] {
-  const need = new Set(required);
-  const missing: string[] = [];
-  const has = (kind: string, tag?: string) => attachments.some((a) => a.kind === kind && (tag === undefined || a.equipmentTag === tag));
-  if (need.has("equipment-datasheets")) {
-    for (const e of record.equipment) if (DATASHEET_KINDS.includes(e.kind) && !has("datasheet", e.tag)) missing.push(`no datasheet for ${e.tag}`);
-  }
-  if (need.has("storage-listing")) {
-    // A listing filed without an equipment tag covers every battery of the project.
-    const untagged = attachments.some((a) => a.kind === "storage-listing" && !a.equipmentTag);
-    for (const e of record.equipment) {
-      if (e.kind === "battery" && !untagged && !has("storage-listing", e.tag)) missing.push(`no storage listing for ${e.tag}`);
-    }
-  }
-  if (need.has("site-plan") && !has("site-plan")) missing.push("no site plan");
-  // Structural letters concern the roof carrying the array, as the submittal check reads it.
-  if (need.has("structural-letter") && record.site.mounting === "roof" && !has("structural-letter")) missing.push("no structural letter for the roof mount");
-  return missing;
+  return missingOnFile(record, attachments, required);
 }
