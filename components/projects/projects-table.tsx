@@ -67,7 +67,7 @@ export function ProjectsTable() {
               <td>
                 <StateTag>{p.status}</StateTag>
               </td>
-              <td className="figure text-xs text-ink-soft">{p.updatedAt.slice(0, 10)}</td>
+              <td className="figure whitespace-nowrap text-xs text-ink-soft">{p.updatedAt.slice(0, 10)}</td>
             </tr>
           ))}
         </tbody>
