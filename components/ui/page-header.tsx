@@ -22,3 +22,13 @@ export function Refusal({ message }: { message: string }) {
     </div>
   );
 }
+
+/** A label over a value, for the summary panels at the head of a page. */
+export function Field({ label, children }: { label: string; children: React.ReactNode }) {
+  return (
+    <div>
+      <p className="field-label">{label}</p>
+      <div className="mt-0.5">{children}</div>
+    </div>
+  );
+}

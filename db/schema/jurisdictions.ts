@@ -1,4 +1,5 @@
 import { index, integer, real, sqliteTable, text } from "drizzle-orm/sqlite-core";
+import { SUBMISSION_METHODS } from "../../lib/schemas/submission";
 import { createdAt, id, updatedAt, version } from "./columns";
 import { organisations } from "./organisations";
 
@@ -34,7 +35,7 @@ export const jurisdictions = sqliteTable(
     voltageDropLimitPct: real("voltage_drop_limit_pct"),
     storageAggregateLimitKWh: real("storage_aggregate_limit_kwh"),
     labelRules: text("label_rules", { mode: "json" }).$type<LabelRules>().notNull().default({}),
-    submissionMethod: text("submission_method", { enum: ["portal", "email", "counter"] })
+    submissionMethod: text("submission_method", { enum: SUBMISSION_METHODS })
       .notNull()
       .default("portal"),
     contact: text("contact", { mode: "json" }).$type<JurisdictionContact>().notNull().default({}),

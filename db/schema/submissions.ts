@@ -1,4 +1,5 @@
 import { index, sqliteTable, text } from "drizzle-orm/sqlite-core";
+import { EVENT_KINDS, SUBMISSION_METHODS } from "../../lib/schemas/submission";
 import { createdAt, id, version } from "./columns";
 import { jurisdictions } from "./jurisdictions";
 import { organisations } from "./organisations";
@@ -6,22 +7,7 @@ import { packetRevisions } from "./packet-revisions";
 import { projects } from "./projects";
 import { users } from "./users";
 
-export const SUBMISSION_EVENT_KINDS = [
-  "submitted",
-  "in-plan-review",
-  "on-hold",
-  "corrections-requested",
-  "resubmitted",
-  "approved",
-  "permit-issued",
-  "fee-paid",
-  "inspection-scheduled",
-  "inspection-passed",
-  "inspection-failed",
-  "finaled",
-  "expired",
-  "cancelled",
-] as const;
+export const SUBMISSION_EVENT_KINDS = EVENT_KINDS;
 export type SubmissionEventKind = (typeof SUBMISSION_EVENT_KINDS)[number];
 
 export const submissions = sqliteTable(
@@ -40,7 +26,7 @@ export const submissions = sqliteTable(
     revisionId: text("revision_id")
       .notNull()
       .references(() => packetRevisions.id),
-    method: text("method", { enum: ["portal", "email", "counter"] }).notNull(),
+    method: text("method", { enum: SUBMISSION_METHODS }).notNull(),
     referenceNumber: text("reference_number").notNull().default(""),
     /** Kind of the latest event, kept for the queue; the events are the record. */
     status: text("status", { enum: SUBMISSION_EVENT_KINDS }).notNull().default("submitted"),

@@ -1,5 +1,6 @@
 import "server-only";
-import { redirect } from "next/navigation";
+import { notFound, redirect } from "next/navigation";
+import { ServiceError } from "../services/errors";
 import { can, type Permission } from "./permissions";
 import { currentContext } from "./session";
 
@@ -12,4 +13,14 @@ export async function pageContext(permission: Permission) {
   const ctx = await currentContext();
   if (!ctx) redirect("/sign-in");
   return { ctx, allowed: can(ctx.roles, permission) };
+}
+
+/** Runs a service read for a page; a row that is not found (or another organisation's) becomes the 404 page. */
+export function orNotFound<T>(read: () => T): T {
+  try {
+    return read();
+  } catch (error) {
+    if (error instanceof ServiceError && error.code === "not-found") notFound();
+    throw error;
+  }
 }

@@ -10,7 +10,7 @@ import { z } from "zod";
 export const SUBMISSION_METHODS = ["portal", "email", "counter"] as const;
 export type SubmissionMethod = (typeof SUBMISSION_METHODS)[number];
 
-/** Mirrors the submission_events kinds (db/schema/submissions.ts), kept here so client forms need no db import. */
+/** Kinds of submission event; the submission_events table takes its column values from this list. */
 export const EVENT_KINDS = [
   "submitted",
   "in-plan-review",

@@ -3,12 +3,10 @@ import { ConfirmToggle } from "@/components/install/confirm-toggle";
 import { LabelPreview } from "@/components/install/label-preview";
 import { SitePhoto } from "@/components/install/site-photo";
 import { PageHeader, Refusal } from "@/components/ui/page-header";
-import { pageContext } from "@/lib/auth/page-context";
+import { orNotFound, pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
 import { LABEL_STOCKS } from "@/lib/labels";
 import { getApprovedSet } from "@/lib/services/install/approved-set";
-import { ServiceError } from "@/lib/services/errors";
-import { notFound } from "next/navigation";
 
 export const metadata: Metadata = { title: "Approved set" };
 
@@ -22,13 +20,7 @@ export default async function ApprovedSetPage({ params }: { params: Promise<{ re
   const { ctx, allowed } = await pageContext("install:read");
   if (!allowed) return <Refusal message="Approved sets are for installers and the permit office." />;
   const { revisionId } = await params;
-  let set;
-  try {
-    set = getApprovedSet(ctx, revisionId);
-  } catch (error) {
-    if (error instanceof ServiceError && error.code === "not-found") notFound();
-    throw error;
-  }
+  const set = orNotFound(() => getApprovedSet(ctx, revisionId));
   const mayConfirm = can(ctx.roles, "install:confirm");
   const done = (kind: string, id: string) => set.confirmations.some((c) => c.itemKind === kind && c.itemId === id);
   const photoOf = (kind: string, id: string) => set.confirmations.find((c) => c.itemKind === kind && c.itemId === id)?.photoAttachmentId ?? null;

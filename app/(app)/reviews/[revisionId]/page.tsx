@@ -1,16 +1,14 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
 import { RefreshWhile } from "@/components/reviews/refresh-while";
 import { RestampButton } from "@/components/reviews/restamp-button";
 import { ReviewDesk } from "@/components/reviews/review-desk";
 import { ReviewHistoryList } from "@/components/reviews/review-history";
 import { SendForReviewButton } from "@/components/reviews/send-for-review-button";
-import { PageHeader, Refusal } from "@/components/ui/page-header";
+import { Field, PageHeader, Refusal } from "@/components/ui/page-header";
 import { StateTag } from "@/components/ui/status-badge";
-import { pageContext } from "@/lib/auth/page-context";
+import { orNotFound, pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
-import { ServiceError } from "@/lib/services/errors";
 import { getReviewWorkspace } from "@/lib/services/reviews";
 import { REVIEW_STATE_LABELS } from "@/lib/services/revisions/steps";
 
@@ -30,26 +28,11 @@ function Notice({ tone, title, children }: { tone: "signal" | "caution" | "query
   );
 }
 
-function Field({ label, children }: { label: string; children: React.ReactNode }) {
-  return (
-    <div>
-      <p className="field-label">{label}</p>
-      <div className="mt-0.5">{children}</div>
-    </div>
-  );
-}
-
 export default async function ReviewPage({ params }: { params: Promise<{ revisionId: string }> }) {
   const { ctx, allowed } = await pageContext("review:read");
   if (!allowed) return <Refusal message="Reviews are open to designers, reviewers, the permit office and administrators." />;
   const { revisionId } = await params;
-  let ws;
-  try {
-    ws = getReviewWorkspace(ctx, revisionId);
-  } catch (error) {
-    if (error instanceof ServiceError && error.code === "not-found") notFound();
-    throw error;
-  }
+  const ws = orNotFound(() => getReviewWorkspace(ctx, revisionId));
   const { revision: rev, project } = ws;
   const today = new Date().toISOString().slice(0, 10);
   const approval = ws.history.find((h) => h.decision === "approved" && h.boundToRevision);

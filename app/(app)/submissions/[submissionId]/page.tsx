@@ -1,15 +1,13 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
 import { EventForm } from "@/components/submissions/event-form";
 import { PrintButton } from "@/components/submissions/print-button";
 import { SubmissionTimeline } from "@/components/submissions/timeline";
-import { PageHeader, Refusal } from "@/components/ui/page-header";
+import { Field, PageHeader, Refusal } from "@/components/ui/page-header";
 import { StateTag } from "@/components/ui/status-badge";
-import { pageContext } from "@/lib/auth/page-context";
+import { orNotFound, pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
 import { EVENT_LABELS } from "@/lib/schemas/submission";
-import { ServiceError } from "@/lib/services/errors";
 import { getSubmission } from "@/lib/services/submissions";
 
 export const metadata: Metadata = { title: "Submission" };
@@ -17,26 +15,11 @@ export const metadata: Metadata = { title: "Submission" };
 const METHOD_LABELS = { portal: "Portal", email: "E-mail", counter: "Counter" } as const;
 const CLOSED = ["finaled", "cancelled"];
 
-function Field({ label, children }: { label: string; children: React.ReactNode }) {
-  return (
-    <div>
-      <p className="field-label">{label}</p>
-      <div className="mt-0.5">{children}</div>
-    </div>
-  );
-}
-
 export default async function SubmissionPage({ params }: { params: Promise<{ submissionId: string }> }) {
   const { ctx, allowed } = await pageContext("submission:read");
   if (!allowed) return <Refusal message="Submissions are kept by the permit office." />;
   const { submissionId } = await params;
-  let s;
-  try {
-    s = getSubmission(ctx, submissionId);
-  } catch (error) {
-    if (error instanceof ServiceError && error.code === "not-found") notFound();
-    throw error;
-  }
+  const s = orNotFound(() => getSubmission(ctx, submissionId));
   const today = new Date().toISOString().slice(0, 10);
   const mayRecord = can(ctx.roles, "submission:record-event");
 
