@@ -5,8 +5,7 @@
  */
 import fs from "node:fs";
 import path from "node:path";
-import { migrateDatabase, openDatabase } from "../db/client";
-import { seed } from "../db/seed";
+import { prepareE2eDatabase } from "./lib/e2e-database";
 import { ensureAuthSecret } from "./lib/ensure-secret";
 import { commandExists, run } from "./lib/run";
 
@@ -37,19 +36,30 @@ function printTotals(): void {
   console.log(`\n${passed} passed, ${failed} failed, ${skipped} skipped`);
 }
 
-async function ensureChromium(): Promise<void> {
-  if (fs.existsSync(CHROMIUM)) return;
+/**
+ * Debian packages the suite runs against: Chromium for the browser tests, redis-server for the job queue's scale-out
+ * backend, poppler-utils (pdftoppm) for reading packets back as pictures. Installed when missing and we are root.
+ */
+const DEBIAN_NEEDS: { pkg: string; binary: string; why: string }[] = [
+  { pkg: "chromium", binary: CHROMIUM, why: "the browser tests" },
+  { pkg: "redis-server", binary: process.env.REDIS_SERVER_PATH ?? "/usr/bin/redis-server", why: "the job queue tests on Redis" },
+  { pkg: "poppler-utils", binary: "/usr/bin/pdftoppm", why: "rendering packet pages in tests" },
+];
+
+async function ensureDebianPackages(): Promise<void> {
+  const missing = DEBIAN_NEEDS.filter((n) => !fs.existsSync(n.binary));
+  if (missing.length === 0) return;
   const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
   if (isRoot && commandExists("apt-get")) {
-    console.log("Chromium is missing; installing Debian's chromium package for the browser tests…");
+    console.log(`Installing Debian's ${missing.map((n) => n.pkg).join(", ")} for ${missing.map((n) => n.why).join(", ")}…`);
     const update = await run("apt-get", ["update", "-qq"]);
-    const install = update === 0 ? await run("apt-get", ["install", "-y", "-qq", "chromium"]) : update;
-    if (install === 0 && fs.existsSync(CHROMIUM)) return;
+    const install = update === 0 ? await run("apt-get", ["install", "-y", "-qq", ...missing.map((n) => n.pkg)]) : update;
+    if (install === 0 && missing.every((n) => fs.existsSync(n.binary))) return;
   }
-  console.error(
-    `The browser tests need Chromium at ${CHROMIUM}.\n` +
-      "Install it with `sudo apt-get install -y chromium` (Debian/Ubuntu), or set CHROMIUM_PATH to a Chromium binary.",
-  );
+  for (const n of missing.filter((m) => !fs.existsSync(m.binary))) {
+    console.error(`${n.why} need ${n.binary}: install it with \`sudo apt-get install -y ${n.pkg}\` (Debian/Ubuntu).`);
+  }
+  if (!fs.existsSync(CHROMIUM)) console.error("Or set CHROMIUM_PATH to a Chromium binary.");
   process.exit(1);
 }
 
@@ -61,22 +71,9 @@ async function step(name: string, command: string, args: string[], env: NodeJS.P
   if (code !== 0) process.exit(code);
 }
 
-async function prepareE2eDatabase(): Promise<void> {
-  const dir = path.resolve("data/e2e");
-  // The seed writes packet files; put them where the e2e server (playwright.config.ts) reads them.
-  process.env.PACKETS_DIR = path.join(dir, "packets");
-  process.env.UPLOADS_DIR = path.join(dir, "uploads");
-  fs.rmSync(dir, { recursive: true, force: true });
-  fs.mkdirSync(dir, { recursive: true });
-  const db = openDatabase(path.join(dir, "sundocket.db"));
-  migrateDatabase(db);
-  await seed(db);
-  db.$client.close();
-}
-
 async function main() {
   ensureAuthSecret();
-  await ensureChromium();
+  await ensureDebianPackages();
   await step("Type check", "npx", ["tsc", "--noEmit"]);
   await step("Lint", "npx", ["eslint", "--max-warnings", "0", "."]);
   fs.mkdirSync(RESULTS_DIR, { recursive: true });

@@ -13,7 +13,7 @@ import { makeResult } from "./result";
 import { codeRef } from "./tables";
 import { CHECK_STATUSES, type CheckResult, type CheckRun, type CheckRunOptions, type CheckStatus } from "./types";
 
-export type { CheckInput, CheckResult, CheckRun, CheckRunOptions, CheckStatus, CheckValue } from "./types";
+export type { CheckInput, CheckResult, CheckRun, CheckRunOptions, CheckStatus, CheckValue, Remedy, RemedyChange } from "./types";
 export { CHECK_STATUSES } from "./types";
 export { loadSummary, type LoadSummary } from "./load-summary";
 export { CHECKS } from "./registry";

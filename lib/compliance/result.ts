@@ -1,5 +1,5 @@
 /** Builds results so every check reports the same fields in the same way. */
-import type { CheckInput, CheckResult, CheckStatus, CheckValue } from "./types";
+import type { CheckInput, CheckResult, CheckStatus, CheckValue, Remedy } from "./types";
 
 export interface CheckDefinition {
   id: string;
@@ -17,6 +17,7 @@ export interface ResultParts {
   inputs?: CheckInput[];
   missing?: string[];
   codeRefs: string[];
+  remedy?: Remedy;
 }
 
 function unique(list: string[]): string[] {
@@ -41,6 +42,7 @@ export function makeResult(def: Pick<CheckDefinition, "id" | "title">, parts: Re
   };
   if (subject !== undefined) r.subject = subject;
   if (parts.reason !== undefined) r.reason = parts.reason;
+  if (parts.remedy !== undefined && parts.status === "fail") r.remedy = parts.remedy;
   return r;
 }
 

@@ -23,6 +23,25 @@ export interface CheckInput {
   unit: string;
 }
 
+/** One record field to set, as the remedy's one-click form applies it. */
+export interface RemedyChange {
+  /** Record path, e.g. "circuits.2.size". */
+  path: string;
+  value: number | string | boolean;
+}
+
+/**
+ * The smallest change the engine found that makes a failing result pass (the
+ * next conductor size, the next standard OCPD, the longest string that fits,
+ * the missing device), with the figure that proves it.
+ */
+export interface Remedy {
+  /** One or two lines a designer can act on, with the figure that makes it pass. */
+  text: string;
+  /** Field changes that carry the remedy out, when it is a change of record fields; empty when a person must act (add a device, choose a product). */
+  changes: RemedyChange[];
+}
+
 export interface CheckResult {
   /** Stable across runs of the same record: `${checkId}:${subject}` or `${checkId}`. */
   id: string;
@@ -44,6 +63,8 @@ export interface CheckResult {
   missing: string[];
   /** Code references in the jurisdiction's edition, e.g. "NEC 2023 690.7(A)". At least one. */
   codeRefs: string[];
+  /** On a fail: the change that makes it pass. */
+  remedy?: Remedy;
 }
 
 export interface CheckRunOptions {
