@@ -8,7 +8,7 @@
 import { formatIssues } from "../schemas/fields";
 import { projectRecordSchema, type NecEdition, type ProjectRecord } from "../schemas/project-record";
 import { buildContext } from "./context";
-import { CHECK_FORMULAS, CHECKS, SCOPE_TOPIC } from "./registry";
+import { CHECKS } from "./registry";
 import { makeResult } from "./result";
 import { codeRef } from "./tables";
 import { CHECK_STATUSES, type CheckResult, type CheckRun, type CheckRunOptions, type CheckStatus } from "./types";
@@ -31,12 +31,12 @@ export function runChecks(record: ProjectRecord, options: CheckRunOptions = {}):
           status: "not-applicable",
           message: "Nothing in the record that this check applies to.",
           reason: "the record holds no item of the kind this check covers",
-          codeRefs: [codeRef(edition, SCOPE_TOPIC[check.id] ?? "listing-use")],
+          codeRefs: [codeRef(edition, check.scopeTopic)],
         }),
       );
     }
     for (const r of results) {
-      if (r.formula === "") r.formula = CHECK_FORMULAS[check.id] ?? "";
+      if (r.formula === "") r.formula = check.formula;
       buckets[r.status].push(r);
     }
   }

@@ -1,4 +1,8 @@
-/** The check catalogue, in the order results are listed within a status. Adding a check is one line. */
+/**
+ * The check catalogue, in the order results are listed within a status. Each definition carries everything the
+ * product shows about it (title, rule in words, what it cites when nothing applies), so adding a check is one
+ * file and one line here.
+ */
 import { batteryTerminals } from "./checks/battery-terminals";
 import { circuitCurrentCheck } from "./checks/circuit-current";
 import { conductorAmpacityCheck } from "./checks/conductor-ampacity";
@@ -18,7 +22,6 @@ import { storageSiting } from "./checks/storage-siting";
 import { submittalCompleteness } from "./checks/submittal-completeness";
 import { voltageDrop } from "./checks/voltage-drop";
 import type { CheckDefinition } from "./result";
-import type { CodeTopic } from "./tables";
 
 export const CHECKS: readonly CheckDefinition[] = [
   maxPvVoltage,
@@ -40,47 +43,3 @@ export const CHECKS: readonly CheckDefinition[] = [
   panelBusbar,
   submittalCompleteness,
 ];
-
-/** What each check cites when the record holds nothing it applies to (it then reports "not applicable", never nothing). */
-export const SCOPE_TOPIC: Readonly<Record<string, CodeTopic>> = {
-  "max-pv-voltage": "max-voltage",
-  "mppt-window": "listing-use",
-  "circuit-current": "pv-circuit-current",
-  "conductor-ampacity": "ampacity-table",
-  "overcurrent-protection": "pv-ocpd",
-  disconnects: "pv-disconnect",
-  grounding: "egc-table",
-  "voltage-drop": "voltage-drop",
-  "battery-terminals": "terminal-rating",
-  "inverter-capacity": "stand-alone-supply",
-  "stand-alone-sizing": "stand-alone-supply",
-  labels: "field-marking",
-  "storage-siting": "ess-listing",
-  "stand-alone-supply": "stand-alone-supply",
-  "rapid-shutdown": "rapid-shutdown",
-  "device-ratings": "listing-use",
-  "panel-busbar": "busbar",
-  "submittal-completeness": "listing-use",
-};
-
-/** Each check's rule in words, shown where a result has no figures of its own (needs input, not applicable, presence checks). */
-export const CHECK_FORMULAS: Readonly<Record<string, string>> = {
-  "max-pv-voltage": "Voc × modules in series × cold correction (module coefficient, else Table 690.7(A)) ≤ every rating on the circuit and the building limit",
-  "mppt-window": "Vmp × modules in series × (1 + Vmp coefficient × (design high + module rise − 25 °C)) ≥ the input's lowest tracking voltage (and the battery charge voltage + headroom)",
-  "circuit-current": "PV: 1.25 × Isc × strings; inverter DC input: continuous W ÷ (lowest battery V × efficiency); AC: the equipment's continuous output",
-  "conductor-ampacity": "terminal-column ampacity ≥ 1.25 × current, and table ampacity × ambient correction × adjustment ≥ current",
-  "overcurrent-protection": "1.25 × continuous current ≤ device rating ≤ conductor ampacity (next standard size up, 240.4(B); small-conductor limits, 240.4(D))",
-  disconnects: "a disconnect or breaker on a circuit of the item, or one built into the equipment",
-  grounding: "EGC ≥ Table 250.122 size for the protecting device (for unprotected PV circuits, the device 690.9(B) would require)",
-  "voltage-drop": "2 × one-way length × Ω/kft × operating current ÷ 1000 ÷ operating voltage ≤ limit",
-  "battery-terminals": "conductors landed on each battery terminal ≤ the number it allows (three by common practice)",
-  "inverter-capacity": "continuous W ≥ loads running together; surge W ≥ largest start + other running loads",
-  "stand-alone-sizing": "usable storage ÷ daily energy ≥ days of autonomy; array W × sun hours × 0.75 ≥ daily energy",
-  labels: "one label per requirement, with the computed values, where the code puts it",
-  "storage-siting": "unit and aggregate kWh within the location's limits, spacing, detection, impact protection, listing",
-  "stand-alone-supply": "inverter output ≥ largest single load; 120 V-only supply to a 120/240 V panel: warning label, no multiwire branch circuits",
-  "rapid-shutdown": "PV circuits on or in a building: a named method and the devices that carry it out",
-  "device-ratings": "DC-rated devices at or above the circuit's maximum voltage; interrupting rating ≥ available fault current; listed for the use",
-  "panel-busbar": "1.25 × inverter output current + main ≤ 1.2 × bus (or sum of breakers ≤ bus); stand-alone: output device ≤ bus",
-  "submittal-completeness": "every document the jurisdiction requires is attached",
-};

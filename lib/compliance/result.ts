@@ -1,9 +1,16 @@
 /** Builds results so every check reports the same fields in the same way. */
+import type { CodeTopic } from "./tables";
 import type { CheckInput, CheckResult, CheckStatus, CheckValue, Remedy } from "./types";
 
+/** One entry of the catalogue: everything the product shows about a check lives here, with no fallbacks elsewhere. */
 export interface CheckDefinition {
+  /** Stable catalogue id, e.g. "max-pv-voltage"; result ids start with it. */
   id: string;
   title: string;
+  /** What the check cites when the record holds nothing it applies to (it then reports "not applicable", never nothing). */
+  scopeTopic: CodeTopic;
+  /** The rule in words, shown where a result has no figures of its own (needs input, not applicable, presence checks). */
+  formula: string;
   run(ctx: import("./context").CheckContext): CheckResult[];
 }
 

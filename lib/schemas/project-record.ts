@@ -339,6 +339,30 @@ export const circuitSchema = z
   });
 export type Circuit = z.infer<typeof circuitSchema>;
 
+/** Electrodes that can make up the grounding electrode system (250.52(A)). */
+export const GROUNDING_ELECTRODE_KINDS = [
+  "ground-rod",
+  "concrete-encased",
+  "ground-ring",
+  "metal-water-pipe",
+  "building-steel",
+  "plate",
+  "existing-building-system",
+] as const;
+
+/**
+ * The grounding electrode system, its conductor, and where the one
+ * neutral-to-ground bond of the system is made (250.30, 250.6, 250.166, 690.47).
+ */
+export const groundingSchema = z.object({
+  electrodes: z.array(z.enum(GROUNDING_ELECTRODE_KINDS)).default([]),
+  gecSize: conductorSizeSchema.optional(),
+  gecMaterial: z.enum(["cu", "al"], { error: "must be cu or al" }).default("cu"),
+  /** Equipment tag (inverter, generator or panel) where the single neutral-to-ground bond is made. */
+  neutralGroundBondTag: tagSchema.optional(),
+});
+export type Grounding = z.infer<typeof groundingSchema>;
+
 export const loadSchema = z.object({
   name: requiredText(120),
   watts: numberIn(0, 100000, "W"),
@@ -391,6 +415,7 @@ export const projectRecordObjectSchema = z.object({
   rapidShutdownMethod: z
     .enum(["module-level", "array-boundary", "listed-pv-hazard-control", "none"])
     .optional(),
+  grounding: groundingSchema.default({ electrodes: [], gecMaterial: "cu" }),
   equipment: z.array(equipmentSchema).default([]),
   arrays: z.array(arraySchema).default([]),
   circuits: z.array(circuitSchema).default([]),
@@ -515,6 +540,11 @@ function checkReferences(record: RecordShape, ctx: z.RefinementCtx): void {
       }
     });
   });
+
+  const bondTag = record.grounding.neutralGroundBondTag;
+  if (bondTag !== undefined && !equipmentByTag.has(bondTag)) {
+    ctx.addIssue({ code: "custom", path: ["grounding", "neutralGroundBondTag"], message: `names no equipment: "${bondTag}"` });
+  }
 
   record.attachments.forEach((a, i) => {
     if (a.equipmentTag !== undefined && !equipmentByTag.has(a.equipmentTag)) {

@@ -14,6 +14,9 @@ export const DEFAULT_MAX_TERMINAL_CONNECTIONS = 3;
 export const batteryTerminals: CheckDefinition = {
   id: "battery-terminals",
   title: "Battery terminal connections",
+  scopeTopic: "terminal-rating",
+  formula:
+    "conductors landed on each battery terminal ≤ the number it allows (three by common practice)",
   run(ctx: CheckContext): CheckResult[] {
     const codeRefs = refs(ctx.edition, "terminal-rating", "listing-use");
     return equipmentOfKind(ctx, "battery").map((b) => {

@@ -9,6 +9,9 @@ import type { CheckResult } from "../types";
 export const circuitCurrentCheck: CheckDefinition = {
   id: "circuit-current",
   title: "Circuit current",
+  scopeTopic: "pv-circuit-current",
+  formula:
+    "PV: 1.25 × Isc × strings; inverter DC input: continuous W ÷ (lowest battery V × efficiency); AC: the equipment's continuous output",
   run(ctx: CheckContext): CheckResult[] {
     const out: CheckResult[] = [];
     for (const ci of ctx.circuits) {

@@ -8,6 +8,9 @@ import type { CheckResult } from "../types";
 export const conductorAmpacityCheck: CheckDefinition = {
   id: "conductor-ampacity",
   title: "Conductor ampacity with conditions of use",
+  scopeTopic: "ampacity-table",
+  formula:
+    "terminal-column ampacity ≥ 1.25 × current, and table ampacity × ambient correction × adjustment ≥ current",
   run(ctx: CheckContext): CheckResult[] {
     const out: CheckResult[] = [];
     for (const ci of ctx.circuits) {

@@ -18,6 +18,9 @@ export const BATTERY_OCPD_NEAR_FT = 5;
 export const deviceRatings: CheckDefinition = {
   id: "device-ratings",
   title: "Device ratings and listings",
+  scopeTopic: "listing-use",
+  formula:
+    "DC-rated devices at or above the circuit's maximum voltage; interrupting rating ≥ available fault current; listed for the use",
   run(ctx: CheckContext): CheckResult[] {
     const ed = ctx.edition;
     const out: CheckResult[] = [];

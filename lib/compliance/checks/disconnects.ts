@@ -37,6 +37,9 @@ function circuitsNear(ctx: CheckContext, tag: string): Indexed<Circuit>[] {
 export const disconnects: CheckDefinition = {
   id: "disconnects",
   title: "Disconnecting means",
+  scopeTopic: "pv-disconnect",
+  formula:
+    "a disconnect or breaker on a circuit of the item, or one built into the equipment",
   run(ctx: CheckContext): CheckResult[] {
     const ed = ctx.edition;
     const out: CheckResult[] = [];

@@ -13,6 +13,9 @@ import type { CheckResult } from "../types";
 export const grounding: CheckDefinition = {
   id: "grounding",
   title: "Equipment grounding conductor",
+  scopeTopic: "egc-table",
+  formula:
+    "EGC ≥ Table 250.122 size for the protecting device (for unprotected PV circuits, the device 690.9(B) would require)",
   run(ctx: CheckContext): CheckResult[] {
     const ed = ctx.edition;
     const out: CheckResult[] = [];

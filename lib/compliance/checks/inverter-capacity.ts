@@ -16,6 +16,9 @@ export const ASSUMED_SURGE_RATIO = 2;
 export const inverterCapacity: CheckDefinition = {
   id: "inverter-capacity",
   title: "Inverter capacity",
+  scopeTopic: "stand-alone-supply",
+  formula:
+    "continuous W ≥ loads running together; surge W ≥ largest start + other running loads",
   run(ctx: CheckContext): CheckResult[] {
     const codeRefs = refs(ctx.edition, "stand-alone-supply", "listing-use");
     const inverters = ctx.record.equipment.map((item, index) => ({ item, path: `equipment.${index}` })).filter((e) => isInverter(e.item));

@@ -8,6 +8,9 @@ import type { CheckResult } from "../types";
 export const labelsRequired: CheckDefinition = {
   id: "labels",
   title: "Labels required",
+  scopeTopic: "field-marking",
+  formula:
+    "one label per requirement, with the computed values, where the code puts it",
   run(ctx: CheckContext): CheckResult[] {
     const labels = labelsFor(ctx);
     const codeRefs = [...refs(ctx.edition, "field-marking"), ...labels.map((l) => l.codeRef)];

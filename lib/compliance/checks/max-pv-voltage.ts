@@ -8,6 +8,9 @@ import type { CheckResult } from "../types";
 export const maxPvVoltage: CheckDefinition = {
   id: "max-pv-voltage",
   title: "Maximum PV system voltage at the design low temperature",
+  scopeTopic: "max-voltage",
+  formula:
+    "Voc × modules in series × cold correction (module coefficient, else Table 690.7(A)) ≤ every rating on the circuit and the building limit",
   run(ctx: CheckContext): CheckResult[] {
     const codeRefs = refs(ctx.edition, "max-voltage", "voltage-correction-table", "building-voltage-limit");
     const out: CheckResult[] = [];

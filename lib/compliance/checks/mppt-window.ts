@@ -20,6 +20,9 @@ export const PWM_HEADROOM_V = 1;
 export const mpptWindow: CheckDefinition = {
   id: "mppt-window",
   title: "MPPT operating window at the design high temperature",
+  scopeTopic: "listing-use",
+  formula:
+    "Vmp × modules in series × (1 + Vmp coefficient × (design high + module rise − 25 °C)) ≥ the input's lowest tracking voltage (and the battery charge voltage + headroom)",
   run(ctx: CheckContext): CheckResult[] {
     const codeRefs = refs(ctx.edition, "listing-use");
     const out: CheckResult[] = [];

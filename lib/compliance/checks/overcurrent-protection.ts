@@ -23,6 +23,9 @@ export function maxProtectiveRatingA(allowedA: number): number {
 export const overcurrentProtection: CheckDefinition = {
   id: "overcurrent-protection",
   title: "Overcurrent protection",
+  scopeTopic: "pv-ocpd",
+  formula:
+    "1.25 × continuous current ≤ device rating ≤ conductor ampacity (next standard size up, 240.4(B); small-conductor limits, 240.4(D))",
   run(ctx: CheckContext): CheckResult[] {
     const ed = ctx.edition;
     const out: CheckResult[] = [];

@@ -12,6 +12,9 @@ import type { CheckResult } from "../types";
 export const panelBusbar: CheckDefinition = {
   id: "panel-busbar",
   title: "Panel busbar",
+  scopeTopic: "busbar",
+  formula:
+    "1.25 × inverter output current + main ≤ 1.2 × bus (or sum of breakers ≤ bus); stand-alone: output device ≤ bus",
   run(ctx: CheckContext): CheckResult[] {
     const codeRefs = refs(ctx.edition, "busbar");
     const out: CheckResult[] = [];

@@ -23,6 +23,9 @@ export function rapidShutdownApplies(ctx: CheckContext): { applies: boolean; rea
 export const rapidShutdown: CheckDefinition = {
   id: "rapid-shutdown",
   title: "Rapid shutdown",
+  scopeTopic: "rapid-shutdown",
+  formula:
+    "PV circuits on or in a building: a named method and the devices that carry it out",
   run(ctx: CheckContext): CheckResult[] {
     const codeRefs = refs(ctx.edition, "rapid-shutdown");
     const t = new Trace();

@@ -19,6 +19,9 @@ export const ARRAY_DERATE = 0.75;
 export const standAloneSizing: CheckDefinition = {
   id: "stand-alone-sizing",
   title: "Stand-alone sizing",
+  scopeTopic: "stand-alone-supply",
+  formula:
+    "usable storage ÷ daily energy ≥ days of autonomy; array W × sun hours × 0.75 ≥ daily energy",
   run(ctx: CheckContext): CheckResult[] {
     const r = ctx.record;
     const codeRefs = refs(ctx.edition, "stand-alone-supply");

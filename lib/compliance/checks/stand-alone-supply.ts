@@ -39,6 +39,9 @@ export function singleSupplyPanels(ctx: CheckContext): { panel: Indexed<Panel>; 
 export const standAloneSupply: CheckDefinition = {
   id: "stand-alone-supply",
   title: "Stand-alone supply",
+  scopeTopic: "stand-alone-supply",
+  formula:
+    "inverter output ≥ largest single load; 120 V-only supply to a 120/240 V panel: warning label, no multiwire branch circuits",
   run(ctx: CheckContext): CheckResult[] {
     const codeRefs = refs(ctx.edition, "stand-alone-supply");
     if (ctx.record.systemKind === "hybrid") {

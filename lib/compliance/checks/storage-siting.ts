@@ -13,6 +13,9 @@ import type { CheckResult, CheckStatus } from "../types";
 export const storageSiting: CheckDefinition = {
   id: "storage-siting",
   title: "Energy storage siting",
+  scopeTopic: "ess-listing",
+  formula:
+    "unit and aggregate kWh within the location's limits, spacing, detection, impact protection, listing",
   run(ctx: CheckContext): CheckResult[] {
     const r = ctx.record;
     const rules = storageSitingRules(r.jurisdiction.residentialCode);

@@ -14,6 +14,9 @@ export { DATASHEET_KINDS } from "../documents";
 export const submittalCompleteness: CheckDefinition = {
   id: "submittal-completeness",
   title: "Submittal completeness",
+  scopeTopic: "listing-use",
+  formula:
+    "every document the jurisdiction requires is attached",
   run(ctx: CheckContext): CheckResult[] {
     const r = ctx.record;
     const codeRefs = [`${r.jurisdiction.name} submittal requirements`, ...refs(ctx.edition, "listing-use")];

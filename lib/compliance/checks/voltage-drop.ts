@@ -20,6 +20,9 @@ export function voltageDropV(lengthFt: number, ohmPerKft: number, currentA: numb
 export const voltageDrop: CheckDefinition = {
   id: "voltage-drop",
   title: "Voltage drop",
+  scopeTopic: "voltage-drop",
+  formula:
+    "2 × one-way length × Ω/kft × operating current ÷ 1000 ÷ operating voltage ≤ limit",
   run(ctx: CheckContext): CheckResult[] {
     const ed = ctx.edition;
     const codeRefs = refs(ed, "voltage-drop", "dc-resistance");

@@ -65,3 +65,12 @@ export {
   type StorageLocationKind,
   type StorageSitingRules,
 } from "./storage-siting";
+export {
+  INSULATION_TYPES,
+  RACEWAY_TYPES,
+  insulationType,
+  racewayType,
+  type ConductorClass,
+  type InsulationType,
+  type RacewayType,
+} from "./wiring-types";
