@@ -19,7 +19,10 @@ export const authConfig = {
       if (path.startsWith("/api/")) {
         return Response.json({ error: "Sign in to continue.", code: "unauthenticated", issues: [] }, { status: 401 });
       }
-      return false;
+      // The redirect is made here rather than by returning false, because the proxy's own handler runs only for allowed requests.
+      const signIn = new URL("/sign-in", request.nextUrl);
+      signIn.searchParams.set("callbackUrl", request.nextUrl.href);
+      return Response.redirect(signIn);
     },
     jwt({ token, user }) {
       if (user) {

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { requireContext } from "@/lib/auth/session";
 import { env } from "@/lib/env";
-import { errorResponse } from "@/lib/http";
+import { errorResponse, originRefusal } from "@/lib/http";
 import { uploadAttachment } from "@/lib/services/attachments";
 import { requirePermission } from "@/lib/services/context";
 import { formatBytes } from "@/lib/uploads/format-bytes";
@@ -23,6 +23,8 @@ function refusal(status: number, message: string, reason: string) {
  */
 export async function POST(request: Request): Promise<Response> {
   try {
+    const refused = originRefusal(request);
+    if (refused) return refused;
     const ctx = await requireContext();
     // Who may upload is known before a byte of the body is read.
     requirePermission(ctx, "attachment:upload", "attach files");
