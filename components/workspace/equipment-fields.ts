@@ -63,6 +63,7 @@ const protectiveFields: RatingField[] = [
 
 const panelFields: RatingField[] = [
   { key: "busRatingA", label: "Bus rating", unit: "A", type: "number" },
+  { key: "neutralBusRatingA", label: "Neutral bus rating", unit: "A", type: "number", help: "A single 120 V supply's sources must stay below it." },
   { key: "mainBreakerA", label: "Main breaker", unit: "A", type: "number" },
   { key: "voltage", label: "Voltage", type: "select", options: opts("12", "24", "48", "120", "240", "120/240", "208", "277/480", "other") },
   { key: "sumOfBreakersA", label: "Sum of breakers", unit: "A", type: "number" },

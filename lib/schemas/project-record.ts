@@ -204,6 +204,8 @@ export const panelSchema = z.object({
   mainBreakerA: numberIn(1, 5000, "A").optional(),
   voltage: z.enum(["12", "24", "48", "120", "240", "120/240", "208", "277/480", "other"]).optional(),
   hasMultiwireBranchCircuits: z.boolean().optional(),
+  /** Rating of the neutral bus; a single 120 V supply's sources must stay below it (710.15(C)). */
+  neutralBusRatingA: numberIn(1, 5000, "A").optional(),
   /** Sum of the ratings of all breakers on the bus, for the sum-of-breakers rule. */
   sumOfBreakersA: numberIn(0, 20000, "A").optional(),
 });

@@ -228,7 +228,7 @@ export const overcurrentProtection: CheckDefinition = {
         out.push(needsInput(this, { subject: c.tag, values, inputs: t.inputs, missing: t.missing, codeRefs: [...codeRefs, ...refs(ed, "string-fuse", "listing-use")] }));
         continue;
       }
-      if (seriesFuse !== undefined) {
+      if (typeof seriesFuse === "number") {
         values.push(v("maxSeriesFuseA", "Module maximum series fuse", seriesFuse, "A"));
         codeRefs.push(...refs(ed, "string-fuse", "listing-use"));
         if (rating > seriesFuse) problems.push(`${e.tag} at ${rating} A is above the module's ${seriesFuse} A maximum series fuse rating (module listing, 110.3(B), 690.9)`);
