@@ -12,6 +12,7 @@ import { renderSheetTemplate } from "./templates";
 import type { PacketInput } from "./types";
 
 export * from "./plan";
+export { templateContext };
 
 /**
  * The documents the jurisdiction requires that the packet does not carry, in

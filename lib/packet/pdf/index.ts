@@ -6,6 +6,7 @@ import { buildPacketModel, type Sheet } from "../model";
 import { prepareOneLine, type OneLineDrawer } from "../one-line";
 import { beginTextLayer, endTextLayer } from "../text-layer";
 import type { PacketInput, PacketPdf, SheetPages } from "../types";
+import { assertDecodableImage } from "../../uploads/image-size";
 import { drawDatasheetMargin, type MarginStreams } from "./datasheet-margin";
 import { CONTENT, FLOW_TOP, PAGE_H, PAGE_W, type Ctx, type PageInfo } from "./style";
 import { drawBand, drawTitleBlock, drawZones } from "./title-block";
@@ -45,6 +46,8 @@ async function embedSitePlan(doc: PDFDocument, input: PacketInput): Promise<Ctx[
     const [page] = await doc.embedPdf(src, [0]);
     return page ? { kind: "page", page } : null;
   }
+  // Checked at upload too; a file stored before that check must not be decoded blind.
+  assertDecodableImage(sp.bytes, sp.type === "png" ? "png" : "jpeg", "The site plan image");
   const image = sp.type === "png" ? await doc.embedPng(sp.bytes) : await doc.embedJpg(sp.bytes);
   return { kind: "image", image };
 }
@@ -77,6 +80,7 @@ async function renderOnce(
   beginTextLayer(doc);
   const fonts = await embedPacketFonts(doc);
   const sitePlan = await embedSitePlan(doc, input);
+  if (input.approval?.stampImage) assertDecodableImage(input.approval.stampImage.bytes, input.approval.stampImage.type === "png" ? "png" : "jpeg", "The stamp image");
   const stamp = input.approval?.stampImage
     ? input.approval.stampImage.type === "png"
       ? await doc.embedPng(input.approval.stampImage.bytes)
