@@ -1,5 +1,6 @@
 import type { CheckResult, CheckStatus } from "../compliance/types";
 import { EQUIPMENT_KIND_LABELS, type Circuit, type Equipment, type ProjectRecord } from "../schemas/project-record";
+import { CIRCUIT_KIND_TITLES } from "../schemas/vocabulary";
 import { DATASHEET_KINDS as DATASHEET_KIND_LIST, missingDocuments as missingOnFileDocuments } from "../compliance/documents";
 import { dash, formatNumber, isoDate } from "./format";
 import type { Block, Cell, TableColumn } from "./markup";
@@ -108,15 +109,7 @@ const KIND_LABEL: Record<Equipment["kind"], string> = {
   "ac-panel": "AC distribution panel",
 };
 
-const CIRCUIT_KIND_LABEL: Record<Circuit["kind"], string> = {
-  "pv-source": "PV source",
-  "pv-output": "PV output",
-  battery: "Battery",
-  "inverter-dc-input": "Inverter DC input",
-  "inverter-ac-output": "Inverter AC output",
-  "generator-output": "Generator output",
-  "ac-branch": "AC branch",
-};
+const CIRCUIT_KIND_LABEL: Record<Circuit["kind"], string> = CIRCUIT_KIND_TITLES;
 
 /** Equipment whose datasheet a permit office asks for (the submittal check's list). */
 const DATASHEET_KINDS = new Set<string>(DATASHEET_KIND_LIST);
