@@ -2,7 +2,8 @@
  * The ratings a designer enters for each equipment kind, in the order they
  * appear on a datasheet. Names and units follow the project record schema.
  */
-import { EQUIPMENT_KIND_LABELS, type EquipmentKind } from "@/lib/schemas/project-record";
+import { EQUIPMENT_KIND_LABELS, EQUIPMENT_KINDS, type EquipmentKind } from "@/lib/schemas/project-record";
+import type { GridColumn } from "./editable-grid";
 import type { FieldType, Option } from "./field-control";
 
 export interface RatingField {
@@ -138,3 +139,22 @@ export function changeKind(row: Record<string, unknown>, kind: EquipmentKind): R
   if (kind === "rapid-shutdown") base.controls = "";
   return base;
 }
+
+const KIND_OPTIONS: Option[] = EQUIPMENT_KINDS.map((k) => ({ value: k, label: EQUIPMENT_KIND_LABELS[k] }));
+
+export const EQUIPMENT_COLUMNS: GridColumn[] = [
+  { key: "tag", header: "Tag", type: "text", width: "w-20" },
+  { key: "kind", header: "Kind", type: "select", options: KIND_OPTIONS, required: true, width: "w-40" },
+  { key: "manufacturer", header: "Manufacturer", type: "text", width: "w-32" },
+  { key: "model", header: "Model", type: "text", width: "w-32" },
+  { key: "quantity", header: "Qty", type: "integer", width: "w-14" },
+  { key: "listing", header: "Listing", type: "text", width: "w-28" },
+];
+
+export const MPPT_INPUT_COLUMNS: GridColumn[] = [
+  { key: "id", header: "Input id", type: "text", width: "w-16" },
+  { key: "maxVoltageV", header: "Max voltage", unit: "V", type: "number" },
+  { key: "maxCurrentA", header: "Max current", unit: "A", type: "number" },
+  { key: "minOperatingVoltageV", header: "Window low", unit: "V", type: "number" },
+  { key: "maxOperatingVoltageV", header: "Window high", unit: "V", type: "number" },
+];

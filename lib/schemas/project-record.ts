@@ -442,9 +442,11 @@ function checkReferences(record: RecordShape, ctx: z.RefinementCtx): void {
   const claim = (tag: string, path: (string | number)[]) => {
     const first = seen.get(tag);
     if (first !== undefined) {
-      ctx.addIssue({ code: "custom", path, message: `duplicate tag "${tag}" (already used at ${first})` });
+      ctx.addIssue({ code: "custom", path, message: `duplicate tag "${tag}": ${first} already has it` });
     } else {
-      seen.set(tag, path.slice(0, 2).join("."));
+      // Named as the editor numbers rows (from 1), so the message reads the same wherever it is shown.
+      const noun = path[0] === "equipment" ? "equipment row" : path[0] === "arrays" ? "array row" : "circuit row";
+      seen.set(tag, `${noun} ${Number(path[1]) + 1}`);
     }
   };
   record.equipment.forEach((e, i) => {

@@ -12,6 +12,7 @@ import { arrayIsc, arrayParts } from "../derive/pv";
 import { localRef, refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
+import { CIRCUIT_KIND_WORDS, withArticle } from "../../schemas/vocabulary";
 
 /** Largest device that protects a conductor of `allowedA`: the ampacity, or the next standard rating up to 800 A (240.4(B)). */
 export function maxProtectiveRatingA(allowedA: number): number {
@@ -151,7 +152,7 @@ export const overcurrentProtection: CheckDefinition = {
           makeResult(this, {
             subject: c.tag,
             status: "fail",
-            message: `${c.tag}: no overcurrent device named; a ${c.kind} circuit needs one (at least ${minStandardA ?? minA.toFixed(0)} A).`,
+            message: `${c.tag}: no overcurrent device named; ${withArticle(CIRCUIT_KIND_WORDS[c.kind])} circuit needs one (at least ${minStandardA ?? minA.toFixed(0)} A).`,
             reason: `no overcurrent device recorded in ${ci.path}.ocpdTag`,
             values: [v("minimumA", "Minimum device rating", minA, "A")],
             formula: `${factor} × ${I.toFixed(2)} A = ${minA.toFixed(2)} A → next standard rating ${minStandardA ?? "—"} A`,
