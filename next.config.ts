@@ -1,5 +1,5 @@
 import type { NextConfig } from "next";
-import { API_CONTENT_SECURITY_POLICY, HSTS, STATIC_SECURITY_HEADERS } from "./lib/security-headers";
+import { HSTS, STATIC_SECURITY_HEADERS } from "./lib/security-headers";
 
 const staticHeaders = Object.entries(STATIC_SECURITY_HEADERS).map(([key, value]) => ({ key, value }));
 
@@ -8,12 +8,12 @@ const nextConfig: NextConfig = {
   serverExternalPackages: ["better-sqlite3", "pdfjs-dist", "@pdf-lib/fontkit", "smtp-server"],
   poweredByHeader: false,
   typedRoutes: false,
-  // The proxy sets these (and the page CSP with its nonce); this covers what it does not see: static files and the upload route.
+  // Every response, route handlers and static files included. The page CSP (with its nonce) comes from proxy.ts,
+  // a route handler's from lib/http.ts: headers set here win over a route's own, so no CSP is set here.
   async headers() {
     return [
       { source: "/:path*", headers: staticHeaders },
       { source: "/:path*", has: [{ type: "header", key: "x-forwarded-proto", value: "https" }], headers: [{ key: "Strict-Transport-Security", value: HSTS }] },
-      { source: "/api/uploads", headers: [{ key: "Content-Security-Policy", value: API_CONTENT_SECURITY_POLICY }] },
     ];
   },
 };

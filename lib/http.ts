@@ -3,6 +3,7 @@ import { NextResponse } from "next/server";
 import type { z } from "zod";
 import { formatIssues } from "./schemas/fields";
 import { env } from "./env";
+import { API_CONTENT_SECURITY_POLICY } from "./security-headers";
 import { HTTP_STATUS, ServiceError } from "./services/errors";
 import { BodyTooLargeError, readTextLimited } from "./uploads/limited-body";
 
@@ -87,18 +88,33 @@ export function originRefusal(request: Request): NextResponse | null {
   return allowed.has(origin) ? null : refuse();
 }
 
-/** Wraps a route handler body so the origin is checked and typed errors map once, here. */
+/**
+ * A route handler's answer is data, never a page: nothing in it may run or be
+ * framed. Files served inline set their own sandboxed policy, which is kept.
+ * (next.config adds the headers every response carries.)
+ */
+export function withApiHeaders(response: Response): Response {
+  try {
+    if (!response.headers.has("content-security-policy")) response.headers.set("Content-Security-Policy", API_CONTENT_SECURITY_POLICY);
+    response.headers.set("X-Content-Type-Options", "nosniff");
+  } catch {
+    // A redirect's headers are immutable; it has no body to protect.
+  }
+  return response;
+}
+
+/** Wraps a route handler body so the origin is checked, typed errors map once, and the API headers are set, here. */
 export function handle<A extends unknown[]>(fn: (...args: A) => Promise<Response>) {
   return async (...args: A): Promise<Response> => {
     try {
       const request = args[0];
       if (request instanceof Request) {
         const refused = originRefusal(request);
-        if (refused) return refused;
+        if (refused) return withApiHeaders(refused);
       }
-      return await fn(...args);
+      return withApiHeaders(await fn(...args));
     } catch (error) {
-      return errorResponse(error);
+      return withApiHeaders(errorResponse(error));
     }
   };
 }
