@@ -11,7 +11,7 @@ describe("what changed between revisions, for the cover's history", () => {
   });
 
   it("names the circuit a designer resized and the equipment added, by tag", () => {
-    const circuits = hut.circuits.map((c, i) => (i === 0 ? { ...c, size: "8" } : c));
+    const circuits = hut.circuits.map((c, i) => (i === 0 ? { ...c, size: "8" as const } : c));
     const extra = { ...hut.equipment.find((e) => e.kind === "breaker")!, tag: "CB-9" };
     const after = { ...hut, circuits, equipment: [...hut.equipment, extra] };
     const text = describeRecordChanges(hut, after);
