@@ -1,3 +1,4 @@
+import "server-only";
 /**
  * Typed service errors, mapped to HTTP once at the edge (lib/http.ts).
  * Messages are safe to show: they never carry another organisation's data.

@@ -1,3 +1,4 @@
+import "server-only";
 import { eq } from "drizzle-orm";
 import { organisations } from "../../db/schema";
 import type { ServiceContext } from "./context";

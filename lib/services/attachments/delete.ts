@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import { attachments, projects } from "../../../db/schema";
 import { fileStore } from "../../storage";

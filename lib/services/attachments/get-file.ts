@@ -1,3 +1,4 @@
+import "server-only";
 import { createHash } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { users } from "../../../db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 export { uploadAttachment, uploadFieldsSchema, cleanFileName, type UploadInput, type UploadResult } from "./upload";
 export { listProjectAttachments } from "./list";
 export { getAttachment, getAttachmentFile, getAttachmentFiles } from "./get-file";

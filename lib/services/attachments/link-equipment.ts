@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import { attachments, projectEquipment } from "../../../db/schema";
 import { tagSchema } from "../../schemas/fields";

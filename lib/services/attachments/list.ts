@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { attachments, users } from "../../../db/schema";
 import type { ServiceContext } from "../context";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import { attachments, packetRevisions, projects, reviews, siteConfirmations } from "../../../db/schema";
 import { requiredLabels, type LabelRequirement } from "../../compliance/labels";

@@ -1,3 +1,4 @@
+import "server-only";
 import { asc, eq } from "drizzle-orm";
 import { jurisdictions, type Jurisdiction } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, desc, eq, sql } from "drizzle-orm";
 import { PDFDocument } from "pdf-lib";
 import { jurisdictions, projects, type Jurisdiction } from "../../../db/schema";

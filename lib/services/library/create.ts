@@ -1,3 +1,4 @@
+import "server-only";
 import { eq } from "drizzle-orm";
 import { equipmentLibrary } from "../../../db/schema";
 import { formatIssues } from "../../schemas/fields";

@@ -1,3 +1,4 @@
+import "server-only";
 import { eq } from "drizzle-orm";
 import { equipmentLibrary } from "../../../db/schema";
 import { parseEquipmentCsv, type RowProblem } from "../../equipment-csv/parse";

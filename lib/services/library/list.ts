@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq, inArray, isNull, type SQL } from "drizzle-orm";
 import { equipmentLibrary } from "../../../db/schema";
 import { libraryKindSchema, type LibraryItemView } from "../../schemas/library-item";

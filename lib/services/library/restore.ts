@@ -1,3 +1,4 @@
+import "server-only";
 import type { LibraryItemView } from "../../schemas/library-item";
 import { requirePermission, type ServiceContext } from "../context";
 import { setRetired } from "./retire";

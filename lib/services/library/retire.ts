@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { equipmentLibrary } from "../../../db/schema";
 import type { LibraryItemView } from "../../schemas/library-item";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { equipmentLibrary } from "../../../db/schema";
 import { formatIssues } from "../../schemas/fields";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import { equipmentLibrary, type EquipmentLibraryItem } from "../../../db/schema";
 import type { LibraryItemView } from "../../schemas/library-item";

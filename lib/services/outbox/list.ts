@@ -1,3 +1,4 @@
+import "server-only";
 import { desc, eq } from "drizzle-orm";
 import { outbox, type OutboxMessage } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";

@@ -1,3 +1,4 @@
+import "server-only";
 import { runChecks, type CheckRun } from "../../compliance";
 import type { NecEdition } from "../../schemas/project-record";
 import type { ServiceContext } from "../context";

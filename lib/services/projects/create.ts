@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import { z } from "zod";
 import { jurisdictions, projects } from "../../../db/schema";

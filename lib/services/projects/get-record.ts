@@ -1,3 +1,4 @@
+import "server-only";
 import { projectRecordSchema, type ProjectRecord } from "../../schemas/project-record";
 import { formatIssues } from "../../schemas/fields";
 import { requirePermission, type ServiceContext } from "../context";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import { jurisdictions, loads, circuits, projectEquipment, projects, pvArrays } from "../../../db/schema";
 import { parseProjectFile } from "../../compliance";

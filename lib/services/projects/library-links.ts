@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { equipmentLibrary } from "../../../db/schema";
 import type { ServiceContext } from "../context";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq, sql } from "drizzle-orm";
 import { circuits, jurisdictions, projects } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";

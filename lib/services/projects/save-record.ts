@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { circuits, loads, projectEquipment, projects, pvArrays } from "../../../db/schema";
 import { formatIssues } from "../../schemas/fields";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { packetRevisions, projects, reviewNotes, reviews, users, type LicenceSnapshot } from "../../../db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq, inArray } from "drizzle-orm";
 import { packetRevisions, reviewNotes, reviews, users, type LicenceSnapshot, type PacketRevision } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";

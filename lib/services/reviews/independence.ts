@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq, gt, or, sql } from "drizzle-orm";
 import { auditLog, jurisdictions, packetRevisions, type PacketRevision, type Project, type ReviewerLicence } from "../../../db/schema";
 import type { ServiceContext } from "../context";

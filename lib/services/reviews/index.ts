@@ -1,3 +1,4 @@
+import "server-only";
 export { sendForReview, type SendOptions, type SentForReview } from "./send";
 export { decideReview, type DecideOptions, type Decided } from "./decide";
 export { renderStampedPacketAgain, type RestampOptions } from "./restamp";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import { packetRevisions } from "../../../db/schema";
 import { can } from "../../auth/permissions";

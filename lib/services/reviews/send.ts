@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { packetRevisions, projects } from "../../../db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { attachments, projects, reviewerLicences, userRoles, users, type PacketRevision, type ReviewerLicence } from "../../../db/schema";

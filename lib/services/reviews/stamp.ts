@@ -1,3 +1,4 @@
+import "server-only";
 import { createHash } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { PDFDocument } from "pdf-lib";

@@ -1,3 +1,4 @@
+import "server-only";
 import { eq } from "drizzle-orm";
 import { jurisdictions } from "../../../db/schema";
 import { can } from "../../auth/permissions";

@@ -1,3 +1,4 @@
+import "server-only";
 import { spawn } from "node:child_process";
 import path from "node:path";
 import type { Db } from "../../../db/client";
@@ -11,7 +12,7 @@ import { failRevision } from "./generate";
 export function dispatchRevisionWorker(db: Db, revisionId: string): void {
   const root = process.cwd();
   const script = path.join(/*turbopackIgnore: true*/ root, "scripts", "generate-revision.ts");
-  const child = spawn("npx", ["tsx", script, revisionId], { cwd: root, env: process.env, detached: true, stdio: "ignore" });
+  const child = spawn("npx", ["tsx", "--conditions=react-server", script, revisionId], { cwd: root, env: process.env, detached: true, stdio: "ignore" });
   child.once("error", (error) => failRevision(db, revisionId, `the generation process could not start (${error.message})`));
   child.once("exit", (code, signal) => {
     // The worker records its own failures; this catches a crash before it could.

@@ -1,3 +1,4 @@
+import "server-only";
 import { missingDocuments as missingOnFile } from "../../compliance/documents";
 import type { ProjectRecord } from "../../schemas/project-record";
 

@@ -1,3 +1,4 @@
+import "server-only";
 import { createHash } from "node:crypto";
 import { requirePermission, type ServiceContext } from "../context";
 import { conflict, notFound } from "../errors";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq, lte } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { packetRevisions, reviews, users, type PacketRevision } from "../../../db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 export { preflightPacket, type Preflight, type PreflightCheck } from "./preflight";
 export { startRevision, type StartedRevision, type StartOptions } from "./start";
 export { generateRevisionArtifacts, failRevision } from "./generate";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { packetRevisions, users } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";

@@ -1,3 +1,4 @@
+import "server-only";
 import { runChecks, type CheckRun, type CheckStatus } from "../../compliance";
 import { requiredLabels } from "../../compliance/labels";
 import type { ProjectRecord } from "../../schemas/project-record";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq, inArray } from "drizzle-orm";
 import { jurisdictions, packetRevisions, projects, submissions } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";

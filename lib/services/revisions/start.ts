@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, max } from "drizzle-orm";
 import { packetRevisions } from "../../../db/schema";
 import { canonicalJson, sha256Hex } from "../../canonical-json";

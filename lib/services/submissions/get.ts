@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, desc, eq, notInArray } from "drizzle-orm";
 import { jurisdictions, packetRevisions, projects, submissionEvents, submissions, users } from "../../../db/schema";
 import type { EventKind } from "../../schemas/submission";

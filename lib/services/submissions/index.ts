@@ -1,3 +1,4 @@
+import "server-only";
 export { createSubmission, type CreateOptions, type CreatedSubmission } from "./create";
 export { recordSubmissionEvent, type RecordEventOptions, type RecordedEvent } from "./record-event";
 export { getSubmission, listSubmittableRevisions, type SubmissionView, type SubmissionEventView, type SubmittableRevision } from "./get";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { jurisdictions, packetRevisions, projects, submissionEvents, submissions } from "../../../db/schema";
 import type { EventKind } from "../../schemas/submission";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq, inArray } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { projects, submissionEvents, submissions } from "../../../db/schema";

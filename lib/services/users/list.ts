@@ -1,3 +1,4 @@
+import "server-only";
 import { asc, eq } from "drizzle-orm";
 import { userRoles, users } from "../../../db/schema";
 import type { Role } from "../../auth/roles";

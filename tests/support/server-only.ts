@@ -1,0 +1,2 @@
+// Tests run services directly, outside a React server render; the marker package would throw there.
+export {};
