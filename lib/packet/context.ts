@@ -60,7 +60,7 @@ function scopeLines(record: ProjectRecord): string[] {
   return lines;
 }
 
-export function templateContext(input: PacketInput, sheet: { code: string; title: string; kind: string }, sheetPages: Map<string, string>, datasheets: PacketDatasheet[], draft: { isDraft: boolean; reasons: string[] }): TemplateContext {
+export function templateContext(input: PacketInput, sheet: { code: string; title: string; kind: string }, sheetPages: Map<string, string>, datasheets: PacketDatasheet[], draft: { isDraft: boolean; reasons: string[] }, sheetNumbers?: Map<string, string>): TemplateContext {
   const { record, run, revision, approval } = input;
   const fig = systemFigures(record);
   const hasBattery = record.equipment.some((e) => e.kind === "battery");
@@ -94,7 +94,7 @@ export function templateContext(input: PacketInput, sheet: { code: string; title
     revision: { number: String(revision.number), date: isoDate(revision.createdAt), createdAt: revision.createdAt },
     sheet: { code: sheet.code, title: sheet.title, kind: sheet.kind },
     sheets: [
-      ...SHEET_PLAN.map((s) => ({ code: s.code, title: s.title, pages: sheetPages.get(s.code) ?? "" })),
+      ...SHEET_PLAN.map((s) => ({ code: sheetNumbers?.get(s.code) ?? s.code, title: s.title, pages: sheetPages.get(s.code) ?? "" })),
       ...datasheets.map((d) => ({ code: d.code, title: d.title, pages: sheetPages.get(d.code) ?? "" })),
     ],
     scope: scopeLines(record),

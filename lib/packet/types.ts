@@ -21,6 +21,9 @@ export interface PacketRevision {
   createdAt: string;
   preparedBy: string;
   organisation: string;
+  /** The contractor's licence and contact as the organisation record holds them. */
+  organisationLicence?: { number: string; classification?: string; state?: string };
+  organisationContact?: { phone?: string; email?: string; address?: string };
 }
 
 export interface PacketApproval {
