@@ -26,6 +26,15 @@ export interface PacketRevision {
   organisationContact?: { phone?: string; email?: string; address?: string };
 }
 
+/** One line of the cover's revision history. */
+export interface RevisionHistoryEntry {
+  number: number;
+  /** ISO 8601. */
+  date: string;
+  change: string;
+  by: string;
+}
+
 export interface PacketApproval {
   reviewerName: string;
   licenceNumber: string;
@@ -69,6 +78,8 @@ export interface PacketInput {
   datasheets: DatasheetAttachment[];
   /** Handlebars sources replacing the shipped sheet templates (a jurisdiction's cover letter, general notes). */
   templateOverrides?: Partial<Record<SheetTemplateName, string>>;
+  /** Earlier revisions of the project and this one, oldest first. Without it the cover lists this revision alone. */
+  revisionHistory?: RevisionHistoryEntry[];
 }
 
 export interface SheetPages {
