@@ -19,6 +19,7 @@ import { LoadsSection } from "./loads-section";
 import { ArraysSection, CircuitsSection } from "./row-sections";
 import { ProjectSection, SiteSection } from "./site-section";
 import { useUnsavedGuard } from "./unsaved-guard";
+import { useRecordHistory } from "./use-record-history";
 
 const SECTIONS = [
   ["project", "Project"],
@@ -66,6 +67,7 @@ export function ProjectEditor({
     return () => sub.unsubscribe();
   }, [form]);
   useUnsavedGuard(isDirty && canEdit, bypassGuard);
+  const history = useRecordHistory(form, record);
 
   const submit = form.handleSubmit(
     async (values) => {
@@ -141,6 +143,16 @@ export function ProjectEditor({
               ))}
             </nav>
             <span className="flex-1" />
+            {canEdit ? (
+              <span className="flex gap-1">
+                <button type="button" className="btn-quiet px-2 py-0.5 text-xs" disabled={!history.canUndo} onClick={history.undo} title="Ctrl+Z">
+                  Undo
+                </button>
+                <button type="button" className="btn-quiet px-2 py-0.5 text-xs" disabled={!history.canRedo} onClick={history.redo} title="Ctrl+Shift+Z">
+                  Redo
+                </button>
+              </span>
+            ) : null}
             <span className="figure text-xs text-ink-faint">v{version}</span>
             <span aria-live="polite" className="text-xs" data-testid="save-state">
               {save.kind === "saving"
@@ -191,7 +203,7 @@ export function ProjectEditor({
               <LoadsSection />
               <DiagramSection />
             </fieldset>
-            <aside className="w-full shrink-0 xl:sticky xl:top-14 xl:w-[24rem]" aria-label="Live checks">
+            <aside className="w-full shrink-0 xl:sticky xl:top-14 xl:w-[20rem] 2xl:w-[24rem]" aria-label="Live checks">
               <ChecksPanel projectId={projectId} />
             </aside>
           </div>
