@@ -139,13 +139,21 @@ export function CircuitsSection() {
   const primary = CIRCUIT_PRIMARY_KEYS.map((k) => columns.find((c) => c.key === k)!);
   const detail = columns.filter((c) => !(CIRCUIT_PRIMARY_KEYS as readonly string[]).includes(c.key));
 
-  const addDevice = (i: number, ampere: number, side: "dc" | "ac") => {
+  /** The library's smallest fuse or breaker of the right current type between the minimum and what the conductor allows. */
+  const libraryDevice = (s: CircuitSuggestion, side: "dc" | "ac"): LibraryDevice | undefined =>
+    (library.data ?? [])
+      .filter((d) => {
+        const a = d.ratings.ratingA;
+        return typeof a === "number" && a >= (s.ocpdA ?? Infinity) && a <= (s.maxOcpdA ?? s.ocpdA ?? 0) && (d.ratings.currentType === side || d.ratings.currentType === "ac-dc");
+      })
+      .sort((a, b) => Number(a.ratings.ratingA) - Number(b.ratings.ratingA))[0];
+
+  const addDevice = (i: number, s: CircuitSuggestion, side: "dc" | "ac") => {
     const rows = (getValues("equipment") ?? []) as Row[];
     const all = [...tagsRef.current.all];
     const kind: EquipmentKind = side === "dc" ? "fuse" : "breaker";
-    const fromLibrary = (library.data ?? []).find(
-      (d) => d.ratings.ratingA === ampere && (d.ratings.currentType === side || d.ratings.currentType === "ac-dc"),
-    );
+    const ampere = s.ocpdA!;
+    const fromLibrary = libraryDevice(s, side);
     const deviceKind = fromLibrary?.kind ?? kind;
     const tag = nextTag(TAG_PREFIX[deviceKind], all);
     const device: Row = fromLibrary
@@ -188,20 +196,30 @@ export function CircuitsSection() {
         return <Accept label={`suggested ${sizeWords(s.egcSize)}`} title={`Table 250.122 for a ${s.ocpdA} A device`} onClick={() => set(`circuits.${i}.egcSize`, s.egcSize)} />;
       case "ocpdTag": {
         if (!s?.ocpdA) return null;
+        if (s.ocpdRequired === false && !row.ocpdTag) return <Hint>none needed (690.9(A))</Hint>;
+        const fits = (a: unknown) => typeof a === "number" && a >= s.ocpdA! && a <= (s.maxOcpdA ?? s.ocpdA!);
         const current = equipment.find((e) => e.tag === row.ocpdTag);
-        if (current && current.ratingA === s.ocpdA) return <Hint>as suggested</Hint>;
+        if (current && fits(current.ratingA)) return <Hint>as suggested</Hint>;
         const side = s.side ?? "ac";
         const free = equipment.find(
           (e) =>
             (e.kind === "fuse" || e.kind === "breaker") &&
-            e.ratingA === s.ocpdA &&
+            fits(e.ratingA) &&
             (e.currentType === undefined || e.currentType === side || e.currentType === "ac-dc") &&
             !circuits.some((c) => c.ocpdTag === e.tag),
         );
         if (free) {
-          return <Accept label={`use ${String(free.tag)} · ${s.ocpdA} A`} title={s.basis} onClick={() => set(`circuits.${i}.ocpdTag`, free.tag)} />;
+          return <Accept label={`use ${String(free.tag)} · ${String(free.ratingA)} A`} title={s.basis} onClick={() => set(`circuits.${i}.ocpdTag`, free.tag)} />;
         }
-        return <Accept label={`add ${s.ocpdA} A ${side === "dc" ? "fuse" : "breaker"}`} title={s.basis} onClick={() => addDevice(i, s.ocpdA!, side)} />;
+        const item = libraryDevice(s, side);
+        const rating = item ? Number(item.ratings.ratingA) : s.ocpdA;
+        return (
+          <Accept
+            label={`add ${rating} A ${item ? item.kind : side === "dc" ? "fuse" : "breaker"}`}
+            title={item ? `${item.manufacturer} ${item.model} from the library; ${s.basis}` : s.basis}
+            onClick={() => addDevice(i, s, side)}
+          />
+        );
       }
       default:
         return null;

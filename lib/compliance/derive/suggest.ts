@@ -63,7 +63,12 @@ export interface CircuitSuggestion {
   /** Continuous current × sizing factor the conductor and device must carry, A. */
   requiredA?: number;
   size?: ConductorSize;
+  /** Smallest standard device rating that covers the current. */
   ocpdA?: number;
+  /** Largest device the suggested conductor may sit behind (240.4(B), 240.4(D)). */
+  maxOcpdA?: number;
+  /** False where the code lets the circuit go without a device (one or two PV strings, 690.9(A)). */
+  ocpdRequired?: boolean;
   egcSize?: ConductorSize;
   /** In words: what the suggestion rests on, including any assumption. */
   basis: string;
@@ -95,6 +100,7 @@ export function suggestCircuit(record: ProjectRecord, index: number): CircuitSug
   const dropLimit = record.jurisdiction.voltageDropLimitPct ?? DEFAULT_DROP_PCT;
 
   let size: ConductorSize | undefined;
+  let maxOcpdA: number | undefined;
   for (const trial of CONDUCTOR_SIZES_ASCENDING) {
     if (compareConductorSize(trial, "14") < 0) continue;
     const item: Circuit = {
@@ -119,6 +125,8 @@ export function suggestCircuit(record: ProjectRecord, index: number): CircuitSug
       if (r !== undefined && ((2 * c.lengthFt * r * operatingCurrentA) / (1000 * c.parallelSets) / operatingVoltageV) * 100 > dropLimit) continue;
     }
     size = trial;
+    const above = nextStandardOcpdRatingForA(ctx.edition, ocpdKind, allowed);
+    maxOcpdA = Math.min(allowed > 800 ? allowed : (above ?? allowed), smallLimit ?? Infinity);
     break;
   }
   const egc = ocpdA !== undefined ? minimumEgcSize(ocpdA, c.egcMaterial) : undefined;
@@ -128,9 +136,14 @@ export function suggestCircuit(record: ProjectRecord, index: number): CircuitSug
     `${currentA.toFixed(1)} A × ${sizingFactor} = ${requiredA.toFixed(1)} A` +
     (c.lengthFt !== undefined ? `, within ${dropLimit} % drop over ${c.lengthFt} ft` : "") +
     (assumptions.length ? `; assumes ${assumptions.join(" and ")}` : "");
+  // 690.9(A)(1): PV circuits of one or two strings need no overcurrent device where no other source feeds back into them.
+  const strings = c.kind === "pv-source" || c.kind === "pv-output" ? ctx.arrays.get(c.arrayTag ?? (ctx.arrays.has(c.fromTag) ? c.fromTag : c.toTag))?.item.stringsInParallel : undefined;
+  const ocpdRequired = strings === undefined || strings > 2;
   return {
     side,
     requiredA,
+    ocpdRequired,
+    ...(maxOcpdA !== undefined ? { maxOcpdA } : {}),
     ...(size !== undefined ? { size } : {}),
     ...(ocpdA !== undefined ? { ocpdA } : {}),
     ...(egcSize !== undefined ? { egcSize } : {}),
