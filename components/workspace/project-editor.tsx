@@ -13,6 +13,7 @@ import { FormProvider, useForm } from "react-hook-form";
 import { projectRecordSchema, type ProjectRecord, type ProjectRecordInput } from "@/lib/schemas/project-record";
 import { ChecksPanel } from "./checks-panel";
 import { DiagramSection } from "./diagram-section";
+import { DuplicateProjectButton } from "./duplicate-project-button";
 import { EquipmentSection } from "./equipment-section";
 import { LiveChecksProvider } from "./live-checks";
 import { LoadsSection } from "./loads-section";
@@ -166,6 +167,7 @@ export function ProjectEditor({
             <a href={`/api/projects/${projectId}/export`} download className="btn-quiet" title={isDirty ? "Exports the saved version" : undefined}>
               Export project file
             </a>
+            <DuplicateProjectButton projectId={projectId} disabledReason={isDirty ? "Save first: the copy is made from the saved design" : undefined} />
             {canEdit ? (
               <button type="submit" className="btn" disabled={save.kind === "saving" || save.kind === "conflict"}>
                 Save
