@@ -43,7 +43,7 @@ function endKind(tags: RecordTags, tag: unknown): EquipmentKind | "array" | unde
 }
 
 function Hint({ children }: { children: React.ReactNode }) {
-  return <span className="mt-0.5 block whitespace-nowrap text-[11px] leading-tight text-ink-faint">{children}</span>;
+  return <span className="mt-0.5 block max-w-full truncate whitespace-nowrap text-[11px] leading-tight text-ink-faint">{children}</span>;
 }
 
 function Accept({ label, title, onClick }: { label: string; title: string; onClick: () => void }) {
@@ -129,7 +129,7 @@ export function CircuitsSection() {
     return circuitColumns(tags).map((c) => {
       if (c.key === "fromTag" || c.key === "toTag") {
         const end = c.key;
-        return { ...c, width: "w-28", onValueChange: (i: number, _v: unknown, previous: unknown) => followEnds(i, end, previous) };
+        return { ...c, width: "w-24", onValueChange: (i: number, _v: unknown, previous: unknown) => followEnds(i, end, previous) };
       }
       if (c.key === "insulation") return { ...c, onValueChange: (i: number, v: unknown, previous: unknown) => followInsulation(i, v, previous) };
       return c;
@@ -244,7 +244,7 @@ export function CircuitsSection() {
           cell: (i) => {
             const tag = circuits[i]?.tag;
             const statuses = typeof tag === "string" ? results.get(tag) : undefined;
-            return statuses?.length ? <StatusBadge status={worst(...statuses)} /> : <span className="text-xs text-ink-faint">—</span>;
+            return statuses?.length ? <StatusBadge compact status={worst(...statuses)} /> : <span className="text-xs text-ink-faint">—</span>;
           },
         }}
         newRow={() => ({

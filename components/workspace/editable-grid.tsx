@@ -232,7 +232,7 @@ export function EditableGrid({
                 if (h.column.id === KEY_COLUMN) {
                   return (
                     <Fragment key={h.id}>
-                      <th scope="col">#</th>
+                      <th scope="col" className={hasDetail ? "w-6" : undefined}>#</th>
                       <th scope="col">
                         <span className="sr-only">Row actions</span>
                       </th>
@@ -273,7 +273,7 @@ export function EditableGrid({
                     if (cell.column.id === KEY_COLUMN) {
                       return (
                         <Fragment key={cell.id}>
-                          <th scope="row" className="w-8 border-b border-grid px-2 text-left font-normal">
+                          <th scope="row" className={`border-b border-grid text-left font-normal ${hasDetail ? "w-6 px-1" : "w-8 px-2"}`}>
                             {flexRender(cell.column.columnDef.cell, cell.getContext())}
                           </th>
                           <td className="whitespace-nowrap px-1 py-1">
@@ -281,7 +281,7 @@ export function EditableGrid({
                               {hasDetail ? (
                                 <button
                                   type="button"
-                                  className="btn-quiet px-1.5 py-0.5 text-xs"
+                                  className="btn-quiet px-1 py-0.5 text-xs"
                                   aria-expanded={open.has(row.id)}
                                   aria-label={`Details of ${noun} row ${index + 1}`}
                                   title="Conductor, raceway and current fields"
@@ -293,7 +293,7 @@ export function EditableGrid({
                               {rowActions?.(index)}
                               <button
                                 type="button"
-                                className={`btn-quiet py-0.5 text-xs ${hasDetail ? "px-1.5" : "px-2"}`}
+                                className={`btn-quiet py-0.5 text-xs ${hasDetail ? "px-1" : "px-2"}`}
                                 title="Copy this row"
                                 aria-label={`Duplicate ${noun} row ${index + 1}`}
                                 onClick={() => {
@@ -306,7 +306,7 @@ export function EditableGrid({
                               </button>
                               <button
                                 type="button"
-                                className={`btn-quiet py-0.5 text-xs ${hasDetail ? "px-1.5" : "px-2"}`}
+                                className={`btn-quiet py-0.5 text-xs ${hasDetail ? "px-1" : "px-2"}`}
                                 title="Delete this row"
                                 aria-label={`Delete ${noun} row ${index + 1}`}
                                 onClick={() => {

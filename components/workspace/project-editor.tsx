@@ -205,7 +205,7 @@ export function ProjectEditor({
               <LoadsSection />
               <DiagramSection />
             </fieldset>
-            <aside className="w-full shrink-0 xl:sticky xl:top-14 xl:w-[20rem] 2xl:w-[24rem]" aria-label="Live checks">
+            <aside className="w-full shrink-0 xl:sticky xl:top-14 xl:w-[18rem] 2xl:w-[24rem]" aria-label="Live checks">
               <ChecksPanel projectId={projectId} />
             </aside>
           </div>
