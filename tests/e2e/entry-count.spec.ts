@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import path from "node:path";
-import { expect, test, type Locator, type Page } from "@playwright/test";
+import { expect, test, type Locator } from "@playwright/test";
 import { DEMO_JURISDICTIONS } from "../../db/demo-scenario";
 import { parseProjectFile, runChecks } from "../../lib/compliance";
 import type { ProjectRecordInput } from "../../lib/schemas/project-record";
