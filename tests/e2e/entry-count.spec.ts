@@ -122,7 +122,7 @@ test("a designer enters the cabin system in at most 60 field entries and gets th
   await fill(page.getByLabel("Design low temperature (°C)"), "-20");
   await fill(page.getByLabel("Design high temperature (°C)"), "35");
   await fill(page.getByLabel("Sun hours per day (h)"), "4");
-  await select(page.getByLabel("Battery location"), "utility-closet");
+  await select(page.getByLabel("Battery location", { exact: true }), "utility-closet");
 
   // Equipment from the organisation's library: kind and item, two entries each.
   const picks: [string, string][] = [
