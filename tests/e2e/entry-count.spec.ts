@@ -114,7 +114,8 @@ test("a designer enters the cabin system in at most 60 field entries and gets th
   await check(page.getByLabel(/Stand-alone with generator/));
   await select(page.getByLabel("Jurisdiction"), { label: `${jurisdiction.name} (NEC ${jurisdiction.necEdition})` });
   await page.getByRole("button", { name: "Create project" }).click();
-  await expect(page).toHaveURL(/\/projects\/[^/]+$/);
+  await expect(page).toHaveURL(/\/projects\/(?!new$)[^/]+$/);
+  await expect(page.getByRole("heading", { level: 1, name })).toBeVisible();
   const projectUrl = page.url();
   await expect(page.getByTestId("check-state")).toHaveText("up to date");
 
