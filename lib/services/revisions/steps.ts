@@ -1,4 +1,3 @@
-import "server-only";
 /** Generation steps in order; a revision's `progressStep` holds one. Import-free, so client components can show them. */
 export const PROGRESS_STEPS = ["queued", "snapshot", "checks", "sheets", "datasheets", "docx", "done"] as const;
 export type ProgressStep = (typeof PROGRESS_STEPS)[number];
