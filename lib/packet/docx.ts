@@ -89,6 +89,7 @@ function checkChildren(r: CheckResult): FileChild[] {
   ];
   if (r.message) out.push(new Paragraph({ children: [run(r.message, { size: 16 })] }));
   if (r.reason) out.push(new Paragraph({ children: [run("Reason: ", { bold: true, size: 16 }), run(r.reason, { size: 16 })] }));
+  if (r.remedy) out.push(new Paragraph({ children: [run("Remedy: ", { bold: true, size: 16 }), run(r.remedy.text, { size: 16, color: r.status === "fail" ? SIGNAL_HEX : undefined })] }));
   if (r.formula) out.push(new Paragraph({ children: [run("Formula: ", { bold: true, size: 16 }), run(r.formula, { size: 16 })] }));
   const rows: Cell[][] = [
     ...r.inputs.map((i): Cell[] => ["Input", i.label, formatCheckValue(i)]),
