@@ -209,6 +209,10 @@ function blockChildren(block: Block, input: PacketInput): FileChild[] {
         }
         return [new Paragraph({ children: [run(sp ? `Site plan ${sp.fileName}: see sheet G-003 of the PDF packet.` : "No site plan is attached to this revision.", { bold: !sp })] })];
       }
+      if (block.figure === "split-phase") {
+        const [inverter, panel] = block.caption.split("|");
+        return [new Paragraph({ children: [run(`Three-line detail (${inverter} to ${panel}, L1–L2 jumper and neutral) is drawn on sheet E-007 of the PDF packet.`)] })];
+      }
       return [new Paragraph({ children: [run("The one-line diagram is drawn on sheet E-001 of the PDF packet; its circuits are listed on the conductor schedule (E-004).")] })];
     }
     case "labels":
