@@ -2,7 +2,7 @@ import { and, eq } from "drizzle-orm";
 import type { Db } from "../../db/client";
 import { outbox } from "../../db/schema";
 import { env } from "../env";
-import { renderEmail, type EmailTemplate } from "./render";
+import { oneLineSubject, renderEmail, type EmailTemplate } from "./render";
 import { mailTransport } from "./transport";
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
@@ -10,7 +10,8 @@ type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 /**
  * Writes a message to the outbox inside the caller's transaction, so the
  * hand-off and its e-mail are recorded together; delivery happens after
- * commit (deliverQueued), and a failed delivery stays visible in the outbox.
+ * commit by a mail.deliver job (deliverQueued), and a failed delivery stays
+ * visible in the outbox.
  */
 export function queueEmail(
   tx: Tx | Db,
@@ -29,7 +30,7 @@ export async function deliverQueued(db: Db, orgId: string): Promise<{ sent: numb
   let failed = 0;
   for (const message of queued) {
     try {
-      const info = await mailTransport().sendMail({ from: env().MAIL_FROM, to: message.toAddress, subject: message.subject, text: message.bodyText });
+      const info = await mailTransport().sendMail({ from: env().MAIL_FROM, to: message.toAddress, subject: oneLineSubject(message.subject), text: message.bodyText });
       db.update(outbox).set({ status: "sent", messageId: info.messageId, sentAt: new Date().toISOString(), error: null }).where(eq(outbox.id, message.id)).run();
       sent += 1;
     } catch (error) {
