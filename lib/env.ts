@@ -26,6 +26,8 @@ const envSchema = z.object({
   /** Failed sign-ins before an account is locked, and for how long. */
   SIGNIN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
   SIGNIN_LOCK_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** 32 bytes in base64: seals reviewers' signing certificates at rest. Without it no certificate can be stored or used. */
+  CERTIFICATE_KEY: z.string().optional(),
 });
 
 export type Env = z.infer<typeof envSchema>;
