@@ -12,7 +12,8 @@ export const authConfig = {
   callbacks: {
     authorized({ auth, request }) {
       const path = request.nextUrl.pathname;
-      const isPublic = path === "/sign-in" || path.startsWith("/api/auth") || path.startsWith("/api/health");
+      // /verify answers a permit counter without an account: whether one file is a stamped packet, nothing more.
+      const isPublic = path === "/sign-in" || path === "/verify" || path === "/api/verify" || path.startsWith("/api/auth") || path.startsWith("/api/health");
       if (isPublic) return true;
       if (auth?.user) return true;
       // Route handlers answer JSON, not a redirect, so client code can show the refusal.

@@ -1,10 +1,11 @@
 import { execFileSync } from "node:child_process";
+import { createHash } from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { eq } from "drizzle-orm";
 import { PDFDocument, StandardFonts } from "pdf-lib";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { auditLog, packetRevisions, packetSignatures, signingCertificates } from "../../db/schema";
 import { projectRecordSchema } from "../../lib/schemas/project-record";
 import { uploadAttachment } from "../../lib/services/attachments";
@@ -21,8 +22,15 @@ import { checkPdfSignature } from "../unit/signing/pdf-signature";
 import { makeThrowawayCertificate } from "../unit/signing/throwaway-ca";
 import { makeContext, makeJurisdiction, makeOrg, tempDatabase } from "./factories";
 
+vi.mock("server-only", () => ({}));
+const { lookUpStampedFile } = await import("../../lib/services/verify/stamped-file");
+const { resetVerifyLimiter } = await import("../../lib/services/verify/rate-limit");
+const verifyRoute = await import("../../app/api/verify/route");
+
 const env = tempDatabase();
 const { db } = env;
+// The public route reads the app's own connection; here that is the test database.
+(globalThis as unknown as { sundocketDb?: typeof db }).sundocketDb = db;
 const scratch = fs.mkdtempSync(path.join(os.tmpdir(), "sundocket-signing-"));
 const packetsDir = path.join(scratch, "packets");
 setFileStore(new DiskFileStore(path.join(scratch, "uploads")));
@@ -161,5 +169,51 @@ describe("approving with a signature", () => {
     uploadSigningCertificate(colleague, { fileName: "c.p12", bytes: other.p12, password: other.password }, { certificateKey });
     const error = await refusal(() => signStampedPacket(colleague, revisionId, { password: other.password }, options));
     expect(error.message).toMatch(/Only the reviewer who approved and stamped/);
+  });
+});
+
+describe("checking a file from the counter, without an account", () => {
+  const sha = (bytes: Uint8Array) => createHash("sha256").update(bytes).digest("hex");
+
+  it("says this exact file is a stamped revision, of which project, by whom and when, and nothing else", async () => {
+    const file = await getRevisionFile(designer, revisionId, "pdf", { packetsDir });
+    const answer = lookUpStampedFile(db, file.sha256);
+    expect(answer).toMatchObject({ stamped: true, projectName: "Signed market stall", revisionNumber: 1, reviewerName: reviewer.user.name, licenceNumber: "PE-E-300400", licenceRegion: "Westmark" });
+    expect(Object.keys(answer).sort()).toEqual(["approvedAt", "licenceNumber", "licenceRegion", "projectName", "reviewerName", "revisionNumber", "sha256", "signature", "stamped"]);
+    expect(answer.stamped && answer.signature?.subjectName).toBe(reviewer.user.name);
+
+    const tampered = Buffer.from(file.bytes);
+    tampered[100] = tampered[100]! ^ 0x01;
+    expect(lookUpStampedFile(db, sha(tampered))).toEqual({ stamped: false, sha256: sha(tampered) });
+    // The unsigned rendering the signature replaced is not the issued packet.
+    const sig = db.select().from(packetSignatures).where(eq(packetSignatures.revisionId, revisionId)).get()!;
+    expect(lookUpStampedFile(db, sig.unsignedPdfSha256).stamped).toBe(false);
+  });
+
+  it("answers an unstamped revision's own PDF as not stamped", async () => {
+    const draft = await revisionInReview("Not yet stamped");
+    expect(lookUpStampedFile(db, revision(draft).pdfSha256!).stamped).toBe(false);
+  }, 120_000);
+
+  it("takes the PDF itself or its hash through the route, and limits how often one address may ask", async () => {
+    resetVerifyLimiter(3, 60);
+    const file = await getRevisionFile(designer, revisionId, "pdf", { packetsDir });
+    const headers = { "x-forwarded-for": "203.0.113.7" };
+    const byHash = await verifyRoute.GET(new Request(`http://localhost/api/verify?sha256=${file.sha256.toUpperCase()}`, { headers }));
+    expect(byHash.status).toBe(200);
+    expect(await byHash.json()).toMatchObject({ stamped: true, projectName: "Signed market stall" });
+    const byFile = await verifyRoute.POST(new Request("http://localhost/api/verify", { method: "POST", body: Buffer.from(file.bytes), headers: { ...headers, "content-type": "application/pdf" } }));
+    expect(await byFile.json()).toMatchObject({ stamped: true, sha256: file.sha256 });
+    const form = new FormData();
+    form.set("file", new File([file.bytes.slice(0, 500)], "part.pdf", { type: "application/pdf" }));
+    const partial = await verifyRoute.POST(new Request("http://localhost/api/verify", { method: "POST", body: form, headers }));
+    expect(await partial.json()).toMatchObject({ stamped: false });
+    const limited = await verifyRoute.GET(new Request(`http://localhost/api/verify?sha256=${file.sha256}`, { headers }));
+    expect(limited.status).toBe(429);
+    expect(Number(limited.headers.get("retry-after"))).toBeGreaterThan(0);
+    // Another address is not held up by the first.
+    const other = await verifyRoute.GET(new Request(`http://localhost/api/verify?sha256=${file.sha256}`, { headers: { "x-forwarded-for": "198.51.100.2" } }));
+    expect(other.status).toBe(200);
+    expect((await verifyRoute.GET(new Request("http://localhost/api/verify?sha256=abc", { headers: { "x-forwarded-for": "198.51.100.3" } }))).status).toBe(400);
   });
 });
