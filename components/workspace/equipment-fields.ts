@@ -64,6 +64,7 @@ const protectiveFields: RatingField[] = [
 
 const panelFields: RatingField[] = [
   { key: "busRatingA", label: "Bus rating", unit: "A", type: "number" },
+  { key: "neutralBusRatingA", label: "Neutral bus rating", unit: "A", type: "number", help: "A single 120 V supply's sources must stay below it." },
   { key: "mainBreakerA", label: "Main breaker", unit: "A", type: "number" },
   { key: "voltage", label: "Voltage", type: "select", options: opts("12", "24", "48", "120", "240", "120/240", "208", "277/480", "other") },
   { key: "sumOfBreakersA", label: "Sum of breakers", unit: "A", type: "number" },
@@ -111,6 +112,7 @@ export const RATING_FIELDS: Record<EquipmentKind, RatingField[]> = {
     { key: "ratedKW", label: "Rated power", unit: "kW", type: "number" },
     { key: "voltageV", label: "Voltage", unit: "V", type: "number" },
     { key: "output", label: "Output", type: "select", options: opts("120", "240", "120/240", "208", "277/480") },
+    { key: "phases", label: "Phases", type: "integer", help: "1 for single or split phase, 3 for three phase." },
     { key: "fuel", label: "Fuel", type: "select", options: opts("gasoline", "diesel", "propane", "natural-gas", "other") },
     { key: "outputBreakerA", label: "Output breaker", unit: "A", type: "number" },
     { key: "hasOutputDisconnect", label: "Output disconnect built in", type: "checkbox" },
@@ -135,7 +137,7 @@ export function changeKind(row: Record<string, unknown>, kind: EquipmentKind): R
     Object.assign(base, { mpptInputs: [], acOutputPhases: 1, hasPvDisconnect: false, hasOvercurrentProtection: false });
   }
   if (kind === "battery") base.largeScaleFireTested = false;
-  if (kind === "generator") base.hasOutputDisconnect = false;
+  if (kind === "generator") Object.assign(base, { hasOutputDisconnect: false, phases: 1 });
   if (kind === "rapid-shutdown") base.controls = "";
   return base;
 }

@@ -19,6 +19,10 @@ const MATERIAL_OPTIONS: Option[] = [
   { value: "al", label: "Al" },
 ];
 const TEMP_OPTIONS: Option[] = ["60", "75", "90"].map((t) => ({ value: t, label: `${t} °C` }));
+const PHASE_OPTIONS: Option[] = [
+  { value: "1", label: "1 (single/split)" },
+  { value: "3", label: "3" },
+];
 
 export type TagLists = Pick<RecordTags, "byKinds" | "mpptInputsOf" | "arrays" | "equipmentAndArrays" | "arrayOptions">;
 
@@ -67,6 +71,7 @@ export function circuitColumns(tags: TagLists): GridColumn[] {
     { key: "loadCurrentA", header: "Load current", unit: "A", type: "number", width: "w-16" },
     { key: "designCurrentA", header: "Design current", unit: "A", type: "number", width: "w-16" },
     { key: "nominalVoltageV", header: "Nominal voltage", unit: "V", type: "number", width: "w-16" },
+    { key: "phases", header: "Phases (AC)", type: "number-select", options: PHASE_OPTIONS, width: "w-20" },
   ];
 }
 
