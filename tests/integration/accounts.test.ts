@@ -6,6 +6,7 @@ import { newUserSchema } from "../../lib/schemas/users";
 import { memoryThrottle } from "../../lib/services/auth/throttle";
 import { verifyCredentials } from "../../lib/services/auth/verify-credentials";
 import { contextForUser } from "../../lib/services/context";
+import { changeOwnPassword } from "../../lib/services/users/change-password";
 import { setUserActive, setUserRoles } from "../../lib/services/users/manage";
 import { codeOf, makeContext, makeOrg, makeUser, tempDatabase } from "./factories";
 
@@ -112,5 +113,30 @@ describe("sessions", () => {
     setUserActive(admin, { userId: user.id, active: false, version: row(user.id).version });
     setUserActive(admin, { userId: user.id, active: true, version: row(user.id).version });
     expect(codeOf(() => contextForUser(db, user.id, afterRoles))).toBe("unauthenticated");
+  });
+});
+
+describe("changing one's own password", () => {
+  it("asks for the current password, refuses one over 72 bytes, and ends the sessions signed in with the old one", async () => {
+    const user = makeUser(db, org.id, ["installer"], { email: "changer@example.test", password: "old password 123" });
+    const issuedWith = row(user.id).sessionVersion;
+    const ctx = contextForUser(db, user.id, issuedWith);
+    const refused = async (input: Record<string, string>) => {
+      try {
+        await changeOwnPassword(ctx, input);
+      } catch (error) {
+        return (error as { issues?: { path: string }[] }).issues?.[0]?.path;
+      }
+      return undefined;
+    };
+    expect(await refused({ currentPassword: "not it", newPassword: "new password 456" })).toBe("currentPassword");
+    expect(await refused({ currentPassword: "old password 123", newPassword: "n".repeat(73) })).toBe("newPassword");
+    expect((await verifyCredentials(db, "changer@example.test", "old password 123", policy)).ok).toBe(true);
+
+    await changeOwnPassword(ctx, { currentPassword: "old password 123", newPassword: "new password 456" });
+    expect((await verifyCredentials(db, "changer@example.test", "old password 123", policy)).ok).toBe(false);
+    expect((await verifyCredentials(db, "changer@example.test", "new password 456", policy)).ok).toBe(true);
+    expect(codeOf(() => contextForUser(db, user.id, issuedWith))).toBe("unauthenticated");
+    expect(db.select().from(auditLog).where(and(eq(auditLog.entityId, user.id), eq(auditLog.action, "user.password-changed"))).all()).toHaveLength(1);
   });
 });
