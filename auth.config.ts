@@ -27,7 +27,11 @@ export const authConfig = {
       // Pages only: route handlers are outside the proxy's matcher and check the session themselves.
       // /verify answers a permit counter without an account: whether one file is a stamped packet, nothing more.
       if (request.nextUrl.pathname === "/sign-in" || request.nextUrl.pathname === "/verify") return true;
-      return Boolean(auth?.user);
+      if (auth?.user) return true;
+      // The redirect is made here rather than by returning false, because the proxy's own handler runs only for allowed requests.
+      const signIn = new URL("/sign-in", request.nextUrl);
+      signIn.searchParams.set("callbackUrl", request.nextUrl.href);
+      return Response.redirect(signIn);
     },
     jwt({ token, user }) {
       if (user) {

@@ -36,4 +36,5 @@ CREATE TABLE `signing_certificates` (
 	FOREIGN KEY (`user_id`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action
 );
 --> statement-breakpoint
-CREATE INDEX `signing_certificates_user_idx` ON `signing_certificates` (`user_id`,`current`);
+CREATE INDEX `signing_certificates_user_idx` ON `signing_certificates` (`user_id`,`current`);--> statement-breakpoint
+ALTER TABLE `users` ADD `session_version` integer DEFAULT 0 NOT NULL;

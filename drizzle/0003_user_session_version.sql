@@ -1,1 +1,0 @@
-ALTER TABLE `users` ADD `session_version` integer DEFAULT 0 NOT NULL;
