@@ -16,3 +16,4 @@ export * from "./audit-log";
 export * from "./outbox";
 export * from "./installations";
 export * from "./signing";
+export * from "./jobs";
