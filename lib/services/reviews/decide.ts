@@ -1,11 +1,12 @@
 import { and, eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
-import { packetRevisions, projects, reviewNotes, reviews, users, type LicenceSnapshot } from "../../../db/schema";
+import { packetRevisions, reviewNotes, reviews, users, type LicenceSnapshot } from "../../../db/schema";
 import { deliverQueued, queueEmail } from "../../email/outbox";
 import { formatIssues } from "../../schemas/fields";
 import { reviewDecisionSchema, type ReviewNoteInput } from "../../schemas/review";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid, type FieldIssue } from "../errors";
+import { moveProjectStatus } from "../projects/status";
 import { dispatchRevisionWorker } from "../revisions/dispatch";
 import {
   deliverAfterCommit,
@@ -157,11 +158,8 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
         .values(notes.map((n) => ({ reviewId: review.id, targetKind: n.targetKind, targetId: n.targetKind === "general" ? "" : n.targetId, text: n.text, createdAt })))
         .run();
     }
-    // Only the project's open review moves its status; a decision on an older revision leaves a later one's state alone.
-    tx.update(projects)
-      .set({ status: decision, updatedAt: createdAt })
-      .where(and(eq(projects.id, project.id), eq(projects.orgId, ctx.orgId), eq(projects.status, "in-review")))
-      .run();
+    // Only a project in review moves (the table allows nothing else); a decision on an older revision leaves a later stage alone.
+    moveProjectStatus(tx, ctx, project.id, decision, { reason: `review.${decision}`, ifAllowed: true, now });
     if (designer?.active) {
       if (decision === "approved") {
         queueEmail(tx, ctx.orgId, designer.email, "approved", {

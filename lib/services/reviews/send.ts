@@ -1,9 +1,10 @@
 import { and, eq, inArray } from "drizzle-orm";
 import type { Db } from "../../../db/client";
-import { packetRevisions, projects } from "../../../db/schema";
+import { packetRevisions } from "../../../db/schema";
 import { deliverQueued, queueEmail } from "../../email/outbox";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict } from "../errors";
+import { moveProjectStatus } from "../projects/status";
 import { activeReviewers, deliverAfterCommit, findRevisionForReview, snapshotRun } from "./shared";
 
 export interface SendOptions {
@@ -49,10 +50,8 @@ export async function sendForReview(ctx: ServiceContext, revisionId: string, opt
       .run();
     // Another request sent or decided it between our read and this write.
     if (moved.changes === 0) throw conflict(`Revision ${row.number} changed while it was being sent; reload the page.`);
-    tx.update(projects)
-      .set({ status: "in-review", updatedAt: new Date().toISOString() })
-      .where(and(eq(projects.id, project.id), eq(projects.orgId, ctx.orgId)))
-      .run();
+    // A permitted or installed project keeps its status: a revised set goes to the AHJ as a new submission.
+    moveProjectStatus(tx, ctx, project.id, "in-review", { reason: "review.sent", ifAllowed: true });
     for (const reviewer of reviewers) {
       queueEmail(tx, ctx.orgId, reviewer.email, "sent-for-review", {
         reviewerName: reviewer.name,

@@ -1,4 +1,4 @@
-import { and, eq, inArray } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { jurisdictions, packetRevisions, projects, submissionEvents, submissions } from "../../../db/schema";
 import { deliverQueued, queueEmail } from "../../email/outbox";
@@ -6,6 +6,7 @@ import { formatIssues } from "../../schemas/fields";
 import { createSubmissionSchema } from "../../schemas/submission";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid, notFound } from "../errors";
+import { moveProjectStatus } from "../projects/status";
 import { deliverAfterCommit, isoDay, METHOD_WORDS, revisionDesigner } from "./shared";
 
 export interface CreateOptions {
@@ -98,10 +99,7 @@ export async function createSubmission(ctx: ServiceContext, input: unknown, opti
       .values({ orgId: ctx.orgId, submissionId: row.id, kind: "submitted", occurredOn, userId: ctx.user.id, note, data: {}, createdAt: now.toISOString() })
       .run();
     // A later stage (permitted, installed, closed) is not undone by submitting again.
-    tx.update(projects)
-      .set({ status: "submitted", updatedAt: now.toISOString() })
-      .where(and(eq(projects.id, project.id), eq(projects.orgId, ctx.orgId), inArray(projects.status, ["design", "in-review", "returned", "approved", "submitted"])))
-      .run();
+    moveProjectStatus(tx, ctx, project.id, "submitted", { reason: "submission.created", ifAllowed: true, now });
     if (designer) {
       queueEmail(tx, ctx.orgId, designer.email, "submitted", {
         jurisdictionName: jurisdiction.name,
