@@ -12,9 +12,20 @@ import { NEC_EDITIONS, type NecEdition } from "../lib/schemas/project-record";
 
 const USAGE = "usage: npm run check -- <project-file.json> [--json] [--edition 2017|2020|2023]";
 
+/**
+ * Ends the run with an exit code without process.exit(): on a pipe, stdout drains asynchronously once the pipe's
+ * buffer (64 KiB on Linux) is full, and process.exit() would cut the output there. Setting process.exitCode lets
+ * Node exit by itself after the last write has drained.
+ */
+class CliExit extends Error {
+  constructor(readonly code: number) {
+    super(`exit ${code}`);
+  }
+}
+
 function exitWith(code: number, lines: string[], stream: NodeJS.WriteStream = process.stderr): never {
   stream.write(lines.join("\n") + "\n");
-  process.exit(code);
+  throw new CliExit(code);
 }
 
 function parseArgs(argv: string[]): { file: string; json: boolean; edition?: NecEdition } {
@@ -68,7 +79,7 @@ function main(): void {
   if (!parsed.ok) {
     if (args.json) {
       process.stdout.write(JSON.stringify({ ok: false, issues: parsed.issues }, null, 2) + "\n");
-      process.exit(2);
+      throw new CliExit(2);
     }
     exitWith(2, [`${args.file} is not a valid project file (${parsed.issues.length} problem${parsed.issues.length === 1 ? "" : "s"}):`, ...parsed.issues.map((i) => `  ${i.path}: ${i.message}`)]);
   }
@@ -91,7 +102,18 @@ function main(): void {
     out.push("An aid for the designer and the licensed reviewer, not an approval: the AHJ and licensed practice decide.");
     process.stdout.write(out.join("\n") + "\n");
   }
-  process.exit(run.counts.fail > 0 ? 1 : 0);
+  process.exitCode = run.counts.fail > 0 ? 1 : 0;
 }
 
-main();
+// A reader that stops early (`| head -c 1000`) closes the pipe; the rest of the output has nowhere to go.
+process.stdout.on("error", (e: NodeJS.ErrnoException) => {
+  if (e.code !== "EPIPE") throw e;
+  process.exit(process.exitCode ?? 0);
+});
+
+try {
+  main();
+} catch (e) {
+  if (!(e instanceof CliExit)) throw e;
+  process.exitCode = e.code;
+}

@@ -12,6 +12,7 @@ import { prepareOneLine, type OneLineDrawer } from "./one-line";
 import { beginTextLayer, drawText, endTextLayer } from "./text-layer";
 import { fitText, textWidth, wrapText } from "./text";
 import type { PacketInput, PacketPdf, SheetPages } from "./types";
+import { assertDecodableImage } from "../uploads/image-size";
 
 /** ANSI B (tabloid) landscape, 17 × 11 in, in points. */
 const PAGE_W = 17 * 72;
@@ -710,6 +711,8 @@ async function embedSitePlan(doc: PDFDocument, input: PacketInput): Promise<Ctx[
     const [page] = await doc.embedPdf(src, [0]);
     return page ? { kind: "page", page } : null;
   }
+  // Checked at upload too; a file stored before that check must not be decoded blind.
+  assertDecodableImage(sp.bytes, sp.type === "png" ? "png" : "jpeg", "The site plan image");
   const image = sp.type === "png" ? await doc.embedPng(sp.bytes) : await doc.embedJpg(sp.bytes);
   return { kind: "image", image };
 }
@@ -742,6 +745,7 @@ async function renderOnce(
   beginTextLayer(doc);
   const fonts = await embedPacketFonts(doc);
   const sitePlan = await embedSitePlan(doc, input);
+  if (input.approval?.stampImage) assertDecodableImage(input.approval.stampImage.bytes, input.approval.stampImage.type === "png" ? "png" : "jpeg", "The stamp image");
   const stamp = input.approval?.stampImage
     ? input.approval.stampImage.type === "png"
       ? await doc.embedPng(input.approval.stampImage.bytes)

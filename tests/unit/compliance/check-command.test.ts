@@ -45,3 +45,29 @@ describe("npm run check", () => {
     expect(check().code).toBe(2);
   });
 });
+
+describe("npm run check through a pipe", () => {
+  it("writes the whole JSON of a 2,000-circuit project before exiting", () => {
+    const json = exampleJson("tamarack-hut");
+    const template = json.circuits.find((c: { kind: string }) => c.kind === "pv-source");
+    for (let i = 0; i < 2000 - json.circuits.length + 1; i++) json.circuits.push({ ...template, tag: `PIPE-${i}` });
+    const file = path.join(tmpdir(), `sundocket-large-${process.pid}.json`);
+    writeFileSync(file, JSON.stringify(json));
+    // A shell pipe into a slow reader: the output (tens of MB) is far beyond one pipe buffer (64 KiB on Linux).
+    const r = spawnSync("sh", ["-c", `"${TSX}" scripts/check.ts "${file}" --json | (sleep 0.3; cat)`], {
+      cwd: ROOT,
+      encoding: "utf8",
+      maxBuffer: 512 * 1024 * 1024,
+    });
+    expect(r.stdout.length).toBeGreaterThan(64 * 1024);
+    expect(JSON.parse(r.stdout)).toEqual(JSON.parse(JSON.stringify(run(json))));
+
+    // A reader that stops early is not an error of the check command: no stack trace, the check's own exit code.
+    const early = spawnSync("bash", ["-c", `"${TSX}" scripts/check.ts "${file}" --json | head -c 1000 >/dev/null; echo "\${PIPESTATUS[0]}"`], {
+      cwd: ROOT,
+      encoding: "utf8",
+    });
+    expect(early.stderr).not.toContain("EPIPE");
+    expect(early.stdout.trim()).toBe("1");
+  }, 60_000);
+});
