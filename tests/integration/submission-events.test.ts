@@ -2,6 +2,7 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { auditLog, packetRevisions, projects, submissionEvents } from "../../db/schema";
 import { ServiceError } from "../../lib/services/errors";
+import { getProjectRecord } from "../../lib/services/projects/get-record";
 import { moveProjectStatus } from "../../lib/services/projects/status";
 import { createSubmission, getSubmission, recordSubmissionEvent, voidSubmissionEvent } from "../../lib/services/submissions";
 import { codeOf, makeContext, makeJurisdiction, makeOrg, makeProject, tempDatabase } from "./factories";
@@ -28,7 +29,8 @@ function approvedRevision(projectId: string) {
       number: ++counter,
       state: "ready",
       reviewState: "approved",
-      recordSnapshot: {},
+      // The live record, so the revision shows the design as it stands.
+      recordSnapshot: getProjectRecord(designer, projectId).record as unknown as Record<string, unknown>,
       resultsSnapshot: {},
       recordSha256: "0".repeat(64),
       isDraft: false,

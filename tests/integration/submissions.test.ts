@@ -2,6 +2,7 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { auditLog, outbox, packetRevisions, projects, submissionEvents, submissions } from "../../db/schema";
 import { ServiceError } from "../../lib/services/errors";
+import { getProjectRecord } from "../../lib/services/projects/get-record";
 import { createSubmission, getSubmission, listSubmittableRevisions, recordSubmissionEvent } from "../../lib/services/submissions";
 import { codeOf, makeContext, makeJurisdiction, makeOrg, makeProject, tempDatabase } from "./factories";
 
@@ -28,6 +29,7 @@ let revisionCounter = 0;
 function revision(reviewState: "draft" | "in-review" | "returned" | "approved", isDraft = false) {
   const project = makeProject(db, org.id, jurisdiction.id);
   db.update(projects).set({ status: reviewState === "approved" ? "approved" : "in-review" }).where(eq(projects.id, project.id)).run();
+  const projectId = project.id;
   const row = db
     .insert(packetRevisions)
     .values({
@@ -36,7 +38,8 @@ function revision(reviewState: "draft" | "in-review" | "returned" | "approved", 
       number: ++revisionCounter,
       state: "ready",
       reviewState,
-      recordSnapshot: {},
+      // The live record, so the revision shows the design as it stands.
+      recordSnapshot: getProjectRecord(designer, projectId).record as unknown as Record<string, unknown>,
       resultsSnapshot: {},
       recordSha256: "0".repeat(64),
       isDraft,

@@ -6,6 +6,7 @@ import { formatIssues } from "../../schemas/fields";
 import { createSubmissionSchema } from "../../schemas/submission";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid, notFound } from "../errors";
+import { liveRecord, revisionMatchesLive } from "../projects/approval";
 import { moveProjectStatus } from "../projects/status";
 import { deliverAfterCommit, isoDay, METHOD_WORDS, revisionDesigner } from "./shared";
 
@@ -54,6 +55,11 @@ export async function createSubmission(ctx: ServiceContext, input: unknown, opti
   }
   if (revision.state !== "ready") {
     throw conflict(`The stamped packet of revision ${revision.number} is not finished (${revision.state}); submit it once it is ready.`);
+  }
+  if (!revisionMatchesLive(revision, liveRecord(ctx, project.id))) {
+    throw conflict(
+      `${project.name} has changed since revision ${revision.number} was approved; the stamped set no longer shows the design. Generate a new revision and have it approved before submitting.`,
+    );
   }
   if (!project.jurisdictionId) throw invalid(`${project.name} has no jurisdiction; set one on the project first.`, [{ path: "revisionId", message: "project has no jurisdiction" }]);
   const jurisdiction = ctx.db

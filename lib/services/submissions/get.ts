@@ -5,6 +5,7 @@ import type { EventKind } from "../../schemas/submission";
 import { allowedNextKinds } from "../../schemas/submission-rules";
 import { effectiveEvents, loadEventRows } from "./events";
 import { requirePermission, type ServiceContext } from "../context";
+import { liveRecord, revisionMatchesLive } from "../projects/approval";
 import { findSubmissionInOrg, revisionDesigner } from "./shared";
 
 export interface SubmissionEventView {
@@ -127,7 +128,11 @@ export interface SubmittableRevision {
   generatedAt: string;
 }
 
-/** Approved, finished revisions with a jurisdiction and no open submission: what the office can submit next. */
+/**
+ * Approved, finished revisions with a jurisdiction and no open submission,
+ * whose design is still the project's live design: what the office can submit
+ * next. A project changed since its approval waits for a new approved revision.
+ */
 export function listSubmittableRevisions(ctx: ServiceContext): SubmittableRevision[] {
   requirePermission(ctx, "submission:create", "submit packets to a jurisdiction");
   const submitted = ctx.db
@@ -136,6 +141,11 @@ export function listSubmittableRevisions(ctx: ServiceContext): SubmittableRevisi
     .where(and(eq(submissions.orgId, ctx.orgId), notInArray(submissions.status, ["cancelled", "expired"])))
     .all()
     .map((r) => r.revisionId);
+  const lives = new Map<string, unknown>();
+  const live = (projectId: string) => {
+    if (!lives.has(projectId)) lives.set(projectId, liveRecord(ctx, projectId));
+    return lives.get(projectId);
+  };
   return ctx.db
     .select({
       revisionId: packetRevisions.id,
@@ -145,6 +155,7 @@ export function listSubmittableRevisions(ctx: ServiceContext): SubmittableRevisi
       jurisdictionName: jurisdictions.name,
       defaultMethod: jurisdictions.submissionMethod,
       generatedAt: packetRevisions.createdAt,
+      recordSnapshot: packetRevisions.recordSnapshot,
     })
     .from(packetRevisions)
     .innerJoin(projects, and(eq(projects.id, packetRevisions.projectId), eq(projects.orgId, ctx.orgId)))
@@ -159,5 +170,7 @@ export function listSubmittableRevisions(ctx: ServiceContext): SubmittableRevisi
       ),
     )
     .orderBy(desc(packetRevisions.createdAt))
-    .all();
+    .all()
+    .filter((r) => revisionMatchesLive(r, live(r.projectId)))
+    .map(({ recordSnapshot: _snapshot, ...r }) => r);
 }

@@ -7,6 +7,7 @@ import { EVENT_LABELS, INSPECTION_EVENT_KINDS, PERMIT_VALID_MAX_DAYS, recordEven
 import { CLOSED_KINDS, nextEventVerdict, type StandingKind } from "../../schemas/submission-rules";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid } from "../errors";
+import { liveRecord, revisionMatchesLive } from "../projects/approval";
 import { effectiveEvents, loadEventRows, moveProjectForEvents, standingOf, type EffectiveEvent } from "./events";
 import { activeInstallers, addDays, deliverAfterCommit, findSubmissionInOrg, isoDay, revisionDesigner } from "./shared";
 
@@ -142,6 +143,11 @@ function resubmittedRevision(ctx: ServiceContext, projectId: string, revisionId:
   if (row.reviewState !== "approved" || row.isDraft || row.state !== "ready") {
     throw invalid(`Revision ${row.number} is not an approved, stamped and finished packet; only such a revision goes to the AHJ.`, [
       { path: "revisionId", message: `revision ${row.number} is not approved and ready` },
+    ]);
+  }
+  if (!revisionMatchesLive(row, liveRecord(ctx, projectId))) {
+    throw invalid(`The project has changed since revision ${row.number} was approved; generate a new revision and have it approved before resubmitting.`, [
+      { path: "revisionId", message: `revision ${row.number} no longer shows the design` },
     ]);
   }
   return row;
