@@ -36,7 +36,14 @@ export function formatValue(value: number | string | boolean | null, unit: strin
   return unit ? `${text} ${unit}` : text;
 }
 
+/**
+ * A value as the packet prints it. An input the engine filled with a default
+ * says so ("default: 30 °C (no value given)"); an optional field left empty
+ * reads "not given"; only a required field without a value reads "missing".
+ */
 export function formatCheckValue(v: CheckValue | CheckInput): string {
+  if (v.value === null && "defaultValue" in v && v.defaultValue !== undefined) return `default: ${formatValue(v.defaultValue, v.unit)} (no value given)`;
+  if (v.value === null && "optional" in v && v.optional) return "not given";
   return formatValue(v.value, v.unit);
 }
 

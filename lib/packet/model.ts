@@ -306,9 +306,9 @@ export function templateContext(input: PacketInput, sheet: { code: string; title
     },
     site: {
       designLowTempC: dash(record.site.designLowTempC),
-      designLowTempSource: record.site.designLowTempSource || "not given",
+      designLowTempSource: record.site.designLowTempSource || "source not given",
       designHighTempC: dash(record.site.designHighTempC),
-      designHighTempSource: record.site.designHighTempSource || "not given",
+      designHighTempSource: record.site.designHighTempSource || "source not given",
       sunHoursPerDay: dash(record.site.sunHoursPerDay),
     },
     counts: {
@@ -599,6 +599,18 @@ function reviewBlocks(input: PacketInput): Block[] {
       "Points for the reviewer (fail, needs input, warning, attest)",
     ),
   );
+  const dispositions = input.approval?.dispositions ?? [];
+  if (input.approval) {
+    blocks.push(
+      table(
+        [["Attest item", 3], ["Disposition", 1.1], ["Reviewer's note", 3.5]],
+        dispositions.length
+          ? dispositions.map((d) => [d.item, d.disposition === "accepted" ? "Accepted" : "Returned", d.note || "—"])
+          : [["—", "", "No attest items in this revision."]],
+        "Dispositions of the attest items",
+      ),
+    );
+  }
   return blocks;
 }
 

@@ -1,12 +1,13 @@
 import { and, eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
-import { packetRevisions, reviewNotes, reviews, users, type LicenceSnapshot } from "../../../db/schema";
+import { packetRevisions, reviewNotes, reviews, users, type AttestDispositionRecord, type LicenceSnapshot } from "../../../db/schema";
 import { deliverQueued, queueEmail } from "../../email/outbox";
 import { formatIssues } from "../../schemas/fields";
 import { reviewDecisionSchema, type ReviewNoteInput } from "../../schemas/review";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid, type FieldIssue } from "../errors";
 import { moveProjectStatus } from "../projects/status";
+import { checkStampable } from "./dispositions";
 import { dispatchRevisionWorker } from "../revisions/dispatch";
 import {
   deliverAfterCommit,
@@ -60,7 +61,7 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
   requirePermission(ctx, "review:decide", "return or approve packets");
   const parsed = reviewDecisionSchema.safeParse(input);
   if (!parsed.success) throw invalid("The decision was not recorded: some fields are not valid.", formatIssues(parsed.error));
-  const { revisionId, decision, generalNotes, notes, confirmStamp } = parsed.data;
+  const { revisionId, decision, generalNotes, notes, confirmStamp, dispositions } = parsed.data;
   const now = options.now ?? new Date();
 
   const { row, project } = findRevisionForReview(ctx, revisionId);
@@ -73,7 +74,9 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
   checkNoteTargets(notes, run ? new Set(run.results.map((r) => r.id)) : new Set());
 
   let licenceSnapshot: LicenceSnapshot | null = null;
+  let dispositionRecords: AttestDispositionRecord[];
   if (decision === "returned") {
+    dispositionRecords = checkStampable(run, decision, dispositions);
     if (!generalNotes && notes.length === 0) {
       throw invalid("Say why the revision goes back: write a general note or a note on a check or sheet.", [
         { path: "generalNotes", message: "is required when returning without notes on checks or sheets" },
@@ -104,6 +107,7 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
         { path: "revision", message: "is a draft" },
       ]);
     }
+    dispositionRecords = checkStampable(run, decision, dispositions);
     licenceSnapshot = {
       reviewerName: ctx.user.name,
       licenceNumber: licence.licenceNumber,
@@ -149,6 +153,7 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
         generalNotes,
         licenceSnapshot,
         approvedSha256,
+        dispositions: dispositionRecords,
         createdAt,
       })
       .returning({ id: reviews.id })

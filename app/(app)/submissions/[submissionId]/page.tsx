@@ -65,7 +65,7 @@ export default async function SubmissionPage({ params }: { params: Promise<{ sub
           {s.allowedNext.length === 0 ? (
             <p className="sheet px-4 py-4 text-sm text-ink-soft">This submission is {EVENT_LABELS[s.status].toLowerCase()}; a new application starts with a new submission.</p>
           ) : (
-            <EventForm key={s.version} submissionId={s.id} version={s.version} status={s.status} today={today} allowedNext={s.allowedNext} resubmittable={s.resubmittable} />
+            <EventForm submissionId={s.id} version={s.version} status={s.status} today={today} allowedNext={s.allowedNext} resubmittable={s.resubmittable} />
           )}
         </section>
       ) : null}
