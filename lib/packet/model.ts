@@ -1,233 +1,19 @@
-import type { CheckResult, CheckStatus } from "../compliance/types";
-import { EQUIPMENT_KIND_LABELS, type Circuit, type Equipment, type ProjectRecord } from "../schemas/project-record";
-import { DATASHEET_KINDS as DATASHEET_KIND_LIST, missingDocuments as missingOnFileDocuments } from "../compliance/documents";
-import { dash, formatNumber, isoDate } from "./format";
-import type { Block, Cell, TableColumn } from "./markup";
-import { renderSheetTemplate, type TemplateContext } from "./templates";
-import type { PacketInput, SheetTemplateName } from "./types";
+import { missingDocuments as missingOnFileDocuments } from "../compliance/documents";
+import { templateContext } from "./context";
+import { isoDate } from "./format";
+import type { Block } from "./markup";
+import { AHJ_FOOTER, REVIEW_MARKING, SHEET_PLAN, type PacketDatasheet, type PacketModel, type Sheet } from "./plan";
+import { conductorBlocks } from "./sheets/conductors";
+import { equipmentBlocks } from "./sheets/equipment";
+import { reviewBlocks } from "./sheets/review-record";
+import { sitePlanBlocks } from "./sheets/site-plan";
+import { storageBlocks } from "./sheets/storage";
+import { renderSheetTemplate } from "./templates";
+import type { PacketInput } from "./types";
 
-export type SheetKind =
-  | "cover"
-  | "general-notes"
-  | "site-plan"
-  | "one-line"
-  | "energy-storage"
-  | "calculations"
-  | "conductor-schedule"
-  | "equipment-schedule"
-  | "label-schedule"
-  | "review-record";
+export * from "./plan";
+export { templateContext };
 
-export interface Sheet {
-  code: string;
-  title: string;
-  kind: SheetKind;
-  /** Text columns on a 17 in sheet; tables and figures span them all. */
-  columns: 1 | 2 | 3;
-  blocks: Block[];
-}
-
-export interface PacketDatasheet {
-  code: string;
-  title: string;
-  equipmentTag?: string;
-  bytes: Uint8Array;
-}
-
-export interface PacketMarking {
-  approved: boolean;
-  /** Printed on every page of an unapproved revision. */
-  reviewText: string;
-  /** Printed on every page of an approved revision. */
-  approvalLines: string[];
-  footer: string;
-}
-
-export interface PacketModel {
-  titleBlock: {
-    firm: string;
-    preparedBy: string;
-    project: string;
-    client: string;
-    address: string;
-    jurisdiction: string;
-    edition: string;
-    revision: string;
-    date: string;
-  };
-  sheets: Sheet[];
-  datasheets: PacketDatasheet[];
-  marking: PacketMarking;
-  draft: { isDraft: boolean; reasons: string[] };
-  missingDocuments: string[];
-}
-
-export const REVIEW_MARKING = "PREPARED FOR REVIEW BY A LICENSED PROFESSIONAL — NOT FOR CONSTRUCTION UNTIL STAMPED";
-export const AHJ_FOOTER = "Local codes and the Authority Having Jurisdiction govern.";
-
-/** Sheet list in packet order: the index, the page headers and both writers read it. */
-export const SHEET_PLAN: { code: string; title: string; kind: SheetKind; template: SheetTemplateName; columns: 1 | 2 | 3 }[] = [
-  { code: "G-001", title: "Cover sheet and sheet index", kind: "cover", template: "cover", columns: 2 },
-  { code: "G-002", title: "General notes and cautions", kind: "general-notes", template: "general-notes", columns: 3 },
-  { code: "G-003", title: "Site plan and equipment locations", kind: "site-plan", template: "site-plan", columns: 1 },
-  { code: "E-001", title: "One-line diagram", kind: "one-line", template: "one-line", columns: 1 },
-  { code: "E-002", title: "Energy storage", kind: "energy-storage", template: "energy-storage", columns: 1 },
-  { code: "E-003", title: "Calculations", kind: "calculations", template: "calculations", columns: 3 },
-  { code: "E-004", title: "Conductor and overcurrent schedule", kind: "conductor-schedule", template: "schedules", columns: 1 },
-  { code: "E-005", title: "Equipment schedule", kind: "equipment-schedule", template: "schedules", columns: 1 },
-  { code: "E-006", title: "Label schedule", kind: "label-schedule", template: "label-schedule", columns: 1 },
-  { code: "G-004", title: "Review record", kind: "review-record", template: "review-record", columns: 2 },
-];
-
-const SYSTEM_KIND_LABEL: Record<ProjectRecord["systemKind"], string> = {
-  "stand-alone": "Stand-alone PV and battery system",
-  "stand-alone-generator": "Stand-alone PV and battery system with generator",
-  hybrid: "Hybrid (grid-interactive) PV and battery system",
-};
-
-const OCCUPANCY_LABEL: Record<ProjectRecord["site"]["occupancy"], string> = {
-  "one-two-family-dwelling": "One- and two-family dwelling",
-  "other-building": "Other building",
-};
-
-const LOCATION_LABEL: Record<string, string> = {
-  "utility-closet": "utility closet",
-  basement: "basement",
-  "storage-room": "storage room",
-  garage: "garage",
-  "accessory-building": "accessory building",
-  "exterior-wall": "exterior wall",
-  outdoors: "outdoors",
-  "habitable-room": "habitable room",
-};
-
-// A schedule spells out the two kinds that read ambiguously on a permit sheet.
-const KIND_LABEL: Record<Equipment["kind"], string> = {
-  ...EQUIPMENT_KIND_LABELS,
-  breaker: "Circuit breaker",
-  "ac-panel": "AC distribution panel",
-};
-
-const CIRCUIT_KIND_LABEL: Record<Circuit["kind"], string> = {
-  "pv-source": "PV source",
-  "pv-output": "PV output",
-  battery: "Battery",
-  "inverter-dc-input": "Inverter DC input",
-  "inverter-ac-output": "Inverter AC output",
-  "generator-output": "Generator output",
-  "ac-branch": "AC branch",
-};
-
-/** Equipment whose datasheet a permit office asks for (the submittal check's list). */
-const DATASHEET_KINDS = new Set<string>(DATASHEET_KIND_LIST);
-
-const STATUS_ORDER: CheckStatus[] = ["fail", "needs-input", "warning", "attest", "pass", "not-applicable"];
-
-function worstStatus(results: CheckResult[]): CheckStatus | null {
-  let worst: CheckStatus | null = null;
-  for (const r of results) {
-    if (worst === null || STATUS_ORDER.indexOf(r.status) < STATUS_ORDER.indexOf(worst)) worst = r.status;
-  }
-  return worst;
-}
-
-function equipmentByTag(record: ProjectRecord): Map<string, Equipment> {
-  return new Map(record.equipment.map((e) => [e.tag, e]));
-}
-
-function describe(e: Equipment | undefined): string {
-  if (!e) return "";
-  return [e.manufacturer, e.model].filter(Boolean).join(" ");
-}
-
-function batteryKWh(e: Extract<Equipment, { kind: "battery" }>): number | undefined {
-  if (e.capacityKWh !== undefined) return e.capacityKWh;
-  if (e.capacityAh !== undefined && e.nominalVoltageV !== undefined) return (e.capacityAh * e.nominalVoltageV) / 1000;
-  return undefined;
-}
-
-function keyRatings(e: Equipment): string {
-  switch (e.kind) {
-    case "pv-module":
-      return [dash(e.pmaxW, "W"), `Voc ${dash(e.vocV, "V")}`, `Isc ${dash(e.iscA, "A")}`, `Vmp ${dash(e.vmpV, "V")}`, `Imp ${dash(e.impA, "A")}`, `max system ${dash(e.maxSystemVoltageV, "V")}`].join(", ");
-    case "charge-controller":
-      return [e.controllerType?.toUpperCase() ?? "type —", `PV in max ${dash(e.maxPvInputVoltageV, "V")} / ${dash(e.maxPvInputCurrentA, "A")}`, `output ${dash(e.ratedOutputCurrentA, "A")}`, `battery ${e.batteryVoltagesV.length ? e.batteryVoltagesV.join("/") + " V" : "—"}`].join(", ");
-    case "inverter":
-    case "inverter-charger":
-    case "hybrid-inverter":
-      return [`${dash(e.continuousW, "W")} continuous`, `${dash(e.surgeW, "W")} surge`, `battery ${dash(e.nominalBatteryVoltageV, "V")}`, `AC ${e.acOutput ?? dash(e.acOutputVoltageV, "V")} ${e.acOutputPhases}φ`, `listed ${e.listedMode ?? "—"}`].join(", ");
-    case "battery":
-      return [e.chemistry?.toUpperCase() ?? "chemistry —", dash(e.nominalVoltageV, "V"), dash(e.capacityAh, "Ah"), dash(batteryKWh(e) !== undefined ? formatNumber(batteryKWh(e)!) : undefined, "kWh"), `max discharge ${dash(e.maxContinuousDischargeA, "A")}`, `short-circuit ${dash(e.shortCircuitCurrentA, "A")}`].join(", ");
-    case "generator":
-      return [dash(e.ratedKW, "kW"), e.output ?? dash(e.voltageV, "V"), e.fuel ?? "fuel —"].join(", ");
-    case "disconnect":
-    case "fuse":
-    case "breaker":
-      return [dash(e.ratingA, "A"), dash(e.voltageRatingV, "V"), e.currentType?.toUpperCase() ?? "AC/DC —", `AIC ${dash(e.interruptingRatingA, "A")}`].join(", ");
-    case "rapid-shutdown":
-      return [e.method ?? "method —", e.controls].filter(Boolean).join(", ");
-    case "ac-panel":
-    case "busbar":
-      return [`bus ${dash(e.busRatingA, "A")}`, `main ${dash(e.mainBreakerA, "A")}`, e.voltage ? `${e.voltage} V` : "voltage —"].join(", ");
-  }
-}
-
-function systemFigures(record: ProjectRecord) {
-  const eq = equipmentByTag(record);
-  let moduleCount = 0;
-  let arrayW = 0;
-  for (const a of record.arrays) {
-    const n = a.modulesInSeries * a.stringsInParallel;
-    moduleCount += n;
-    const m = eq.get(a.moduleTag);
-    if (m?.kind === "pv-module" && m.pmaxW !== undefined) arrayW += n * m.pmaxW;
-  }
-  let storageKWh = 0;
-  let batteryUnits = 0;
-  let inverterW = 0;
-  for (const e of record.equipment) {
-    if (e.kind === "battery") {
-      batteryUnits += e.quantity;
-      storageKWh += (batteryKWh(e) ?? 0) * e.quantity;
-    }
-    if ((e.kind === "inverter" || e.kind === "inverter-charger" || e.kind === "hybrid-inverter") && e.continuousW) {
-      inverterW += e.continuousW * e.quantity;
-    }
-  }
-  return { moduleCount, arrayKwDc: arrayW / 1000, storageKWh, batteryUnits, inverterW };
-}
-
-function scopeLines(record: ProjectRecord): string[] {
-  const eq = equipmentByTag(record);
-  const lines: string[] = [
-    `${SYSTEM_KIND_LABEL[record.systemKind]} for ${record.site.occupancy === "one-two-family-dwelling" ? "a one- and two-family dwelling" : "a building other than a one- and two-family dwelling"}, ${record.site.mounting}-mounted array.`,
-  ];
-  for (const a of record.arrays) {
-    const m = eq.get(a.moduleTag);
-    const n = a.modulesInSeries * a.stringsInParallel;
-    const kw = m?.kind === "pv-module" && m.pmaxW ? ` (${formatNumber((n * m.pmaxW) / 1000)} kW DC)` : "";
-    lines.push(
-      `PV array ${a.tag}: ${n} × ${describe(m) || a.moduleTag}, ${a.modulesInSeries} in series × ${a.stringsInParallel} string${a.stringsInParallel === 1 ? "" : "s"}${kw}, feeding ${a.feedsTag}${a.mpptInputId ? ` input ${a.mpptInputId}` : ""}.`,
-    );
-  }
-  for (const e of record.equipment) {
-    if (e.kind === "battery") {
-      const kwh = batteryKWh(e);
-      lines.push(
-        `Energy storage ${e.tag}: ${e.quantity} × ${describe(e) || "battery"}${e.chemistry ? ` (${e.chemistry.toUpperCase()})` : ""}${kwh !== undefined ? `, ${formatNumber(kwh * e.quantity)} kWh total` : ""}${record.site.batteryLocation ? `, in the ${LOCATION_LABEL[record.site.batteryLocation]}` : ""}.`,
-      );
-    } else if (e.kind === "inverter" || e.kind === "inverter-charger" || e.kind === "hybrid-inverter") {
-      lines.push(`${KIND_LABEL[e.kind]} ${e.tag}: ${describe(e) || e.kind}, ${dash(e.continuousW, "W")} continuous, ${e.acOutput ?? dash(e.acOutputVoltageV)} V AC output.`);
-    } else if (e.kind === "charge-controller") {
-      lines.push(`Charge controller ${e.tag}: ${describe(e) || "controller"}${e.controllerType ? ` (${e.controllerType.toUpperCase()})` : ""}.`);
-    } else if (e.kind === "generator") {
-      lines.push(`Generator ${e.tag}: ${describe(e) || "generator"}, ${dash(e.ratedKW, "kW")}${e.fuel ? `, ${e.fuel}` : ""}.`);
-    }
-  }
-  return lines;
-}
-
-/** Documents the jurisdiction asks for that the packet lacks, each named. */
 /**
  * The documents the jurisdiction requires that the packet does not carry, in
  * the submittal check's words: the record's attachment list plus what this
@@ -258,6 +44,7 @@ function draftReasons(input: PacketInput, missingDocs: string[]): string[] {
   return reasons;
 }
 
+<<<<<<< HEAD
 export function templateContext(input: PacketInput, sheet: { code: string; title: string; kind: string }, sheetPages: Map<string, string>, datasheets: PacketDatasheet[], draft: { isDraft: boolean; reasons: string[] }): TemplateContext {
   const { record, run, revision, approval } = input;
   const fig = systemFigures(record);
@@ -614,6 +401,8 @@ function reviewBlocks(input: PacketInput): Block[] {
   return blocks;
 }
 
+=======
+>>>>>>> main
 export interface BuildOptions {
   /** Packet page ranges per sheet code, for the sheet index (known after a first layout pass). */
   sheetPages?: Map<string, string>;
