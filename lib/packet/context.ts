@@ -108,9 +108,9 @@ export function templateContext(input: PacketInput, sheet: { code: string; title
     },
     site: {
       designLowTempC: dash(record.site.designLowTempC),
-      designLowTempSource: record.site.designLowTempSource || "not given",
+      designLowTempSource: record.site.designLowTempSource || "source not given",
       designHighTempC: dash(record.site.designHighTempC),
-      designHighTempSource: record.site.designHighTempSource || "not given",
+      designHighTempSource: record.site.designHighTempSource || "source not given",
       sunHoursPerDay: dash(record.site.sunHoursPerDay),
     },
     counts: {

@@ -5,13 +5,9 @@ import { deliverQueued, queueEmail } from "../../email/outbox";
 import { formatIssues } from "../../schemas/fields";
 import { reviewDecisionSchema, type ReviewNoteInput } from "../../schemas/review";
 import { audit, requirePermission, type ServiceContext } from "../context";
-<<<<<<< HEAD
-import { conflict, invalid, type FieldIssue } from "../errors";
+import { conflict, invalid, ServiceError, type FieldIssue } from "../errors";
 import { moveProjectStatus } from "../projects/status";
 import { checkStampable } from "./dispositions";
-=======
-import { conflict, invalid, ServiceError, type FieldIssue } from "../errors";
->>>>>>> main
 import { dispatchRevisionWorker } from "../revisions/dispatch";
 import { independenceRefusal, licenceCoverageRefusal } from "./independence";
 import {
