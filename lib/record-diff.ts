@@ -155,3 +155,58 @@ export function describeChange(c: FieldChange): string {
 export function designOf<T extends { attachments?: { kind: string }[] }>(record: T): T {
   return { ...record, attachments: (record.attachments ?? []).filter((a) => a.kind !== "photo") };
 }
+
+/** A check result as the diff reads it. */
+export interface ResultLike {
+  id: string;
+  title: string;
+  subject?: string | null;
+  status: string;
+  values: { key: string; label: string; value: number | string | boolean; unit: string }[];
+}
+
+export interface ResultChange {
+  id: string;
+  title: string;
+  subject: string | null;
+  kind: ChangeKind;
+  statusBefore: string | null;
+  statusAfter: string | null;
+  /** Values whose figure changed, old → new, with their unit. */
+  values: { label: string; before: string; after: string }[];
+}
+
+const valueText = (v: { value: number | string | boolean; unit: string } | undefined) => (v === undefined ? "(none)" : `${v.value}${v.unit ? ` ${v.unit}` : ""}`);
+
+/**
+ * Check results whose status or values changed between two runs, matched by
+ * result id ("ampacity:C-2"); results that appear or disappear are listed as
+ * added or removed. Results that read the same are left out.
+ */
+export function diffResults(before: readonly ResultLike[], after: readonly ResultLike[]): ResultChange[] {
+  const old = new Map(before.map((r) => [r.id, r]));
+  const now = new Map(after.map((r) => [r.id, r]));
+  const out: ResultChange[] = [];
+  for (const r of after) {
+    const o = old.get(r.id);
+    if (!o) {
+      out.push({ id: r.id, title: r.title, subject: r.subject ?? null, kind: "added", statusBefore: null, statusAfter: r.status, values: [] });
+      continue;
+    }
+    const keys = [...new Set([...o.values.map((v) => v.key), ...r.values.map((v) => v.key)])];
+    const values = keys
+      .map((k) => {
+        const a = o.values.find((v) => v.key === k);
+        const b = r.values.find((v) => v.key === k);
+        return { label: (b ?? a)!.label, before: valueText(a), after: valueText(b) };
+      })
+      .filter((v) => v.before !== v.after);
+    if (o.status !== r.status || values.length) {
+      out.push({ id: r.id, title: r.title, subject: r.subject ?? null, kind: "changed", statusBefore: o.status, statusAfter: r.status, values });
+    }
+  }
+  for (const o of before) {
+    if (!now.has(o.id)) out.push({ id: o.id, title: o.title, subject: o.subject ?? null, kind: "removed", statusBefore: o.status, statusAfter: null, values: [] });
+  }
+  return out;
+}

@@ -3,11 +3,16 @@ import type { Db } from "../../../db/client";
 import { packetRevisions } from "../../../db/schema";
 import { deliverQueued, queueEmail } from "../../email/outbox";
 import { audit, requirePermission, type ServiceContext } from "../context";
-import { conflict } from "../errors";
+import { conflict, invalid } from "../errors";
 import { moveProjectStatus } from "../projects/status";
 import { activeReviewers, deliverAfterCommit, findRevisionForReview, snapshotRun } from "./shared";
 
+/** Long enough to answer a reviewer's notes point by point. */
+export const SEND_MESSAGE_MAX_CHARS = 4000;
+
 export interface SendOptions {
+  /** What the designer says with the revision; required when checks fail (why it should be reviewed anyway). */
+  message?: string;
   /** Delivers the queued mail after commit; the outbox's SMTP delivery unless given. */
   deliver?: (db: Db, orgId: string) => Promise<unknown>;
 }
@@ -41,6 +46,13 @@ export async function sendForReview(ctx: ServiceContext, revisionId: string, opt
   }
   const run = snapshotRun(row);
   const counts = run?.counts;
+  const message = (options.message ?? "").trim();
+  if (message.length > SEND_MESSAGE_MAX_CHARS) throw invalid(`The message is too long.`, [{ path: "message", message: `must be at most ${SEND_MESSAGE_MAX_CHARS} characters` }]);
+  if ((counts?.fail ?? 0) > 0 && !message) {
+    throw invalid(`Revision ${row.number} has ${counts!.fail} failing check${counts!.fail === 1 ? "" : "s"}; say in a message why it should be reviewed as it is.`, [
+      { path: "message", message: "is required when checks fail" },
+    ]);
+  }
 
   ctx.db.transaction((tx) => {
     const moved = tx
@@ -63,6 +75,7 @@ export async function sendForReview(ctx: ServiceContext, revisionId: string, opt
         warningCount: counts?.warning ?? 0,
         needsInputCount: counts?.["needs-input"] ?? 0,
         attestCount: counts?.attest ?? 0,
+        message,
         projectId: project.id,
         revisionId: row.id,
       });
@@ -72,6 +85,7 @@ export async function sendForReview(ctx: ServiceContext, revisionId: string, opt
       number: row.number,
       recordSha256: row.recordSha256,
       resent: row.reviewState === "returned",
+      ...(message ? { message, senderName: ctx.user.name } : {}),
       reviewers: reviewers.map((r) => r.id),
     });
   });

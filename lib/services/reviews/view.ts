@@ -6,6 +6,7 @@ import { CHECK_STATUSES, type CheckResult, type CheckRun, type CheckStatus } fro
 import { requirePermission, type ServiceContext } from "../context";
 import { ServiceError } from "../errors";
 import { getProjectRecord } from "../projects/get-record";
+import { revisionDelta, sendMessage, type RevisionDelta } from "./delta";
 import { listRevisionReviews, type ReviewEntry } from "./history";
 import { toLicenceView, type LicenceView } from "./licence";
 import { independenceRefusal, licenceCoverageRefusal } from "./independence";
@@ -53,6 +54,10 @@ export interface ReviewWorkspace {
   /** Why the actor's licence does not cover the project's jurisdiction, or null; it blocks approval only. */
   licenceCoverage: string | null;
   maySend: boolean;
+  /** What changed since the earlier revision a reviewer decided on; null for a first review. */
+  delta: RevisionDelta | null;
+  /** The designer's message sent with this revision. */
+  sendMessage: { text: string; by: string | null; at: string } | null;
 }
 
 /** Everything the review page shows, read from the revision's snapshots rather than the live design. */
@@ -131,5 +136,7 @@ export function getReviewWorkspace(ctx: ServiceContext, revisionId: string, opti
     decisionRefusal,
     licenceCoverage,
     maySend: can(ctx.roles, "review:send") && row.state === "ready" && (row.reviewState === "draft" || row.reviewState === "returned"),
+    delta: revisionDelta(ctx, row),
+    sendMessage: sendMessage(ctx, row.id),
   };
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { describeChange, designOf, diffValues, groupChanges } from "../../../lib/record-diff";
+import { describeChange, designOf, diffResults, diffValues, groupChanges } from "../../../lib/record-diff";
 
 const before = {
   name: "Hut",
@@ -46,5 +46,29 @@ describe("record diff", () => {
     const withPhoto = { ...before, attachments: [...before.attachments, { kind: "photo", fileName: "label.jpg" }] };
     expect(diffValues(designOf(before), designOf(withPhoto))).toEqual([]);
     expect(diffValues(before, withPhoto)).toHaveLength(1);
+  });
+});
+
+describe("check result diff", () => {
+  const r = (id: string, status: string, values: [string, number][] = []) => ({
+    id,
+    title: id.split(":")[0]!,
+    subject: id.split(":")[1] ?? null,
+    status,
+    values: values.map(([key, value]) => ({ key, label: key, value, unit: "A" })),
+  });
+  it("lists a result whose status changed with its changed figures, and leaves unchanged ones out", () => {
+    const before = [r("ampacity:C-2", "fail", [["allowed", 30], ["required", 40]]), r("ampacity:C-1", "pass", [["allowed", 55]])];
+    const after = [r("ampacity:C-2", "pass", [["allowed", 40], ["required", 40]]), r("ampacity:C-1", "pass", [["allowed", 55]])];
+    expect(diffResults(before, after)).toEqual([
+      { id: "ampacity:C-2", title: "ampacity", subject: "C-2", kind: "changed", statusBefore: "fail", statusAfter: "pass", values: [{ label: "allowed", before: "30 A", after: "40 A" }] },
+    ]);
+  });
+  it("lists results that appear and disappear", () => {
+    const changes = diffResults([r("vd:C-3", "pass")], [r("vd:C-4", "warning")]);
+    expect(changes.map((c) => [c.id, c.kind])).toEqual([
+      ["vd:C-4", "added"],
+      ["vd:C-3", "removed"],
+    ]);
   });
 });
