@@ -4,7 +4,7 @@ import { auditLog, packetRevisions, projects, submissionEvents } from "../../db/
 import { ServiceError } from "../../lib/services/errors";
 import { getProjectRecord } from "../../lib/services/projects/get-record";
 import { moveProjectStatus } from "../../lib/services/projects/status";
-import { createSubmission, getSubmission, recordSubmissionEvent, voidSubmissionEvent } from "../../lib/services/submissions";
+import { createSubmission, getSubmission, listSubmissionQueue, recordSubmissionEvent, voidSubmissionEvent } from "../../lib/services/submissions";
 import { codeOf, makeContext, makeJurisdiction, makeOrg, makeProject, tempDatabase } from "./factories";
 
 const env = tempDatabase();
@@ -149,6 +149,12 @@ describe("voiding", () => {
     // With the permit voided, an inspection is again out of order.
     expect((await refusal(() => record(submissionId, { kind: "inspection-scheduled", inspectionKind: "rough" }))).message).toMatch(/before the permit/);
     expect(db.select().from(auditLog).where(and(eq(auditLog.action, "submission.voided"), eq(auditLog.entityId, submissionId))).all()).toHaveLength(1);
+    // The queue ignores the voided permit too: no permit number, and the AHJ is still reviewing (6 days since 2026-11-25).
+    const queued = listSubmissionQueue(office, { now: NOW }).find((q) => q.submissionId === submissionId)!;
+    expect(queued.status).toBe("submitted");
+    expect(queued.permitNumber).toBeNull();
+    expect(queued.daysWaiting).toBe(6);
+    expect(queued.holder).toBe("AHJ");
   });
 
   it("refuses a void that leaves later entries out of order, a void without reason, and voiding the submission itself", async () => {
