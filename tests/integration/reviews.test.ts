@@ -130,6 +130,9 @@ function acceptAll(id: string) {
   return run.results.filter((r) => r.status === "attest").map((r) => ({ resultId: r.id, disposition: "accepted", note: `Seen on the site photos (${r.id}).` }));
 }
 
+/** What a designer says when sending a set whose checks fail. */
+const HUT_MESSAGE = "The failing breaker is being replaced; please review the rest of the set.";
+
 let projectId = "";
 let revisionId = "";
 
@@ -147,7 +150,9 @@ describe("sending a revision for review", () => {
   });
 
   it("puts the revision and the project in review and e-mails every reviewer through the outbox", async () => {
-    const sent = await sendForReview(designer, revisionId, { deliver: noDelivery });
+    // The hut has failing checks, so sending it needs a message.
+    expect(await codeOf(() => sendForReview(designer, revisionId, { deliver: noDelivery }))).toBe("invalid");
+    const sent = await sendForReview(designer, revisionId, { deliver: noDelivery, message: HUT_MESSAGE });
     expect(sent.reviewState).toBe("in-review");
     expect(revisionRow(revisionId).reviewState).toBe("in-review");
     expect(db.select().from(projects).where(eq(projects.id, projectId)).get()!.status).toBe("in-review");
@@ -164,7 +169,7 @@ describe("sending a revision for review", () => {
   });
 
   it("refuses to send a revision already waiting", async () => {
-    expect(await codeOf(() => sendForReview(designer, revisionId, { deliver: noDelivery }))).toBe("conflict");
+    expect(await codeOf(() => sendForReview(designer, revisionId, { deliver: noDelivery, message: HUT_MESSAGE }))).toBe("conflict");
   });
 });
 
@@ -229,7 +234,7 @@ describe("deciding", () => {
   });
 
   it("lets the designer send a returned revision again unchanged", async () => {
-    await sendForReview(designer, revisionId, { deliver: noDelivery });
+    await sendForReview(designer, revisionId, { deliver: noDelivery, message: HUT_MESSAGE });
     expect(revisionRow(revisionId).reviewState).toBe("in-review");
     expect(mailTo(reviewer.user.email, "sent-for-review")).toHaveLength(2);
   });
