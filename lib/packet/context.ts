@@ -1,5 +1,5 @@
 import type { ProjectRecord } from "../schemas/project-record";
-import { dash, formatNumber, isoDate } from "./format";
+import { dash, datedTime, formatNumber, isoDate } from "./format";
 import { SHEET_PLAN, type PacketDatasheet } from "./plan";
 import { KIND_LABEL, LOCATION_LABEL, OCCUPANCY_LABEL, SYSTEM_KIND_LABEL, batteryKWh, describe, equipmentByTag } from "./sheets/shared";
 import type { TemplateContext } from "./templates";
@@ -98,7 +98,7 @@ export function templateContext(input: PacketInput, sheet: { code: string; title
       voltageDropLimitPct: formatNumber(record.jurisdiction.voltageDropLimitPct ?? 3),
       requiredDocuments: record.jurisdiction.requiredDocuments,
     },
-    revision: { number: String(revision.number), date: isoDate(revision.createdAt), createdAt: revision.createdAt },
+    revision: { number: String(revision.number), date: isoDate(revision.createdAt), createdAt: datedTime(revision.createdAt) },
     revisions: (input.revisionHistory ?? [{ number: revision.number, date: revision.createdAt, change: "This issue", by: revision.preparedBy }]).map((r) => ({
       number: String(r.number),
       date: isoDate(r.date),

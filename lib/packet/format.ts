@@ -51,6 +51,21 @@ export function isoDate(iso: string): string {
   return iso.slice(0, 10);
 }
 
+const MONTHS = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
+
+/**
+ * A timestamp as a reader of the printed set reads it: "2 December 2026,
+ * 14:20 UTC". The packet is rendered without a clock or a locale, so the zone
+ * is stated rather than guessed.
+ */
+export function datedTime(iso: string): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return iso;
+  const hh = String(d.getUTCHours()).padStart(2, "0");
+  const mm = String(d.getUTCMinutes()).padStart(2, "0");
+  return `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}, ${hh}:${mm} UTC`;
+}
+
 export function dash(v: string | number | undefined | null, unit = ""): string {
   if (v === undefined || v === null || v === "") return "—";
   const text = typeof v === "number" ? formatNumber(v) : v;

@@ -25,3 +25,10 @@ describe("how a check input prints", () => {
     expect(t.missing).toEqual(["site.designHighTempC"]);
   });
 });
+
+describe("timestamps in the printed set", () => {
+  it("print as a dated time with its zone, not a raw ISO string", async () => {
+    const { datedTime } = await import("../../../lib/packet/format");
+    expect(datedTime("2026-12-02T14:20:59.412Z")).toBe("2 December 2026, 14:20 UTC");
+  });
+});
