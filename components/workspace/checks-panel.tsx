@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useState } from "react";
-import { CHECK_STATUSES, type CheckResult, type CheckStatus } from "@/lib/compliance";
+import { CHECK_STATUSES, type CheckResult, type CheckStatus, type RemedyChange } from "@/lib/compliance";
 import { StatusBadge, statusWord } from "@/components/ui/status-badge";
 import { useFormContext } from "react-hook-form";
 import { plural } from "@/lib/schemas/vocabulary";
@@ -22,12 +22,15 @@ function ResultItem({
   open,
   onToggle,
   projectId,
+  onApply,
 }: {
   result: CheckResult;
   record: unknown;
   open: boolean;
   onToggle: () => void;
   projectId: string;
+  /** Carries out a remedy's field changes; absent while rows are left out of the checks (their paths would not match the form). */
+  onApply?: (changes: RemedyChange[]) => void;
 }) {
   const used = [...result.missing, ...result.inputs.map((i) => i.path)];
   // Documents are edited on the attachments tab, not in this form.
@@ -57,6 +60,19 @@ function ResultItem({
       {open ? (
         <div className="space-y-2 px-3 pb-3 text-xs">
           {result.reason ? <p className="text-ink-soft">{humaniseText(record, result.reason)}</p> : null}
+          {result.remedy ? (
+            <div className="border-l-2 border-query pl-2">
+              <p>
+                <span className="field-label">Fix </span>
+                {humaniseText(record, result.remedy.text)}
+              </p>
+              {result.remedy.changes.length && onApply ? (
+                <button type="button" className="btn-quiet mt-1 px-2 py-0.5 text-xs" onClick={() => onApply(result.remedy!.changes)}>
+                  Apply: {result.remedy.changes.map((c) => `${describePath(record, c.path)} → ${String(c.value)}`).join("; ")}
+                </button>
+              ) : null}
+            </div>
+          ) : null}
           {result.values.length ? (
             <table className="w-full" aria-label={`Values of ${result.title}`}>
               <tbody>
@@ -132,7 +148,14 @@ export function ChecksPanel({ projectId }: { projectId: string }) {
   const groups = new Map<CheckStatus, CheckResult[]>();
   for (const r of live.run?.results ?? []) groups.set(r.status, [...(groups.get(r.status) ?? []), r]);
   const stale = live.record === null && live.issues.length > 0;
-  const { getValues } = useFormContext();
+  const { getValues, setValue } = useFormContext();
+  const apply =
+    live.omitted.length === 0
+      ? (changes: RemedyChange[]) => {
+          for (const c of changes) setValue(c.path, c.value, { shouldDirty: true, shouldValidate: true });
+          focusRecordPaths(changes.map((c) => c.path));
+        }
+      : undefined;
   // Field errors name rows of the form as it stands; engine results name rows of the record the engine ran on.
   const values = getValues();
   const issueGroups = groupIssues(values, live.issues);
@@ -197,7 +220,7 @@ export function ChecksPanel({ projectId }: { projectId: string }) {
               </h3>
               <ul>
                 {results.map((r) => (
-                  <ResultItem key={r.id} projectId={projectId} record={live.record} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
+                  <ResultItem key={r.id} projectId={projectId} record={live.record} onApply={apply} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
                 ))}
               </ul>
             </section>
