@@ -5,7 +5,8 @@
  * close to it; inverters listed for the mode they run in; storage listed.
  */
 import type { Circuit } from "../../schemas/project-record";
-import { isDcCircuit, isInverter, Trace, v, type CheckContext, type Indexed, isProtective } from "../context";
+import { circuitArrayTag, isDcCircuit, isInverter, isPvCircuit, Trace, v, type CheckContext, type Indexed, isProtective } from "../context";
+import { arrayMaxVoltage } from "../derive/pv";
 import { batteries } from "../derive/battery";
 import { circuitCurrent } from "../derive/circuit-current";
 import { localRef, refs } from "../refs";
@@ -56,7 +57,11 @@ export const deviceRatings: CheckDefinition = {
         anyDc ||= dc;
         anyAc ||= !dc;
         if (cur.ok && cur.value.maxVoltageV !== undefined) maxV = Math.max(maxV, cur.value.maxVoltageV);
-        else if (cur.ok) t.need(`${c.path}.nominalVoltageV`, `Voltage of ${c.item.tag}`, undefined, "V");
+        else if (cur.ok && isPvCircuit(c.item)) {
+          // A PV circuit's voltage is the array's cold Voc: name what that computation lacks, not the circuit's nominal voltage it never reads.
+          const arrayTag = circuitArrayTag(ctx, c.item);
+          if (arrayTag !== undefined) t.merge(arrayMaxVoltage(ctx, arrayTag));
+        } else if (cur.ok) t.need(`${c.path}.nominalVoltageV`, `Voltage of ${c.item.tag}`, undefined, "V");
         else t.merge(cur);
         if (dc && !["pv-source", "pv-output"].includes(c.item.kind) && bats.length) onBattery.push(c);
       }
