@@ -9,7 +9,7 @@ import { circuitArrayTag, isDcCircuit, isInverter, isPvCircuit, Trace, v, type C
 import { arrayMaxVoltage } from "../derive/pv";
 import { batteries } from "../derive/battery";
 import { circuitCurrent } from "../derive/circuit-current";
-import { localRef, refs } from "../refs";
+import { localRef, refs, storageRefs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
 import type { CheckResult, CheckStatus } from "../types";
 
@@ -83,7 +83,7 @@ export const deviceRatings: CheckDefinition = {
       }
       const protectsBattery = (e.kind === "fuse" || e.kind === "breaker") && onBattery.length > 0;
       if (protectsBattery) {
-        codeRefs.push(...refs(ed, "ess-ocpd"), localRef(ed, "battery-conductor-ocpd"));
+        codeRefs.push(...storageRefs(ctx, "ess-ocpd"), localRef(ed, "battery-conductor-ocpd"));
         const ir = t.need(`${dev.path}.interruptingRatingA`, `Interrupting rating of ${tag}`, e.interruptingRatingA, "A");
         for (const b of bats) t.need(`${b.path}.shortCircuitCurrentA`, `Available short-circuit current of ${b.item.tag}`, b.item.shortCircuitCurrentA, "A");
         if (ir !== undefined && faultA !== undefined) {
@@ -153,7 +153,7 @@ export const deviceRatings: CheckDefinition = {
           }),
         );
       } else if (e.kind === "battery") {
-        const codeRefs = refs(ed, "ess-listing");
+        const codeRefs = storageRefs(ctx, "ess-listing");
         const listing = t.need(`${path}.listing`, `Listing of ${e.tag}`, e.listing || undefined);
         if (listing === undefined) {
           out.push(needsInput(this, { subject: e.tag, inputs: t.inputs, missing: t.missing, codeRefs }));
