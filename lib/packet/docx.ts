@@ -26,6 +26,8 @@ import { buildPacketModel, type PacketModel } from "./model";
 import type { PacketInput, SheetPages } from "./types";
 
 const FONT = "DejaVu Sans";
+/** Printed on every page of the editable copy. */
+export const DOCX_UNSEALED = "UNSEALED COPY — THE SEALED PDF GOVERNS";
 const SIGNAL_HEX = "BF121F";
 const BORDER = { style: BorderStyle.SINGLE, size: 4, color: "777777" } as const;
 const CELL_BORDERS = { top: BORDER, bottom: BORDER, left: BORDER, right: BORDER };
@@ -89,6 +91,7 @@ function checkChildren(r: CheckResult): FileChild[] {
   ];
   if (r.message) out.push(new Paragraph({ children: [run(r.message, { size: 16 })] }));
   if (r.reason) out.push(new Paragraph({ children: [run("Reason: ", { bold: true, size: 16 }), run(r.reason, { size: 16 })] }));
+  if (r.remedy) out.push(new Paragraph({ children: [run("Remedy: ", { bold: true, size: 16 }), run(r.remedy.text, { size: 16, color: r.status === "fail" ? SIGNAL_HEX : undefined })] }));
   if (r.formula) out.push(new Paragraph({ children: [run("Formula: ", { bold: true, size: 16 }), run(r.formula, { size: 16 })] }));
   const rows: Cell[][] = [
     ...r.inputs.map((i): Cell[] => ["Input", i.label, formatCheckValue(i)]),
@@ -208,6 +211,10 @@ function blockChildren(block: Block, input: PacketInput): FileChild[] {
         }
         return [new Paragraph({ children: [run(sp ? `Site plan ${sp.fileName}: see sheet G-003 of the PDF packet.` : "No site plan is attached to this revision.", { bold: !sp })] })];
       }
+      if (block.figure === "split-phase") {
+        const [inverter, panel] = block.caption.split("|");
+        return [new Paragraph({ children: [run(`Three-line detail (${inverter} to ${panel}, L1–L2 jumper and neutral) is drawn on sheet E-007 of the PDF packet.`)] })];
+      }
       return [new Paragraph({ children: [run("The one-line diagram is drawn on sheet E-001 of the PDF packet; its circuits are listed on the conductor schedule (E-004).")] })];
     }
     case "labels":
@@ -271,9 +278,11 @@ export async function renderPacketDocx(input: PacketInput, options: DocxOptions 
           default: new Header({
             children: [
               new Paragraph({ alignment: AlignmentType.CENTER, children: [run(headerText, { bold: true, size: 16 })] }),
+              // An editable copy can be changed after sealing; every page says which document governs.
+              new Paragraph({ alignment: AlignmentType.CENTER, children: [run(DOCX_UNSEALED, { bold: true, size: 16 })] }),
               new Paragraph({
                 alignment: AlignmentType.CENTER,
-                children: [run(`${t.project} · ${t.address} · ${t.firm} · Rev ${t.revision} · ${t.date}`, { size: 14 })],
+                children: [run(`${t.project} · ${t.address} · ${t.firm} · Rev ${t.revision} · ${t.date}`, { size: 16 })],
               }),
             ],
           }),
@@ -284,8 +293,8 @@ export async function renderPacketDocx(input: PacketInput, options: DocxOptions 
               new Paragraph({
                 alignment: AlignmentType.CENTER,
                 children: [
-                  run(model.marking.approved ? model.marking.footer : model.marking.reviewText, { bold: true, size: 14 }),
-                  new TextRun({ font: FONT, size: 14, children: ["   Page ", PageNumber.CURRENT, " of ", PageNumber.TOTAL_PAGES] }),
+                  run(model.marking.approved ? model.marking.footer : model.marking.reviewText, { bold: true, size: 16 }),
+                  new TextRun({ font: FONT, size: 16, children: ["   Page ", PageNumber.CURRENT, " of ", PageNumber.TOTAL_PAGES] }),
                 ],
               }),
             ],

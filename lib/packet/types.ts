@@ -11,6 +11,7 @@ export const SHEET_TEMPLATE_NAMES = [
   "calculations",
   "schedules",
   "label-schedule",
+  "grounding",
   "review-record",
 ] as const;
 export type SheetTemplateName = (typeof SHEET_TEMPLATE_NAMES)[number];
@@ -45,6 +46,8 @@ export interface PacketApproval {
   stampImage?: { bytes: Uint8Array; type: "png" | "jpeg" };
   /** The approval is bound to this hash of the revision's record snapshot. */
   recordSha256: string;
+  /** The reviewer's disposition of each attest item, printed in the review record. */
+  dispositions?: { item: string; disposition: "accepted" | "returned"; note: string }[];
 }
 
 export interface ReviewNote {

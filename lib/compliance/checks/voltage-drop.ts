@@ -4,7 +4,9 @@
  * practice unless the jurisdiction sets its own.
  */
 import { dcResistanceOhmPerKft } from "../tables";
-import { Trace, v, type CheckContext } from "../context";
+import type { Circuit } from "../../schemas/project-record";
+import { circuitArrayTag, isPvCircuit, Trace, v, type CheckContext } from "../context";
+import { arrayParts } from "../derive/pv";
 import { circuitCurrent } from "../derive/circuit-current";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
@@ -22,6 +24,11 @@ export function voltageDropV(lengthFt: number, ohmPerKft: number, currentA: numb
 
 function phaseFactor(phases: 1 | 3): number {
   return phases === 3 ? Math.sqrt(3) : 2;
+}
+
+function pvModuleOf(ctx: CheckContext, c: Circuit) {
+  const arrayTag = circuitArrayTag(ctx, c);
+  return arrayTag !== undefined ? arrayParts(ctx, arrayTag)?.module : undefined;
 }
 
 export const voltageDrop: CheckDefinition = {
@@ -53,8 +60,16 @@ export const voltageDrop: CheckDefinition = {
       if (cur.ok) {
         I = cur.value.operatingCurrentA;
         V = cur.value.operatingVoltageV;
-        if (I === undefined) t.need(`${ci.path}.designCurrentA`, "Operating current", undefined, "A");
-        if (V === undefined) t.need(`${ci.path}.nominalVoltageV`, "Operating voltage", undefined, "V");
+        // A PV circuit runs at the module's Imp and Vmp; other circuits take the design current and nominal voltage.
+        const module = isPvCircuit(c) ? pvModuleOf(ctx, c) : undefined;
+        if (I === undefined) {
+          if (module) t.need(`${module.path}.impA`, `Imp of ${module.item.tag}`, undefined, "A");
+          else t.need(`${ci.path}.designCurrentA`, "Operating current", undefined, "A");
+        }
+        if (V === undefined) {
+          if (module) t.need(`${module.path}.vmpV`, `Vmp of ${module.item.tag}`, undefined, "V");
+          else t.need(`${ci.path}.nominalVoltageV`, "Operating voltage", undefined, "V");
+        }
       }
       const r = size !== undefined ? dcResistanceOhmPerKft(c.material, size) : undefined;
       if (len === undefined || size === undefined || I === undefined || V === undefined || r === undefined || t.missing.length) {
