@@ -4,6 +4,7 @@
  * 690.12, with the reason given.
  */
 import { equipmentOfKind, Trace, v, type CheckContext } from "../context";
+import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
@@ -45,6 +46,9 @@ export const rapidShutdown: CheckDefinition = {
           reason: method === "none" ? "the record states no rapid-shutdown method" : "rapidShutdownMethod is empty",
           inputs: t.inputs,
           missing: method === undefined ? ["rapidShutdownMethod"] : [],
+          remedy: remedy(
+            "Name the rapid-shutdown method (module-level shutdown devices, or a listed PV hazard control system) and record its devices with their quantity and the initiator.",
+          ),
           codeRefs,
         }),
       ];
@@ -55,6 +59,7 @@ export const rapidShutdown: CheckDefinition = {
           status: "fail",
           message: `Method "${method}" is named but no rapid-shutdown device is recorded.`,
           reason: "no equipment of kind rapid-shutdown",
+          remedy: remedy(`Record the ${method} rapid-shutdown devices (kind rapid-shutdown, with their quantity: one per module or pair of modules for module-level shutdown) and the initiator.`),
           inputs: t.inputs,
           codeRefs,
         }),

@@ -7,6 +7,7 @@
 import type { Circuit } from "../../schemas/project-record";
 import { equipmentOfKind, isInverter, Trace, v, type CheckContext, type EquipmentOf, type Indexed, isProtective } from "../context";
 import { loadSummary } from "../load-summary";
+import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
 import type { CheckResult, CheckStatus } from "../types";
@@ -62,10 +63,13 @@ export const standAloneSupply: CheckDefinition = {
     const s = loadSummary(ctx.record);
     const statuses: CheckStatus[] = ["pass"];
     const notes: string[] = [];
+    /** What makes each failing point pass, with its figure. */
+    const fixes: string[] = [];
     const values = [v("continuousW", "Inverter continuous output", continuousW, "W"), v("largestSingleLoadW", "Largest single load", s.largestSingleLoadW, "W")];
     if (continuousW < s.largestSingleLoadW) {
       statuses.push("fail");
       notes.push(`${continuousW} W cannot carry the largest single load of ${s.largestSingleLoadW} W (710.15(A))`);
+      fixes.push(`Use inverter output of at least ${s.largestSingleLoadW} W continuous, the largest single load.`);
     }
     const refsOut = [...codeRefs];
     for (const { panel, inverter, circuit } of singleSupplyPanels(ctx)) {
@@ -75,6 +79,7 @@ export const standAloneSupply: CheckDefinition = {
       else if (mwbc) {
         statuses.push("fail");
         notes.push(`${panel.item.tag} is fed by 120 V-only ${inverter.item.tag} and has multiwire branch circuits, which would overload the neutral (710.15(C))`);
+        fixes.push(`Replace the multiwire branch circuits in ${panel.item.tag} with two-wire circuits, or supply it at 120/240 V.`);
       }
       const dev = circuit.item.ocpdTag ? ctx.equipment.get(circuit.item.ocpdTag) : undefined;
       const rating = dev && isProtective(dev.item) ? dev.item.ratingA : undefined;
@@ -84,6 +89,7 @@ export const standAloneSupply: CheckDefinition = {
         if (rating > bus) {
           statuses.push("fail");
           notes.push(`output device ${rating} A exceeds the ${bus} A neutral bus of ${panel.item.tag}`);
+          fixes.push(`Use a panel whose neutral bus is rated at least ${rating} A, or an output device of at most ${bus} A that still carries the inverter's current.`);
         }
       }
       notes.push(`the "single 120-volt supply" warning is required on ${panel.item.tag}`);
@@ -99,6 +105,7 @@ export const standAloneSupply: CheckDefinition = {
               ? `${notes.join("; ")}.`
               : `${continuousW} W carries the largest single load (${s.largestSingleLoadW} W)${notes.length ? `; ${notes.join("; ")}` : ""}.`,
             ...(failing ? { reason: notes.join("; ") } : {}),
+            remedy: () => (fixes.length ? remedy(fixes.join(" ")) : undefined),
             values,
             formula: `inverter ${continuousW} W ≥ largest single load ${s.largestSingleLoadW} W`,
             inputs: t.inputs,
