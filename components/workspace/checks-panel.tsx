@@ -2,7 +2,8 @@
 
 import Link from "next/link";
 import { useState } from "react";
-import { CHECK_STATUSES, type CheckResult, type CheckStatus } from "@/lib/compliance";
+import { useFormContext } from "react-hook-form";
+import { CHECK_STATUSES, type CheckResult, type CheckStatus, type Remedy } from "@/lib/compliance";
 import { StatusBadge, statusWord } from "@/components/ui/status-badge";
 import { focusRecordPaths } from "./focus-path";
 import { useLive } from "./live-checks";
@@ -13,7 +14,37 @@ function formatFigure(v: number | string | boolean): string {
   return v;
 }
 
-function ResultItem({ result, open, onToggle, projectId }: { result: CheckResult; open: boolean; onToggle: () => void; projectId: string }) {
+/**
+ * The engine's fix for a failing (or warning) result. A single field change can be applied here: it sets the form
+ * value like typing would, and the designer saves as usual.
+ */
+function RemedyNote({ remedy, canEdit }: { remedy: Remedy; canEdit: boolean }) {
+  const { setValue } = useFormContext();
+  const single = remedy.changes.length === 1 ? remedy.changes[0]! : undefined;
+  return (
+    <div className="mx-3 mb-2 flex items-start gap-2 border-l-2 border-query bg-query-soft/40 px-2 py-1 text-xs" data-testid="remedy">
+      <p className="min-w-0 flex-1 leading-snug">
+        <span className="field-label">Fix </span>
+        {remedy.text}
+      </p>
+      {single && canEdit ? (
+        <button
+          type="button"
+          className="btn-quiet shrink-0 px-2 py-0.5 text-xs"
+          title={`Sets ${single.path} to ${String(single.value)}`}
+          onClick={() => {
+            setValue(single.path, single.value, { shouldDirty: true, shouldValidate: true });
+            focusRecordPaths([single.path]);
+          }}
+        >
+          Apply
+        </button>
+      ) : null}
+    </div>
+  );
+}
+
+function ResultItem({ result, open, onToggle, projectId, canEdit }: { result: CheckResult; open: boolean; onToggle: () => void; projectId: string; canEdit: boolean }) {
   const used = [...result.missing, ...result.inputs.map((i) => i.path)];
   // Documents are edited on the attachments tab, not in this form.
   const aboutDocuments = used.some((p) => p === "attachments" || p.startsWith("attachments.") || p.startsWith("jurisdiction.requiredDocuments"));
@@ -39,6 +70,7 @@ function ResultItem({ result, open, onToggle, projectId }: { result: CheckResult
           <span className="block text-xs leading-snug text-ink-soft">{result.message}</span>
         </span>
       </button>
+      {result.remedy ? <RemedyNote remedy={result.remedy} canEdit={canEdit} /> : null}
       {open ? (
         <div className="space-y-2 px-3 pb-3 text-xs">
           {result.reason ? <p className="text-ink-soft">{result.reason}</p> : null}
@@ -111,7 +143,7 @@ function ResultItem({ result, open, onToggle, projectId }: { result: CheckResult
   );
 }
 
-export function ChecksPanel({ projectId }: { projectId: string }) {
+export function ChecksPanel({ projectId, canEdit }: { projectId: string; canEdit: boolean }) {
   const live = useLive();
   const [openId, setOpenId] = useState<string | null>(null);
   const groups = new Map<CheckStatus, CheckResult[]>();
@@ -175,7 +207,7 @@ export function ChecksPanel({ projectId }: { projectId: string }) {
               </h3>
               <ul>
                 {results.map((r) => (
-                  <ResultItem key={r.id} projectId={projectId} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
+                  <ResultItem key={r.id} projectId={projectId} canEdit={canEdit} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
                 ))}
               </ul>
             </section>
