@@ -14,6 +14,7 @@ import { createProject } from "../lib/services/projects/create";
 import { getProjectRecord } from "../lib/services/projects/get-record";
 import { saveProjectRecord } from "../lib/services/projects/save-record";
 import { seedDemoRevisions } from "./seed-revisions";
+import { seedScale } from "./seed-scale";
 import { makeDemoDocument } from "./demo-documents";
 import { demoStampPng } from "./demo-stamp";
 import { uploadStampImage } from "../lib/services/reviews/stamp";
@@ -112,6 +113,11 @@ async function main() {
   const db = openDatabase(file);
   migrateDatabase(db);
   await seed(db);
+  // --scale: grow the demo organisation to 10,000 projects for the load and query-plan benchmarks.
+  if (process.argv.includes("--scale")) {
+    const scaled = seedScale(db);
+    console.log(`Scaled the demo organisation to ${scaled.projects} projects`);
+  }
   db.$client.close();
   console.log(`Seeded the demo into ${file}\n`);
   console.log("Demo sign-ins (organisation: " + DEMO_ORG.name + "):");

@@ -1,17 +1,22 @@
 "use client";
 
-import { useQuery } from "@tanstack/react-query";
+import { useInfiniteQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { StateTag } from "@/components/ui/status-badge";
 import { fetchJson } from "@/lib/fetch-json";
 import { SYSTEM_KIND_LABELS } from "@/lib/schemas/project-record";
 import type { ProjectListRow } from "@/lib/services/projects/list";
 
-
 export function ProjectsTable() {
-  const query = useQuery({
+  // A firm may hold thousands of projects: pages of 50, most recently updated first.
+  const query = useInfiniteQuery({
     queryKey: ["projects"],
-    queryFn: () => fetchJson<{ projects: ProjectListRow[] }>("/api/projects"),
+    initialPageParam: null as string | null,
+    queryFn: ({ pageParam }) =>
+      fetchJson<{ projects: ProjectListRow[]; nextCursor: string | null }>(
+        pageParam ? `/api/projects?cursor=${encodeURIComponent(pageParam)}` : "/api/projects",
+      ),
+    getNextPageParam: (last) => last.nextCursor,
   });
   if (query.isPending) {
     return (
@@ -31,7 +36,7 @@ export function ProjectsTable() {
       </div>
     );
   }
-  const rows = query.data.projects;
+  const rows = query.data.pages.flatMap((p) => p.projects);
   if (rows.length === 0) {
     return <p className="sheet px-4 py-8 text-center text-sm text-ink-soft">No projects yet. Create the first one to start a design.</p>;
   }
@@ -72,6 +77,13 @@ export function ProjectsTable() {
           ))}
         </tbody>
       </table>
+      {query.hasNextPage ? (
+        <div className="border-t border-rule px-4 py-3">
+          <button type="button" className="btn-quiet" onClick={() => query.fetchNextPage()} disabled={query.isFetchingNextPage}>
+            {query.isFetchingNextPage ? "Loading…" : "Show more projects"}
+          </button>
+        </div>
+      ) : null}
     </div>
   );
 }

@@ -2,11 +2,13 @@
 
 import Link from "next/link";
 import { useState } from "react";
-import { useFormContext } from "react-hook-form";
 import { CHECK_STATUSES, type CheckResult, type CheckStatus, type Remedy } from "@/lib/compliance";
 import { StatusBadge, statusWord } from "@/components/ui/status-badge";
+import { useFormContext } from "react-hook-form";
+import { plural } from "@/lib/schemas/vocabulary";
 import { focusRecordPaths } from "./focus-path";
 import { useLive } from "./live-checks";
+import { describePath, groupIssues, humaniseText } from "./record-labels";
 
 function formatFigure(v: number | string | boolean): string {
   if (typeof v === "number") return Number.isInteger(v) ? String(v) : v.toFixed(Math.abs(v) < 10 ? 2 : 1);
@@ -18,20 +20,20 @@ function formatFigure(v: number | string | boolean): string {
  * The engine's fix for a failing (or warning) result. A single field change can be applied here: it sets the form
  * value like typing would, and the designer saves as usual.
  */
-function RemedyNote({ remedy, canEdit }: { remedy: Remedy; canEdit: boolean }) {
+function RemedyNote({ remedy, record, canEdit }: { remedy: Remedy; record: unknown; canEdit: boolean }) {
   const { setValue } = useFormContext();
   const single = remedy.changes.length === 1 ? remedy.changes[0]! : undefined;
   return (
     <div className="mx-3 mb-2 flex items-start gap-2 border-l-2 border-query bg-query-soft/40 px-2 py-1 text-xs" data-testid="remedy">
       <p className="min-w-0 flex-1 leading-snug">
         <span className="field-label">Fix </span>
-        {remedy.text}
+        {humaniseText(record, remedy.text)}
       </p>
       {single && canEdit ? (
         <button
           type="button"
           className="btn-quiet shrink-0 px-2 py-0.5 text-xs"
-          title={`Sets ${single.path} to ${String(single.value)}`}
+          title={`Sets ${describePath(record, single.path)} to ${String(single.value)}`}
           onClick={() => {
             setValue(single.path, single.value, { shouldDirty: true, shouldValidate: true });
             focusRecordPaths([single.path]);
@@ -44,7 +46,21 @@ function RemedyNote({ remedy, canEdit }: { remedy: Remedy; canEdit: boolean }) {
   );
 }
 
-function ResultItem({ result, open, onToggle, projectId, canEdit }: { result: CheckResult; open: boolean; onToggle: () => void; projectId: string; canEdit: boolean }) {
+function ResultItem({
+  result,
+  record,
+  open,
+  onToggle,
+  projectId,
+  canEdit,
+}: {
+  result: CheckResult;
+  record: unknown;
+  open: boolean;
+  onToggle: () => void;
+  projectId: string;
+  canEdit: boolean;
+}) {
   const used = [...result.missing, ...result.inputs.map((i) => i.path)];
   // Documents are edited on the attachments tab, not in this form.
   const aboutDocuments = used.some((p) => p === "attachments" || p.startsWith("attachments.") || p.startsWith("jurisdiction.requiredDocuments"));
@@ -67,13 +83,13 @@ function ResultItem({ result, open, onToggle, projectId, canEdit }: { result: Ch
             {result.title}
             {result.subject && !result.title.includes(result.subject) ? <span className="figure ml-1 text-ink-soft">· {result.subject}</span> : null}
           </span>
-          <span className="block text-xs leading-snug text-ink-soft">{result.message}</span>
+          <span className="block text-xs leading-snug text-ink-soft">{humaniseText(record, result.message)}</span>
         </span>
       </button>
-      {result.remedy ? <RemedyNote remedy={result.remedy} canEdit={canEdit} /> : null}
+      {result.remedy ? <RemedyNote remedy={result.remedy} record={record} canEdit={canEdit} /> : null}
       {open ? (
         <div className="space-y-2 px-3 pb-3 text-xs">
-          {result.reason ? <p className="text-ink-soft">{result.reason}</p> : null}
+          {result.reason ? <p className="text-ink-soft">{humaniseText(record, result.reason)}</p> : null}
           {result.values.length ? (
             <table className="w-full" aria-label={`Values of ${result.title}`}>
               <tbody>
@@ -103,8 +119,8 @@ function ResultItem({ result, open, onToggle, projectId, canEdit }: { result: Ch
               <ul className="flex flex-wrap gap-1">
                 {result.missing.map((p) => (
                   <li key={p}>
-                    <button type="button" className="figure underline decoration-query underline-offset-2" onClick={() => focusRecordPaths([p])}>
-                      {p}
+                    <button type="button" className="underline decoration-query underline-offset-2" onClick={() => focusRecordPaths([p])}>
+                      {describePath(record, p)}
                     </button>
                   </li>
                 ))}
@@ -149,6 +165,10 @@ export function ChecksPanel({ projectId, canEdit }: { projectId: string; canEdit
   const groups = new Map<CheckStatus, CheckResult[]>();
   for (const r of live.run?.results ?? []) groups.set(r.status, [...(groups.get(r.status) ?? []), r]);
   const stale = live.record === null && live.issues.length > 0;
+  const { getValues } = useFormContext();
+  // Field errors name rows of the form as it stands; engine results name rows of the record the engine ran on.
+  const values = getValues();
+  const issueGroups = groupIssues(values, live.issues);
   return (
     <section aria-labelledby="checks-heading" className="sheet flex max-h-[calc(100vh-6rem)] flex-col">
       <header className="border-b-2 border-ink px-3 py-2">
@@ -168,30 +188,33 @@ export function ChecksPanel({ projectId, canEdit }: { projectId: string; canEdit
             </span>
           ))}
         </p>
-        <p
-          className="figure text-[11px] text-ink-faint"
+        {/* Engine timing is for the benchmark, not the designer: kept as data for the end-to-end measurement only. */}
+        <span
+          hidden
           data-testid="engine-time"
           data-engine-ms={live.engineMs ?? ""}
           data-mean-engine-ms={live.meanEngineMs ?? ""}
           data-runs={live.runs}
-        >
-          engine {live.engineMs === null ? "—" : `${live.engineMs.toFixed(2)} ms`} · parse {live.parseMs === null ? "—" : `${live.parseMs.toFixed(2)} ms`} · in this browser
-        </p>
+        />
       </header>
       <div className="min-h-0 flex-1 overflow-y-auto">
-        {live.issues.length ? (
+        {issueGroups.length ? (
           <div role="status" className="border-b border-grid bg-signal-soft/50 px-3 py-2 text-xs">
             <p className="font-semibold text-signal">
-              {live.issues.length} field {live.issues.length === 1 ? "error" : "errors"}
-              {stale ? " — the checks show the last record that could be read" : live.omitted.length ? ` — left out of the checks: ${live.omitted.join(", ")}` : ""}
+              {plural(issueGroups.length, "entry", "entries")} to fix
+              {stale
+                ? " — the checks show the last record that could be read"
+                : live.omitted.length
+                  ? ` — left out of the checks: ${live.omitted.map((p) => describePath(values, p)).join(", ")}`
+                  : ""}
             </p>
             <ul className="mt-1 space-y-0.5">
-              {live.issues.slice(0, 12).map((i, n) => (
-                <li key={`${i.path}-${n}`}>
-                  <button type="button" className="figure text-left underline decoration-signal underline-offset-2" onClick={() => focusRecordPaths([i.path])}>
-                    {i.path}
+              {issueGroups.slice(0, 12).map((g) => (
+                <li key={g.path}>
+                  <button type="button" className="text-left font-medium underline decoration-signal underline-offset-2" onClick={() => focusRecordPaths(g.paths)}>
+                    {g.title}
                   </button>{" "}
-                  {i.message}
+                  {g.problems.join("; ")}
                 </li>
               ))}
             </ul>
@@ -207,7 +230,7 @@ export function ChecksPanel({ projectId, canEdit }: { projectId: string; canEdit
               </h3>
               <ul>
                 {results.map((r) => (
-                  <ResultItem key={r.id} projectId={projectId} canEdit={canEdit} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
+                  <ResultItem key={r.id} projectId={projectId} canEdit={canEdit} record={live.record} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
                 ))}
               </ul>
             </section>

@@ -21,6 +21,7 @@ import {
 } from "@tanstack/react-table";
 import { Fragment, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
 import { useFieldArray, useFormContext } from "react-hook-form";
+import { pluralNoun } from "@/lib/schemas/vocabulary";
 import { FieldControl, type FieldType, type Option } from "./field-control";
 
 export interface GridColumn {
@@ -199,7 +200,7 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
             {rows.length === 0 ? (
               <tr>
                 <td colSpan={columns.length + 2} className="py-4 text-left text-sm text-ink-soft">
-                  {empty ?? `No ${noun}s yet.`}
+                  {empty ?? `No ${pluralNoun(noun)} yet.`}
                 </td>
               </tr>
             ) : null}

@@ -2,7 +2,8 @@
  * The ratings a designer enters for each equipment kind, in the order they
  * appear on a datasheet. Names and units follow the project record schema.
  */
-import { EQUIPMENT_KIND_LABELS, type EquipmentKind } from "@/lib/schemas/project-record";
+import { EQUIPMENT_KIND_LABELS, EQUIPMENT_KINDS, type EquipmentKind } from "@/lib/schemas/project-record";
+import type { GridColumn } from "./editable-grid";
 import type { FieldType, Option } from "./field-control";
 
 export interface RatingField {
@@ -63,6 +64,7 @@ const protectiveFields: RatingField[] = [
 
 const panelFields: RatingField[] = [
   { key: "busRatingA", label: "Bus rating", unit: "A", type: "number" },
+  { key: "neutralBusRatingA", label: "Neutral bus rating", unit: "A", type: "number", help: "A single 120 V supply's sources must stay below it." },
   { key: "mainBreakerA", label: "Main breaker", unit: "A", type: "number" },
   { key: "voltage", label: "Voltage", type: "select", options: opts("12", "24", "48", "120", "240", "120/240", "208", "277/480", "other") },
   { key: "sumOfBreakersA", label: "Sum of breakers", unit: "A", type: "number" },
@@ -110,6 +112,7 @@ export const RATING_FIELDS: Record<EquipmentKind, RatingField[]> = {
     { key: "ratedKW", label: "Rated power", unit: "kW", type: "number" },
     { key: "voltageV", label: "Voltage", unit: "V", type: "number" },
     { key: "output", label: "Output", type: "select", options: opts("120", "240", "120/240", "208", "277/480") },
+    { key: "phases", label: "Phases", type: "integer", help: "1 for single or split phase, 3 for three phase." },
     { key: "fuel", label: "Fuel", type: "select", options: opts("gasoline", "diesel", "propane", "natural-gas", "other") },
     { key: "outputBreakerA", label: "Output breaker", unit: "A", type: "number" },
     { key: "hasOutputDisconnect", label: "Output disconnect built in", type: "checkbox" },
@@ -134,7 +137,26 @@ export function changeKind(row: Record<string, unknown>, kind: EquipmentKind): R
     Object.assign(base, { mpptInputs: [], acOutputPhases: 1, hasPvDisconnect: false, hasOvercurrentProtection: false });
   }
   if (kind === "battery") base.largeScaleFireTested = false;
-  if (kind === "generator") base.hasOutputDisconnect = false;
+  if (kind === "generator") Object.assign(base, { hasOutputDisconnect: false, phases: 1 });
   if (kind === "rapid-shutdown") base.controls = "";
   return base;
 }
+
+const KIND_OPTIONS: Option[] = EQUIPMENT_KINDS.map((k) => ({ value: k, label: EQUIPMENT_KIND_LABELS[k] }));
+
+export const EQUIPMENT_COLUMNS: GridColumn[] = [
+  { key: "tag", header: "Tag", type: "text", width: "w-20" },
+  { key: "kind", header: "Kind", type: "select", options: KIND_OPTIONS, required: true, width: "w-40" },
+  { key: "manufacturer", header: "Manufacturer", type: "text", width: "w-32" },
+  { key: "model", header: "Model", type: "text", width: "w-32" },
+  { key: "quantity", header: "Qty", type: "integer", width: "w-14" },
+  { key: "listing", header: "Listing", type: "text", width: "w-28" },
+];
+
+export const MPPT_INPUT_COLUMNS: GridColumn[] = [
+  { key: "id", header: "Input id", type: "text", width: "w-16" },
+  { key: "maxVoltageV", header: "Max voltage", unit: "V", type: "number" },
+  { key: "maxCurrentA", header: "Max current", unit: "A", type: "number" },
+  { key: "minOperatingVoltageV", header: "Window low", unit: "V", type: "number" },
+  { key: "maxOperatingVoltageV", header: "Window high", unit: "V", type: "number" },
+];

@@ -6,7 +6,9 @@ import { useFormContext, useWatch } from "react-hook-form";
 import { EQUIPMENT_KINDS, type EquipmentKind } from "@/lib/schemas/project-record";
 import { FormField, type Option } from "./field-control";
 import { EditableGrid, nextTag, type GridColumn } from "./editable-grid";
-import { EQUIPMENT_KIND_LABELS, RATING_FIELDS, TAG_PREFIX, changeKind } from "./equipment-fields";
+import { EQUIPMENT_COLUMNS, EQUIPMENT_KIND_LABELS, MPPT_INPUT_COLUMNS, RATING_FIELDS, TAG_PREFIX, changeKind } from "./equipment-fields";
+
+export { EQUIPMENT_COLUMNS, MPPT_INPUT_COLUMNS };
 import { OPEN_EQUIPMENT_EVENT } from "./focus-path";
 import { Section } from "./site-section";
 import { useRecordTags } from "./use-record-tags";
@@ -14,23 +16,6 @@ import { useRecordTags } from "./use-record-tags";
 const KIND_OPTIONS: Option[] = EQUIPMENT_KINDS.map((k) => ({ value: k, label: EQUIPMENT_KIND_LABELS[k] }));
 const INVERTER_KINDS = new Set(["inverter", "inverter-charger", "hybrid-inverter"]);
 const AUTO_TAG = new RegExp(`^(${[...new Set(Object.values(TAG_PREFIX))].join("|")})-\\d+$`);
-
-export const EQUIPMENT_COLUMNS: GridColumn[] = [
-  { key: "tag", header: "Tag", type: "text", width: "w-20" },
-  { key: "kind", header: "Kind", type: "select", options: KIND_OPTIONS, required: true, width: "w-40" },
-  { key: "manufacturer", header: "Manufacturer", type: "text", width: "w-32" },
-  { key: "model", header: "Model", type: "text", width: "w-32" },
-  { key: "quantity", header: "Qty", type: "integer", width: "w-14" },
-  { key: "listing", header: "Listing", type: "text", width: "w-28" },
-];
-
-export const MPPT_INPUT_COLUMNS: GridColumn[] = [
-  { key: "id", header: "Input id", type: "text", width: "w-16" },
-  { key: "maxVoltageV", header: "Max voltage", unit: "V", type: "number" },
-  { key: "maxCurrentA", header: "Max current", unit: "A", type: "number" },
-  { key: "minOperatingVoltageV", header: "Window low", unit: "V", type: "number" },
-  { key: "maxOperatingVoltageV", header: "Window high", unit: "V", type: "number" },
-];
 
 interface LibraryItem {
   id: string;

@@ -110,6 +110,29 @@ export function FieldControl({
     control = (
       <textarea {...common} className={`input ${className}`} rows={2} value={draft} placeholder={placeholder} onChange={(e) => change(e.target.value)} />
     );
+  } else if (type === "combo") {
+    const listId = `${errorId}-list`;
+    control = (
+      <>
+        <input
+          {...common}
+          type="text"
+          list={listId}
+          autoComplete="off"
+          className={`input ${className}`}
+          value={draft}
+          placeholder={placeholder}
+          onChange={(e) => change(e.target.value)}
+        />
+        <datalist id={listId}>
+          {options.map((o) => (
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
+          ))}
+        </datalist>
+      </>
+    );
   } else {
     const numeric = type === "number" || type === "integer";
     control = (

@@ -2,6 +2,8 @@
 
 export type FieldType =
   | "text"
+  /** Free text with a pick-list of the usual values (insulation, raceway). */
+  | "combo"
   | "textarea"
   | "number"
   | "integer"

@@ -4,13 +4,15 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { parseProjectFile } from "@/lib/compliance";
 import type { JurisdictionOption } from "./new-project-form";
+import { plural } from "@/lib/schemas/vocabulary";
+import { describePath } from "./record-labels";
 
 /** Project files are small JSON; anything far larger is not one. */
 const MAX_FILE_BYTES = 5 * 1024 * 1024;
 
 type State =
   | { kind: "idle" }
-  | { kind: "refused"; message: string; issues: { path: string; message: string }[] }
+  | { kind: "refused"; message: string; issues: { path: string; message: string }[]; file?: unknown }
   | { kind: "choose-jurisdiction"; message: string }
   | { kind: "importing" };
 
@@ -39,7 +41,7 @@ export function ImportProjectForm({ jurisdictions }: { jurisdictions: Jurisdicti
       setState({ kind: "choose-jurisdiction", message: body?.error ?? "Choose a jurisdiction." });
       return;
     }
-    setState({ kind: "refused", message: body?.error ?? `The server answered ${response.status}; nothing was imported.`, issues });
+    setState({ kind: "refused", message: body?.error ?? `The server answered ${response.status}; nothing was imported.`, issues, file: json });
   };
 
   const onFile = async (f: File | undefined) => {
@@ -60,7 +62,7 @@ export function ImportProjectForm({ jurisdictions }: { jurisdictions: Jurisdicti
     // The same validation the server runs, so every refusal is listed before anything is sent.
     const parsed = parseProjectFile(json);
     if (!parsed.ok) {
-      setState({ kind: "refused", message: `${f.name} was not imported: ${parsed.issues.length} field(s) are not valid. Nothing was created.`, issues: parsed.issues });
+      setState({ kind: "refused", message: `${f.name} was not imported: ${plural(parsed.issues.length, "field")} ${parsed.issues.length === 1 ? "is" : "are"} not valid. Nothing was created.`, issues: parsed.issues, file: json });
       return;
     }
     setFile({ name: f.name, json });
@@ -126,7 +128,7 @@ export function ImportProjectForm({ jurisdictions }: { jurisdictions: Jurisdicti
               <tbody>
                 {state.issues.map((i, n) => (
                   <tr key={`${i.path}-${n}`}>
-                    <td className="figure text-xs">{i.path}</td>
+                    <td className="text-xs">{describePath(state.file, i.path)}</td>
                     <td>{i.message}</td>
                   </tr>
                 ))}

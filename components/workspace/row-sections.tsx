@@ -1,39 +1,12 @@
 "use client";
 
 import { useMemo } from "react";
-import { CIRCUIT_KINDS, CONDUCTOR_SIZES } from "@/lib/schemas/project-record";
-import type { Option } from "./field-control";
-import { EditableGrid, nextTag, type GridColumn } from "./editable-grid";
+import { EditableGrid, nextTag } from "./editable-grid";
+import { arrayColumns, circuitColumns, LOAD_COLUMNS, PV_FED } from "./grid-columns";
 import { Section } from "./site-section";
-import { useRecordTags, type RecordTags } from "./use-record-tags";
+import { useRecordTags } from "./use-record-tags";
 
-const PV_FED = ["charge-controller", "inverter", "inverter-charger", "hybrid-inverter"] as const;
-const SIZE_OPTIONS: Option[] = CONDUCTOR_SIZES.map((s) => ({ value: s, label: Number(s) >= 250 ? `${s} kcmil` : `${s} AWG` }));
-const KIND_OPTIONS: Option[] = CIRCUIT_KINDS.map((k) => ({ value: k, label: k.replace(/-/g, " ") }));
-const MATERIAL_OPTIONS: Option[] = [
-  { value: "cu", label: "Cu" },
-  { value: "al", label: "Al" },
-];
-const TEMP_OPTIONS: Option[] = ["60", "75", "90"].map((t) => ({ value: t, label: `${t} °C` }));
-
-type TagLists = Pick<RecordTags, "byKinds" | "mpptInputsOf" | "arrays" | "equipmentAndArrays" | "arrayOptions">;
-
-export function arrayColumns(tags: TagLists): GridColumn[] {
-  return [
-    { key: "tag", header: "Tag", type: "text", width: "w-20" },
-    { key: "moduleTag", header: "Module", type: "select", options: tags.byKinds(["pv-module"]), required: true, width: "w-36" },
-    { key: "modulesInSeries", header: "Modules in series", type: "integer", width: "w-20" },
-    { key: "stringsInParallel", header: "Strings in parallel", type: "integer", width: "w-20" },
-    { key: "feedsTag", header: "Feeds", type: "select", options: tags.byKinds(PV_FED), required: true, width: "w-44" },
-    {
-      key: "mpptInputId",
-      header: "MPPT input",
-      type: "select",
-      width: "w-24",
-      options: (i) => tags.mpptInputsOf(tags.arrays[i]?.feedsTag),
-    },
-  ];
-}
+export { arrayColumns, circuitColumns, LOAD_COLUMNS };
 
 export function ArraysSection() {
   const tags = useRecordTags();
@@ -56,37 +29,6 @@ export function ArraysSection() {
       />
     </Section>
   );
-}
-
-export function circuitColumns(tags: TagLists): GridColumn[] {
-  return [
-    { key: "tag", header: "Tag", type: "text", width: "w-16" },
-    { key: "fromTag", header: "From", type: "select", options: tags.equipmentAndArrays, required: true, width: "w-36" },
-    { key: "toTag", header: "To", type: "select", options: tags.equipmentAndArrays, required: true, width: "w-36" },
-    { key: "kind", header: "Kind", type: "select", options: KIND_OPTIONS, required: true, width: "w-36" },
-    { key: "arrayTag", header: "Array", type: "select", options: tags.arrayOptions, width: "w-24" },
-    { key: "stringsCarried", header: "Strings", type: "integer", width: "w-14" },
-    { key: "material", header: "Material", type: "select", options: MATERIAL_OPTIONS, required: true, width: "w-16" },
-    { key: "size", header: "Size", type: "select", options: SIZE_OPTIONS, width: "w-24" },
-    { key: "parallelSets", header: "Sets", type: "integer", width: "w-12" },
-    { key: "insulation", header: "Insulation", type: "text", width: "w-24" },
-    { key: "insulationTempRatingC", header: "Insulation rating", type: "number-select", options: TEMP_OPTIONS, width: "w-20" },
-    { key: "currentCarryingConductors", header: "CCCs in raceway", type: "integer", width: "w-14" },
-    { key: "racewayType", header: "Raceway", type: "text", width: "w-28" },
-    { key: "racewaySize", header: "Raceway size", type: "text", width: "w-16" },
-    { key: "lengthFt", header: "One-way length", unit: "ft", type: "number", width: "w-20" },
-    { key: "ambientTempC", header: "Ambient", unit: "°C", type: "number", width: "w-16" },
-    { key: "onRooftop", header: "Rooftop", type: "checkbox", width: "w-10" },
-    { key: "roofClearanceIn", header: "Roof clearance", unit: "in", type: "number", width: "w-16" },
-    { key: "terminalTempRatingC", header: "Terminal rating", type: "number-select", options: TEMP_OPTIONS, width: "w-20" },
-    { key: "ocpdTag", header: "Protected by", type: "select", options: tags.byKinds(["fuse", "breaker"]), width: "w-28" },
-    { key: "disconnectTags", header: "Disconnects", type: "tags", width: "w-28" },
-    { key: "egcSize", header: "EGC", type: "select", options: SIZE_OPTIONS, width: "w-24" },
-    { key: "egcMaterial", header: "EGC material", type: "select", options: MATERIAL_OPTIONS, required: true, width: "w-16" },
-    { key: "loadCurrentA", header: "Load current", unit: "A", type: "number", width: "w-16" },
-    { key: "designCurrentA", header: "Design current", unit: "A", type: "number", width: "w-16" },
-    { key: "nominalVoltageV", header: "Nominal voltage", unit: "V", type: "number", width: "w-16" },
-  ];
 }
 
 export function CircuitsSection() {
@@ -122,26 +64,6 @@ export function CircuitsSection() {
     </Section>
   );
 }
-
-export const LOAD_COLUMNS: GridColumn[] = [
-  { key: "name", header: "Load", type: "text", width: "w-48" },
-  { key: "watts", header: "Power", unit: "W", type: "number", width: "w-20" },
-  { key: "quantity", header: "Qty", type: "integer", width: "w-14" },
-  { key: "hoursPerDay", header: "Hours a day", unit: "h", type: "number", width: "w-16" },
-  { key: "surgeW", header: "Surge", unit: "W", type: "number", width: "w-20" },
-  {
-    key: "voltageV",
-    header: "Voltage",
-    type: "number-select",
-    options: [
-      { value: "120", label: "120 V" },
-      { value: "240", label: "240 V" },
-    ],
-    required: true,
-    width: "w-20",
-  },
-  { key: "simultaneous", header: "Runs with others", type: "checkbox", width: "w-10" },
-];
 
 export function LoadsGrid() {
   const columns = LOAD_COLUMNS;

@@ -54,7 +54,11 @@ export const projects = sqliteTable(
     updatedAt: updatedAt(),
     version: version(),
   },
-  (t) => [index("projects_org_idx").on(t.orgId, t.status)],
+  (t) => [
+    index("projects_org_idx").on(t.orgId, t.status),
+    // The projects list pages by (updated_at, id) newest first; this index serves each page without sorting the organisation.
+    index("projects_org_updated_idx").on(t.orgId, t.updatedAt, t.id),
+  ],
 );
 export type Project = typeof projects.$inferSelect;
 export type NewProject = typeof projects.$inferInsert;

@@ -34,7 +34,11 @@ export const submissions = sqliteTable(
     createdAt: createdAt(),
     version: version(),
   },
-  (t) => [index("submissions_org_idx").on(t.orgId, t.status)],
+  (t) => [
+    index("submissions_org_idx").on(t.orgId, t.status),
+    // The submissions list pages by (created_at, id) newest first.
+    index("submissions_org_created_idx").on(t.orgId, t.createdAt, t.id),
+  ],
 );
 export type Submission = typeof submissions.$inferSelect;
 
@@ -57,6 +61,10 @@ export const submissionEvents = sqliteTable(
     data: text("data", { mode: "json" }).$type<Record<string, unknown>>().notNull().default({}),
     createdAt: createdAt(),
   },
-  (t) => [index("submission_events_submission_idx").on(t.submissionId)],
+  (t) => [
+    index("submission_events_submission_idx").on(t.submissionId),
+    // The office's queue reads the organisation's events in one query.
+    index("submission_events_org_idx").on(t.orgId),
+  ],
 );
 export type SubmissionEvent = typeof submissionEvents.$inferSelect;

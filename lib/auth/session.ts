@@ -1,11 +1,16 @@
 import "server-only";
+import { cache } from "react";
 import { auth } from "../../auth";
 import { getDb } from "../../db/client";
 import { contextForUser, type ServiceContext } from "../services/context";
 import { ServiceError } from "../services/errors";
 
-/** The service context of the signed-in user, or null when signed out or deactivated. */
-export async function currentContext(): Promise<ServiceContext | null> {
+/**
+ * The service context of the signed-in user, or null when signed out or deactivated.
+ * Cached per request so a layout, its page and their helpers share one read of the
+ * user and roles (and one context object, which keys the other per-request caches).
+ */
+export const currentContext = cache(async function currentContext(): Promise<ServiceContext | null> {
   const session = await auth();
   const userId = session?.user?.id;
   if (!userId) return null;
@@ -15,7 +20,7 @@ export async function currentContext(): Promise<ServiceContext | null> {
     if (error instanceof ServiceError && error.code === "unauthenticated") return null;
     throw error;
   }
-}
+});
 
 /** As currentContext, but throws the typed 401 for route handlers and actions. */
 export async function requireContext(): Promise<ServiceContext> {

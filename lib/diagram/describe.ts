@@ -5,16 +5,9 @@
  * for line by a reviewer.
  */
 import type { Circuit, Equipment, ProjectRecord, PvArray } from "../schemas/project-record";
+import { CIRCUIT_KIND_WORDS } from "../schemas/vocabulary";
 
-export const CIRCUIT_KIND_LABELS: Record<Circuit["kind"], string> = {
-  "pv-source": "PV source",
-  "pv-output": "PV output",
-  battery: "battery",
-  "inverter-dc-input": "inverter DC input",
-  "inverter-ac-output": "inverter AC output",
-  "generator-output": "generator output",
-  "ac-branch": "AC branch",
-};
+export const CIRCUIT_KIND_LABELS: Record<Circuit["kind"], string> = CIRCUIT_KIND_WORDS;
 
 const KIND_TITLES: Record<Equipment["kind"], string> = {
   "pv-module": "PV MODULE",

@@ -82,8 +82,61 @@ const HELPERS: Record<string, Handlebars.HelperDelegate> = {
 };
 const BLOCK_HELPERS = new Set(["if", "unless", "each", "with"]);
 
+/**
+ * Bounds on what a jurisdiction's template may ask of the server. The shipped
+ * templates are under 3 KB, nest no list inside another and no block more than
+ * three deep; each bound leaves room for a jurisdiction's own wording while a
+ * template that loops every list inside every other list is refused when saved.
+ */
+export const TEMPLATE_LIMITS = {
+  sourceChars: 32 * 1024,
+  eachDepth: 2,
+  blockDepth: 8,
+  /** Loop bodies run while rendering one sheet: a packet's lists hold tens of items, so nesting two of them stays in the thousands. */
+  renderIterations: 100_000,
+  /** Markup one sheet may produce; a long general-notes sheet is about 10 KB. */
+  outputChars: 2 * 1024 * 1024,
+  /** Wall-clock time for one sheet; a shipped sheet renders in a few milliseconds. */
+  renderMs: 2_000,
+} as const;
+
 const env = Handlebars.create();
 for (const [name, fn] of Object.entries(HELPERS)) env.registerHelper(name, fn);
+
+/** The work one render may still do; set for the length of a (synchronous) render. */
+interface RenderBudget {
+  iterations: number;
+  outputChars: number;
+  deadline: number;
+}
+let budget: RenderBudget | null = null;
+
+class RenderBudgetExceeded extends Error {}
+
+/**
+ * Handlebars' own #each, with every loop body counted against the render's
+ * budget: iterations, output and time, so a template cannot hold the server
+ * however its loops are nested.
+ */
+const builtInEach = env.helpers.each as Handlebars.HelperDelegate;
+env.registerHelper("each", function (this: unknown, context: unknown, options: Handlebars.HelperOptions) {
+  const fn = options.fn;
+  const counted = Object.assign((value: unknown, opts?: Handlebars.RuntimeOptions) => {
+    const b = budget;
+    if (b) {
+      b.iterations -= 1;
+      if (b.iterations < 0) throw new RenderBudgetExceeded(`its loops ran more than ${TEMPLATE_LIMITS.renderIterations} times`);
+      if (Date.now() > b.deadline) throw new RenderBudgetExceeded(`it took longer than ${TEMPLATE_LIMITS.renderMs / 1000} s to render`);
+    }
+    const out = fn(value, opts);
+    if (b) {
+      b.outputChars -= out.length;
+      if (b.outputChars < 0) throw new RenderBudgetExceeded(`it produced more than ${TEMPLATE_LIMITS.outputChars / 1024 / 1024} MB of text`);
+    }
+    return out;
+  }, fn);
+  return builtInEach.call(this, context, { ...options, fn: counted });
+});
 
 export const DEFAULT_TEMPLATE_DIR = path.join(process.cwd(), "templates", "packet");
 
@@ -162,7 +215,7 @@ function walkParts(shape: Shape, parts: string[], original: string, line: number
       current = S;
       continue;
     }
-    if (!isObjectShape(current) || !(part in current)) {
+    if (!isObjectShape(current) || !Object.hasOwn(current, part)) {
       throw new UnknownVariable(original, line, `unknown variable "${original}"`);
     }
     current = current[part]!;
@@ -194,24 +247,24 @@ function checkCall(
   stack: Scope[],
 ) {
   const name = callee.original;
-  if (!(name in HELPERS) && !BLOCK_HELPERS.has(name)) {
+  if (!Object.hasOwn(HELPERS, name) && !BLOCK_HELPERS.has(name)) {
     throw new UnknownVariable(name, callee.loc?.start.line ?? 1, `unknown helper "${name}"`);
   }
   for (const param of params) checkExpression(param, stack);
   for (const pair of hash?.pairs ?? []) checkExpression(pair.value, stack);
 }
 
-function walk(node: Node, stack: Scope[]): void {
+function walk(node: Node, stack: Scope[], depth = 0): void {
   switch (node.type) {
     case "Program":
-      for (const child of (node as hbs.AST.Program).body) walk(child, stack);
+      for (const child of (node as hbs.AST.Program).body) walk(child, stack, depth);
       return;
     case "MustacheStatement": {
       const m = node as hbs.AST.MustacheStatement;
       if (m.path.type !== "PathExpression") return;
       const p = m.path as hbs.AST.PathExpression;
       if (m.params.length > 0 || (m.hash?.pairs.length ?? 0) > 0) checkCall(p, m.params, m.hash, stack);
-      else if (!p.data && p.parts.length === 1 && p.original in HELPERS) return;
+      else if (!p.data && p.parts.length === 1 && Object.hasOwn(HELPERS, p.original)) return;
       else resolvePath(p, stack);
       return;
     }
@@ -225,6 +278,12 @@ function walk(node: Node, stack: Scope[]): void {
         throw new UnknownVariable(name, line, `unknown block helper "${name}" (use if, unless, each or with)`);
       }
       checkCall(p, b.params, b.hash, stack);
+      if (depth + 1 > TEMPLATE_LIMITS.blockDepth) {
+        throw new UnknownVariable(name, line, `blocks are nested more than ${TEMPLATE_LIMITS.blockDepth} deep`);
+      }
+      if (name === "each" && stack.filter((s) => s.inEach).length >= TEMPLATE_LIMITS.eachDepth) {
+        throw new UnknownVariable(name, line, `lists are looped more than ${TEMPLATE_LIMITS.eachDepth} deep (an #each inside an #each inside an #each)`);
+      }
       const arg = b.params[0];
       const argShape = arg ? checkExpression(arg, stack) : null;
       let inner = stack;
@@ -241,8 +300,8 @@ function walk(node: Node, stack: Scope[]): void {
       } else if (name === "if" && isApprovalPath(arg)) {
         inner = [...stack.slice(0, -1), { ...top, approvalGuarded: true }];
       }
-      if (b.program) walk(b.program, inner);
-      if (b.inverse) walk(b.inverse, stack);
+      if (b.program) walk(b.program, inner, depth + 1);
+      if (b.inverse) walk(b.inverse, stack, depth + 1);
       return;
     }
     case "PartialStatement":
@@ -259,6 +318,9 @@ function walk(node: Node, stack: Scope[]): void {
 export function validateTemplate(name: SheetTemplateName | string, source: string): TemplateValidation {
   if (!(SHEET_TEMPLATE_NAMES as readonly string[]).includes(name)) {
     return { ok: false, line: 1, message: `no sheet template is called "${name}"` };
+  }
+  if (source.length > TEMPLATE_LIMITS.sourceChars) {
+    return { ok: false, line: 1, message: `the template is ${Math.ceil(source.length / 1024)} KB; a sheet template may be at most ${TEMPLATE_LIMITS.sourceChars / 1024} KB` };
   }
   let ast: hbs.AST.Program;
   try {
@@ -292,7 +354,32 @@ function sanitise(value: unknown): unknown {
   return value;
 }
 
+/**
+ * Compiled templates by source, least recently used dropped first: every
+ * jurisdiction may override every sheet, and each saved edit is a new source.
+ */
+export const COMPILED_CACHE_MAX = 64;
 const compiled = new Map<string, Handlebars.TemplateDelegate>();
+
+function compiledTemplate(name: SheetTemplateName, source: string): Handlebars.TemplateDelegate {
+  const hit = compiled.get(source);
+  if (hit) {
+    compiled.delete(source);
+    compiled.set(source, hit);
+    return hit;
+  }
+  const check = validateTemplate(name, source);
+  if (!check.ok) throw new TemplateError(name, check.line, check.message);
+  const template = env.compile(source, { strict: true, noEscape: true });
+  compiled.set(source, template);
+  while (compiled.size > COMPILED_CACHE_MAX) compiled.delete(compiled.keys().next().value as string);
+  return template;
+}
+
+/** How many compiled templates are held; for tests of the bound. */
+export function compiledTemplateCount(): number {
+  return compiled.size;
+}
 
 export class TemplateError extends Error {
   constructor(
@@ -304,23 +391,37 @@ export class TemplateError extends Error {
   }
 }
 
-/** Renders a sheet template (or its override) to markup blocks. */
+/** Renders a sheet template (or its override) to markup blocks, within TEMPLATE_LIMITS' iterations, output and time. */
 export function renderSheetTemplate(
   name: SheetTemplateName,
   context: TemplateContext,
   override?: string,
   dir = DEFAULT_TEMPLATE_DIR,
+  limits: { renderMs?: number } = {},
 ): Block[] {
   const source = override ?? loadTemplateSource(name, dir);
-  let template = compiled.get(source);
-  if (!template) {
-    const check = validateTemplate(name, source);
-    if (!check.ok) throw new TemplateError(name, check.line, check.message);
-    template = env.compile(source, { strict: true, noEscape: true });
-    compiled.set(source, template);
+  const template = compiledTemplate(name, source);
+  const outer = budget;
+  budget = {
+    iterations: TEMPLATE_LIMITS.renderIterations,
+    outputChars: TEMPLATE_LIMITS.outputChars,
+    deadline: Date.now() + (limits.renderMs ?? TEMPLATE_LIMITS.renderMs),
+  };
+  let text: string;
+  try {
+    text = template(sanitise(context));
+  } catch (error) {
+    if (error instanceof RenderBudgetExceeded) throw new TemplateError(name, 1, `the template was stopped: ${error.message}`);
+    const e = error as Error & { lineNumber?: number };
+    throw new TemplateError(name, e.lineNumber ?? 1, e.message);
+  } finally {
+    budget = outer;
+  }
+  if (text.length > TEMPLATE_LIMITS.outputChars) {
+    throw new TemplateError(name, 1, `the template was stopped: it produced more than ${TEMPLATE_LIMITS.outputChars / 1024 / 1024} MB of text`);
   }
   try {
-    return parseMarkup(template(sanitise(context)));
+    return parseMarkup(text);
   } catch (error) {
     const e = error as Error & { lineNumber?: number };
     throw new TemplateError(name, e.lineNumber ?? 1, e.message);

@@ -220,6 +220,7 @@ const FIELD_TEXT: Record<string, { label: string; help: string }> = {
   ratedKW: { label: "Rated output", help: "Continuous (prime) rating, not the peak." },
   voltageV: { label: "Voltage", help: "Nominal output voltage." },
   output: { label: "Output", help: "Output configuration: 120, 240, 120/240, 208 or 277/480." },
+  phases: { label: "Phases", help: "1 for single or split phase, 3 for three phase (its voltage is then line to line)." },
   fuel: { label: "Fuel", help: "Fuel the generator runs on." },
   hasOutputDisconnect: { label: "Output disconnect built in", help: "A built-in breaker or switch that serves as the 445.18 disconnect." },
   outputBreakerA: { label: "Output breaker", help: "Rating of the generator's output breaker." },
@@ -236,6 +237,7 @@ const FIELD_TEXT: Record<string, { label: string; help: string }> = {
   busRatingA: { label: "Bus rating", help: "Ampere rating of the bus (705.12(B))." },
   mainBreakerA: { label: "Main breaker", help: "Main breaker rating; leave empty for main-lug panels and bus bars." },
   voltage: { label: "Voltage", help: "System voltage of the bus." },
+  neutralBusRatingA: { label: "Neutral bus rating", help: "Ampere rating of the neutral bus; with a single 120 V supply the sum of the sources must stay below it (710.15(C))." },
   hasMultiwireBranchCircuits: { label: "Multiwire branch circuits", help: "Whether the panel feeds multiwire branch circuits (710.15(C))." },
   sumOfBreakersA: { label: "Sum of breakers", help: "Usually set per project: the sum of all breaker ratings on the bus." },
 };

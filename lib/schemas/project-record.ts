@@ -18,6 +18,9 @@ export const systemKindSchema = z.enum(SYSTEM_KINDS, {
   error: "must be one of stand-alone, stand-alone-generator, hybrid",
 });
 
+/** Phases of an AC supply or circuit: 1 for single or split phase (120, 240, 120/240), 3 for three phase. */
+export const phaseCountSchema = z.union([z.literal(1), z.literal(3)], { error: "must be 1 (single or split phase) or 3" });
+
 export const OCCUPANCIES = ["one-two-family-dwelling", "other-building"] as const;
 export const MOUNTINGS = ["ground", "roof"] as const;
 
@@ -169,6 +172,8 @@ export const generatorSchema = z.object({
   ratedKW: numberIn(0.1, 2000, "kW").optional(),
   voltageV: numberIn(100, 480, "V").optional(),
   output: z.enum(["120", "240", "120/240", "208", "277/480"]).optional(),
+  /** 3 for a three-phase set; its voltageV is then line to line. */
+  phases: phaseCountSchema.default(1),
   fuel: z.enum(["gasoline", "diesel", "propane", "natural-gas", "other"]).optional(),
   hasOutputDisconnect: z.boolean().default(false),
   outputBreakerA: numberIn(1, 2000, "A").optional(),
@@ -199,6 +204,8 @@ export const panelSchema = z.object({
   mainBreakerA: numberIn(1, 5000, "A").optional(),
   voltage: z.enum(["12", "24", "48", "120", "240", "120/240", "208", "277/480", "other"]).optional(),
   hasMultiwireBranchCircuits: z.boolean().optional(),
+  /** Rating of the neutral bus; a single 120 V supply's sources must stay below it (710.15(C)). */
+  neutralBusRatingA: numberIn(1, 5000, "A").optional(),
   /** Sum of the ratings of all breakers on the bus, for the sum-of-breakers rule. */
   sumOfBreakersA: numberIn(0, 20000, "A").optional(),
 });
@@ -311,6 +318,11 @@ export const circuitSchema = z
     designCurrentA: numberIn(0, 5000, "A").optional(),
     /** Nominal voltage of the circuit where no equipment at its ends sets it (e.g. an AC branch circuit), for voltage drop and device ratings. */
     nominalVoltageV: numberIn(12, 600, "V").optional(),
+    /**
+     * For an AC circuit: 1 (single or split phase) or 3. Empty takes the phases of the inverter or
+     * generator at its ends, else single phase (the larger current and drop for the same power).
+     */
+    phases: phaseCountSchema.optional(),
     material: z.enum(["cu", "al"], { error: "must be cu or al" }).default("cu"),
     size: conductorSizeSchema.optional(),
     parallelSets: integerIn(1, 8).default(1),
@@ -442,9 +454,11 @@ function checkReferences(record: RecordShape, ctx: z.RefinementCtx): void {
   const claim = (tag: string, path: (string | number)[]) => {
     const first = seen.get(tag);
     if (first !== undefined) {
-      ctx.addIssue({ code: "custom", path, message: `duplicate tag "${tag}" (already used at ${first})` });
+      ctx.addIssue({ code: "custom", path, message: `duplicate tag "${tag}": ${first} already has it` });
     } else {
-      seen.set(tag, path.slice(0, 2).join("."));
+      // Named as the editor numbers rows (from 1), so the message reads the same wherever it is shown.
+      const noun = path[0] === "equipment" ? "equipment row" : path[0] === "arrays" ? "array row" : "circuit row";
+      seen.set(tag, `${noun} ${Number(path[1]) + 1}`);
     }
   };
   record.equipment.forEach((e, i) => {

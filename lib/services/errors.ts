@@ -2,7 +2,7 @@
  * Typed service errors, mapped to HTTP once at the edge (lib/http.ts).
  * Messages are safe to show: they never carry another organisation's data.
  */
-export type ServiceErrorCode = "unauthenticated" | "forbidden" | "not-found" | "conflict" | "invalid" | "locked";
+export type ServiceErrorCode = "unauthenticated" | "forbidden" | "not-found" | "conflict" | "invalid" | "locked" | "too-large";
 
 export interface FieldIssue {
   path: string;
@@ -26,6 +26,8 @@ export const forbidden = (what = "do this") => new ServiceError("forbidden", `Yo
 export const notFound = (what: string) => new ServiceError("not-found", `${what} was not found.`);
 export const conflict = (message: string) => new ServiceError("conflict", message);
 export const invalid = (message: string, issues: FieldIssue[] = []) => new ServiceError("invalid", message, issues);
+/** A request body past its bound, refused before the rest of it was read. */
+export const tooLarge = (message: string) => new ServiceError("too-large", message);
 
 export const HTTP_STATUS: Record<ServiceErrorCode, number> = {
   unauthenticated: 401,
@@ -34,4 +36,5 @@ export const HTTP_STATUS: Record<ServiceErrorCode, number> = {
   conflict: 409,
   invalid: 400,
   locked: 423,
+  "too-large": 413,
 };

@@ -1,6 +1,8 @@
 import { PDFDocument } from "pdf-lib";
 import { describeAccepted, KIND_RULES, type AttachmentKind } from "./kinds";
 import { formatBytes } from "./format-bytes";
+import { checkImagePixels, MAX_IMAGE_PIXELS } from "./image-size";
+import { measureInflatedPdf, PDF_MAX_INFLATED_BYTES } from "./pdf-inflate";
 import { UploadRefusedError } from "./refusal";
 import { findPdfHeader, sniffContent, type AcceptedContent } from "./sniff";
 
@@ -9,6 +11,9 @@ export interface InspectOptions {
   maxBytes: number;
   /** When given, the content must suit the kind (a datasheet must be a PDF). */
   kind?: AttachmentKind;
+  /** Bounds on what the file may expand to when read; the defaults suit packets. */
+  maxInflatedBytes?: number;
+  maxPixels?: number;
 }
 
 export interface InspectedUpload {
@@ -57,14 +62,14 @@ export async function inspectUpload(bytes: Uint8Array, options: InspectOptions):
   }
 
   if (content.mimeType === "application/pdf") {
-    const pageCount = await inspectPdf(bytes, name);
+    const pageCount = await inspectPdf(bytes, name, options.maxInflatedBytes ?? PDF_MAX_INFLATED_BYTES);
     return { content, sizeBytes: bytes.length, pageCount };
   }
-  await inspectImage(bytes, content, name);
+  await inspectImage(bytes, content, name, options.maxPixels ?? MAX_IMAGE_PIXELS);
   return { content, sizeBytes: bytes.length, pageCount: null };
 }
 
-async function inspectPdf(bytes: Uint8Array, name: string): Promise<number> {
+async function inspectPdf(bytes: Uint8Array, name: string, maxInflatedBytes: number): Promise<number> {
   const header = findPdfHeader(bytes);
   if (header < 0) throw new UploadRefusedError("corrupt", `${name} has no PDF header.`);
   if (!hasEofMarker(bytes)) {
@@ -72,6 +77,14 @@ async function inspectPdf(bytes: Uint8Array, name: string): Promise<number> {
   }
   // Checked on the raw bytes first: an encrypted file may not parse far enough for the trailer to be read.
   if (hasEncryptEntry(bytes)) throw encryptedRefusal(name);
+  // Measured before pdf-lib reads the file: loading inflates every object stream in memory.
+  const inflated = await measureInflatedPdf(bytes, maxInflatedBytes);
+  if (inflated.overCap) {
+    throw new UploadRefusedError(
+      "inflates-too-large",
+      `${name} expands to more than ${formatBytes(maxInflatedBytes)} when read, far more than a datasheet or drawing needs. Print it to a new PDF (or export it with images compressed as JPEG) and upload that.`,
+    );
+  }
 
   let doc: PDFDocument;
   try {
@@ -94,7 +107,16 @@ async function inspectPdf(bytes: Uint8Array, name: string): Promise<number> {
   return pageCount;
 }
 
-async function inspectImage(bytes: Uint8Array, content: AcceptedContent, name: string): Promise<void> {
+async function inspectImage(bytes: Uint8Array, content: AcceptedContent, name: string, maxPixels: number): Promise<void> {
+  // From the header, before anything decodes it: pdf-lib turns a PNG into RGBA in memory.
+  const pixels = checkImagePixels(bytes, content.mimeType === "image/png" ? "png" : "jpeg", maxPixels);
+  if (!pixels.ok && pixels.reason === "too-many-pixels" && pixels.size) {
+    throw new UploadRefusedError(
+      "too-many-pixels",
+      `${name} is ${pixels.size.width} × ${pixels.size.height} px; images are accepted up to ${Math.round(maxPixels / 1e6)} megapixels. Save it at a lower resolution (300 dpi is plenty for print) and upload that.`,
+    );
+  }
+  if (!pixels.ok) throw new UploadRefusedError("corrupt", `${name} is a damaged ${content.label}: its size could not be read. Save it again and upload the new copy.`);
   // The packet draws images with pdf-lib; an image it cannot embed is refused now rather than at generation.
   try {
     const probe = await PDFDocument.create({ updateMetadata: false });

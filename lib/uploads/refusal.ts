@@ -1,7 +1,7 @@
 import { ServiceError } from "../services/errors";
 
 /** Why an upload was turned away; each maps to the HTTP status a client can act on. */
-export type UploadRefusalReason = "empty" | "too-large" | "unsupported-type" | "wrong-kind" | "corrupt" | "encrypted" | "missing-field";
+export type UploadRefusalReason = "empty" | "too-large" | "unsupported-type" | "wrong-kind" | "corrupt" | "encrypted" | "missing-field" | "too-many-pixels" | "inflates-too-large";
 
 export const UPLOAD_REFUSAL_STATUS: Record<UploadRefusalReason, number> = {
   empty: 400,
@@ -9,6 +9,8 @@ export const UPLOAD_REFUSAL_STATUS: Record<UploadRefusalReason, number> = {
   corrupt: 400,
   encrypted: 400,
   "too-large": 413,
+  "too-many-pixels": 413,
+  "inflates-too-large": 413,
   "unsupported-type": 415,
   "wrong-kind": 415,
 };

@@ -182,7 +182,7 @@ test("a new designer enters a stand-alone system with a generator and sees the m
     buffer: Buffer.from(JSON.stringify({ ...exported, site: { occupancy: "other-building", mounting: "ground", designLowTempC: -90 } })),
   });
   const refused = page.getByRole("table", { name: "Refused fields" });
-  await expect(refused.getByText("site.designLowTempC")).toBeVisible();
+  await expect(refused.getByText("Design low temperature", { exact: true })).toBeVisible();
   await expect(refused.getByText("must be between -60 and 70 °C")).toBeVisible();
   await page.getByLabel("Project file (.json)").setInputFiles(filePath);
   await page.getByRole("button", { name: "Import as new project" }).click();

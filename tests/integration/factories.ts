@@ -65,8 +65,13 @@ export function makeContext(db: Db, orgId: string, roles: Role[]): ServiceContex
   return contextForUser(db, makeUser(db, orgId, roles).id);
 }
 
-export function makeJurisdiction(db: Db, orgId: string, necEdition: "2017" | "2020" | "2023" = "2023") {
-  return db.insert(jurisdictions).values({ orgId, name: unique("Jurisdiction"), necEdition }).returning().get();
+/** Jurisdictions are in Westmark unless told otherwise, the region the test reviewers' licences are issued in. */
+export function makeJurisdiction(db: Db, orgId: string, necEdition: "2017" | "2020" | "2023" = "2023", opts: { region?: string } = {}) {
+  return db
+    .insert(jurisdictions)
+    .values({ orgId, name: unique("Jurisdiction"), necEdition, region: opts.region ?? "Westmark" })
+    .returning()
+    .get();
 }
 
 export function makeProject(db: Db, orgId: string, jurisdictionId: string | null = null) {

@@ -33,7 +33,7 @@ describe("organisation scoping: nothing of organisation B is visible or changeab
   });
 
   it("lists only the actor's organisation's projects and jurisdictions", () => {
-    const ids = listProjects(designerA).map((p) => p.id);
+    const ids = listProjects(designerA).rows.map((p) => p.id);
     expect(ids).toContain(projectA.id);
     expect(ids).not.toContain(projectB.id);
     expect(listJurisdictions(designerA).map((j) => j.id)).toEqual([jurA.id]);

@@ -1,12 +1,15 @@
 import { NextResponse } from "next/server";
 import { requireContext } from "@/lib/auth/session";
 import { handle, readJson } from "@/lib/http";
+import { pageRequestFrom } from "@/lib/services/page";
 import { createProject } from "@/lib/services/projects/create";
 import { listProjects } from "@/lib/services/projects/list";
 
-export const GET = handle(async () => {
+/** One page: { projects, nextCursor }; pass ?cursor=nextCursor for the next (and ?limit= up to 200). */
+export const GET = handle(async (request: Request) => {
   const ctx = await requireContext();
-  return NextResponse.json({ projects: listProjects(ctx) });
+  const page = listProjects(ctx, pageRequestFrom(request.url));
+  return NextResponse.json({ projects: page.rows, nextCursor: page.nextCursor });
 });
 
 export const POST = handle(async (request: Request) => {

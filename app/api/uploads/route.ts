@@ -3,7 +3,9 @@ import { requireContext } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import { errorResponse } from "@/lib/http";
 import { uploadAttachment } from "@/lib/services/attachments";
+import { requirePermission } from "@/lib/services/context";
 import { formatBytes } from "@/lib/uploads/format-bytes";
+import { BodyTooLargeError, declaresMoreThan, readFormDataLimited } from "@/lib/uploads/limited-body";
 import { UploadRefusedError } from "@/lib/uploads/refusal";
 
 /** Room for the multipart boundaries and the text fields around the file. */
@@ -22,19 +24,22 @@ function refusal(status: number, message: string, reason: string) {
 export async function POST(request: Request): Promise<Response> {
   try {
     const ctx = await requireContext();
+    // Who may upload is known before a byte of the body is read.
+    requirePermission(ctx, "attachment:upload", "attach files");
     const maxBytes = env().UPLOAD_MAX_BYTES;
-    const declared = Number(request.headers.get("content-length"));
-    if (Number.isFinite(declared) && declared > maxBytes + MULTIPART_OVERHEAD_BYTES) {
-      return refusal(413, `The file is larger than the largest accepted, ${formatBytes(maxBytes)}. Reduce it or split it.`, "too-large");
-    }
+    const bodyLimit = maxBytes + MULTIPART_OVERHEAD_BYTES;
+    const tooLarge = () => refusal(413, `The file is larger than the largest accepted, ${formatBytes(maxBytes)}. Reduce it or split it.`, "too-large");
+    if (declaresMoreThan(request, bodyLimit)) return tooLarge();
     if (!(request.headers.get("content-type") ?? "").toLowerCase().startsWith("multipart/form-data")) {
       return refusal(400, "Send the file as multipart/form-data, with fields projectId, kind and equipmentTag.", "missing-field");
     }
     let form: FormData;
     try {
-      form = await request.formData();
-    } catch {
+      form = await readFormDataLimited(request, bodyLimit);
+    } catch (error) {
+      if (error instanceof BodyTooLargeError) return tooLarge();
       // The proxy buffers at most PROXY_BODY_BYTES of a request body by default (next.config proxyClientMaxBodySize).
+      const declared = Number(request.headers.get("content-length"));
       const hint = Number.isFinite(declared) && declared > PROXY_BODY_BYTES ? " If it fails again for files over 10 MB, tell your administrator: the server reads less of a request than the upload limit allows." : "";
       return refusal(400, `The upload arrived incomplete and could not be read. Try again.${hint}`, "missing-field");
     }

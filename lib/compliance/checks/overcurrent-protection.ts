@@ -5,7 +5,8 @@
  * module's series fuse rating are fused.
  */
 import { nextStandardOcpdRatingA, smallConductorMaxOcpdA, standardOcpdRatingsA } from "../tables";
-import { isPvCircuit, sizeLabel, Trace, v, type CheckContext } from "../context";
+import type { Circuit } from "../../schemas/project-record";
+import { circuitArrayTag, isPvCircuit, sizeLabel, Trace, v, type CheckContext, type Indexed } from "../context";
 import { circuitCurrent } from "../derive/circuit-current";
 import { conductorAmpacity } from "../derive/conductor";
 import { arrayIsc, arrayParts } from "../derive/pv";
@@ -14,6 +15,20 @@ import { missingDeviceRemedy, ocpdRemedy, stringFuseRemedy } from "../derive/ocp
 import { localRef, refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
+import { CIRCUIT_KIND_WORDS, withArticle } from "../../schemas/vocabulary";
+
+/**
+ * The module's maximum series fuse rating where the circuit's device protects a string: every PV source circuit,
+ * and a PV output circuit that carries a single string. "missing" when the rating is needed and not recorded.
+ */
+function moduleSeriesFuseLimit(ctx: CheckContext, ci: Indexed<Circuit>, t: Trace): number | "missing" | undefined {
+  const arrayTag = circuitArrayTag(ctx, ci.item);
+  const parts = arrayTag !== undefined ? arrayParts(ctx, arrayTag) : undefined;
+  if (!parts?.module) return undefined;
+  if (ci.item.kind === "pv-output" && parts.array.item.stringsInParallel > 1) return undefined;
+  const m = parts.module;
+  return t.need(`${m.path}.maxSeriesFuseA`, `Maximum series fuse of ${m.item.tag}`, m.item.maxSeriesFuseA, "A") ?? "missing";
+}
 
 export const overcurrentProtection: CheckDefinition = {
   id: "overcurrent-protection",
@@ -86,6 +101,21 @@ export const overcurrentProtection: CheckDefinition = {
               continue;
             }
           }
+          // 690.9(A) exception (b): no device only where the module's series fuse rating, as well as the conductor, carries what the other strings can feed.
+          if (strings >= 2 && fuse === undefined) {
+            t.need(`${parts!.module!.path}.maxSeriesFuseA`, "Module maximum series fuse", undefined, "A");
+            out.push(
+              needsInput(this, {
+                subject: c.tag,
+                message: `${c.tag}: ${strings} strings of ${arrayTag} are paralleled; the module's maximum series fuse rating decides whether each string needs a fuse.`,
+                values,
+                inputs: t.inputs,
+                missing: t.missing,
+                codeRefs: [...codeRefs, ...refs(ed, "string-fuse")],
+              }),
+            );
+            continue;
+          }
           if (c.kind === "pv-output" || strings <= 1) {
             out.push(
               makeResult(this, {
@@ -148,7 +178,7 @@ export const overcurrentProtection: CheckDefinition = {
           makeResult(this, {
             subject: c.tag,
             status: "fail",
-            message: `${c.tag}: no overcurrent device named; a ${c.kind} circuit needs one (at least ${minStandardA ?? minA.toFixed(0)} A).`,
+            message: `${c.tag}: no overcurrent device named; ${withArticle(CIRCUIT_KIND_WORDS[c.kind])} circuit needs one (at least ${minStandardA ?? minA.toFixed(0)} A).`,
             reason: `no overcurrent device recorded in ${ci.path}.ocpdTag`,
             remedy: () => missingDeviceRemedy(ctx, ci, minA),
             values: [v("minimumA", "Minimum device rating", minA, "A")],
@@ -190,6 +220,18 @@ export const overcurrentProtection: CheckDefinition = {
         problems.push(`${rating} A is above the ${allowed!.toFixed(1)} A the ${sizeLabel(size, c.material)} conductors carry (largest device ${maxByAmpacity} A, 240.4(B))`);
       }
       if (maxByAmpacity === undefined) problems.push(`the conductor has no usable ampacity to protect`);
+      // A device on a string also protects its modules: it may not exceed the module's listed series fuse rating (110.3(B), 690.9).
+      const seriesFuse = pv ? moduleSeriesFuseLimit(ctx, ci, t) : undefined;
+      // A fail found already stands; otherwise the missing rating keeps the result from passing.
+      if (seriesFuse === "missing" && problems.length === 0) {
+        out.push(needsInput(this, { subject: c.tag, values, inputs: t.inputs, missing: t.missing, codeRefs: [...codeRefs, ...refs(ed, "string-fuse", "listing-use")] }));
+        continue;
+      }
+      if (typeof seriesFuse === "number") {
+        values.push(v("maxSeriesFuseA", "Module maximum series fuse", seriesFuse, "A"));
+        codeRefs.push(...refs(ed, "string-fuse", "listing-use"));
+        if (rating > seriesFuse) problems.push(`${e.tag} at ${rating} A is above the module's ${seriesFuse} A maximum series fuse rating (module listing, 110.3(B), 690.9)`);
+      }
       const kind = e.kind === "fuse" ? "fuse" : "breaker";
       if (!standardOcpdRatingsA(ed, kind).includes(rating)) warnings.push(`${rating} A is not a standard rating of 240.6(A)`);
       const status = problems.length ? "fail" : warnings.length ? "warning" : "pass";
@@ -202,9 +244,9 @@ export const overcurrentProtection: CheckDefinition = {
               ? `${c.tag}: ${e.tag} ${rating} A covers ${minA.toFixed(1)} A and protects the conductor (up to ${maxByAmpacity} A).`
               : `${c.tag}: ${[...problems, ...warnings].join("; ")}.`,
           ...(status === "pass" ? {} : { reason: [...problems, ...warnings].join("; ") }),
-          remedy: () => ocpdRemedy(ctx, ci, dev, kind, rating, minA),
+          remedy: () => ocpdRemedy(ctx, ci, dev, kind, rating, minA, typeof seriesFuse === "number" ? seriesFuse : undefined),
           values,
-          formula: `${minA.toFixed(2)} A ≤ ${rating} A ≤ min(240.4(B) ${maxByAmpacity ?? "—"} A${small !== undefined ? `, 240.4(D) ${small} A` : ""})`,
+          formula: `${minA.toFixed(2)} A ≤ ${rating} A ≤ min(240.4(B) ${maxByAmpacity ?? "—"} A${small !== undefined ? `, 240.4(D) ${small} A` : ""}${typeof seriesFuse === "number" ? `, module series fuse ${seriesFuse} A` : ""})`,
           inputs: t.inputs,
           codeRefs,
         }),

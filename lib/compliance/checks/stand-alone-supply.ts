@@ -2,10 +2,11 @@
  * 14. Stand-alone supply (710.15): the inverter may be smaller than the
  * calculated load but must carry the largest single load; a 120 V-only supply
  * feeding a 120/240 V panel needs the single-supply warning, no multiwire
- * branch circuits, and an output device no larger than the neutral bus.
+ * branch circuits, no 240 V outlets, and the sum of the sources' ratings below
+ * the panel's neutral bus rating (710.15(C)).
  */
 import type { Circuit } from "../../schemas/project-record";
-import { equipmentOfKind, isInverter, Trace, v, type CheckContext, type EquipmentOf, type Indexed, isProtective } from "../context";
+import { equipmentOfKind, isInverter, round, Trace, v, type CheckContext, type EquipmentOf, type Indexed } from "../context";
 import { loadSummary } from "../load-summary";
 import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
@@ -18,6 +19,49 @@ type Inverter = EquipmentOf<"inverter" | "inverter-charger" | "hybrid-inverter">
 function is120Only(inv: Inverter): boolean {
   if (inv.acOutput !== undefined) return inv.acOutput === "120";
   return inv.acOutputVoltageV !== undefined && inv.acOutputVoltageV <= 130;
+}
+
+function supplyVoltageKnown(inv: Inverter): boolean {
+  return inv.acOutput !== undefined || inv.acOutputVoltageV !== undefined;
+}
+
+function feeds120240Panel(ctx: CheckContext, inverterTag: string): boolean {
+  return (ctx.circuitsByEndpoint.get(inverterTag) ?? []).some((c) => {
+    if (c.item.kind !== "inverter-ac-output") return false;
+    const other = ctx.equipment.get(c.item.fromTag === inverterTag ? c.item.toTag : c.item.fromTag)?.item;
+    return other?.kind === "ac-panel" && other.voltage === "120/240";
+  });
+}
+
+/**
+ * Output rating of every stand-alone source landing on a panel: an inverter's maximum continuous output current
+ * (else its continuous watts at 120 V), a generator's nameplate current; times the quantity. Undefined while a
+ * rating is missing (named in the trace).
+ */
+function sourceRatings(ctx: CheckContext, panelTag: string, t: Trace): { tag: string; currentA: number }[] | undefined {
+  const out: { tag: string; currentA: number }[] = [];
+  let complete = true;
+  for (const c of ctx.circuitsByEndpoint.get(panelTag) ?? []) {
+    if (c.item.kind !== "inverter-ac-output" && c.item.kind !== "generator-output") continue;
+    const src = ctx.equipment.get(c.item.fromTag === panelTag ? c.item.toTag : c.item.fromTag);
+    if (!src) continue;
+    const e = src.item;
+    if (isInverter(e)) {
+      const plate = t.read(`${src.path}.maxAcOutputCurrentA`, `Maximum AC output current of ${e.tag}`, e.maxAcOutputCurrentA, "A");
+      const w = plate === undefined ? t.read(`${src.path}.continuousW`, `Continuous output of ${e.tag}`, e.continuousW, "W") : undefined;
+      const currentA = plate ?? (w !== undefined ? w / 120 : undefined);
+      if (currentA === undefined) {
+        t.need(`${src.path}.maxAcOutputCurrentA`, `Maximum AC output current of ${e.tag}`, undefined, "A");
+        complete = false;
+      } else out.push({ tag: e.tag, currentA: currentA * e.quantity });
+    } else if (e.kind === "generator") {
+      const kw = t.need(`${src.path}.ratedKW`, `Rating of ${e.tag}`, e.ratedKW, "kW");
+      const volts = t.need(`${src.path}.voltageV`, `Voltage of ${e.tag}`, e.voltageV, "V");
+      if (kw === undefined || volts === undefined) complete = false;
+      else out.push({ tag: e.tag, currentA: ((kw * 1000) / volts) * e.quantity });
+    }
+  }
+  return complete ? out : undefined;
 }
 
 /** Panels rated 120/240 V fed by a 120 V-only inverter, in a stand-alone system. */
@@ -42,7 +86,7 @@ export const standAloneSupply: CheckDefinition = {
   title: "Stand-alone supply",
   scopeTopic: "stand-alone-supply",
   formula:
-    "inverter output ≥ largest single load; 120 V-only supply to a 120/240 V panel: warning label, no multiwire branch circuits",
+    "inverter output ≥ largest single load; 120 V-only supply to a 120/240 V panel: warning label, no multiwire branch circuits, no 240 V outlets, sum of the sources' output ratings < neutral bus rating",
   run(ctx: CheckContext): CheckResult[] {
     const codeRefs = refs(ctx.edition, "stand-alone-supply");
     if (ctx.record.systemKind === "hybrid") {
@@ -63,6 +107,7 @@ export const standAloneSupply: CheckDefinition = {
     const s = loadSummary(ctx.record);
     const statuses: CheckStatus[] = ["pass"];
     const notes: string[] = [];
+    const formulas: string[] = [];
     /** What makes each failing point pass, with its figure. */
     const fixes: string[] = [];
     const values = [v("continuousW", "Inverter continuous output", continuousW, "W"), v("largestSingleLoadW", "Largest single load", s.largestSingleLoadW, "W")];
@@ -72,7 +117,13 @@ export const standAloneSupply: CheckDefinition = {
       fixes.push(`Use inverter output of at least ${s.largestSingleLoadW} W continuous, the largest single load.`);
     }
     const refsOut = [...codeRefs];
-    for (const { panel, inverter, circuit } of singleSupplyPanels(ctx)) {
+    for (const inv of inverters) {
+      // An output of unknown voltage into a 120/240 V panel may be a single 120 V supply: never assume it is not.
+      if (!isInverter(inv.item) || supplyVoltageKnown(inv.item) || !feeds120240Panel(ctx, inv.item.tag)) continue;
+      t.need(`${inv.path}.acOutput`, `AC output of ${inv.item.tag}`, undefined);
+      statuses.push("needs-input");
+    }
+    for (const { panel, inverter } of singleSupplyPanels(ctx)) {
       refsOut.push(...refs(ctx.edition, "stand-alone-label"));
       const mwbc = t.need(`${panel.path}.hasMultiwireBranchCircuits`, `Multiwire branch circuits in ${panel.item.tag}`, panel.item.hasMultiwireBranchCircuits);
       if (mwbc === undefined) statuses.push("needs-input");
@@ -81,15 +132,27 @@ export const standAloneSupply: CheckDefinition = {
         notes.push(`${panel.item.tag} is fed by 120 V-only ${inverter.item.tag} and has multiwire branch circuits, which would overload the neutral (710.15(C))`);
         fixes.push(`Replace the multiwire branch circuits in ${panel.item.tag} with two-wire circuits, or supply it at 120/240 V.`);
       }
-      const dev = circuit.item.ocpdTag ? ctx.equipment.get(circuit.item.ocpdTag) : undefined;
-      const rating = dev && isProtective(dev.item) ? dev.item.ratingA : undefined;
-      const bus = t.need(`${panel.path}.busRatingA`, `Bus (neutral) rating of ${panel.item.tag}`, panel.item.busRatingA, "A");
-      if (rating !== undefined && bus !== undefined) {
-        values.push(v("outputDeviceA", `Output device of ${inverter.item.tag}`, rating, "A"), v("neutralBusA", `Neutral bus of ${panel.item.tag} (taken as the bus rating)`, bus, "A"));
-        if (rating > bus) {
+      const outlets240 = ctx.record.loads.filter((l) => l.voltageV === 240);
+      if (outlets240.length) {
+        statuses.push("fail");
+        notes.push(`a single 120 V supply may not serve 240 V outlets (${outlets240.map((l) => l.name).join(", ")}) (710.15(C))`);
+      }
+      // 710.15(C): the sum of the ratings of the power sources stays below the neutral bus rating; one breaker is not the measure.
+      const neutral = t.need(`${panel.path}.neutralBusRatingA`, `Neutral bus rating of ${panel.item.tag}`, panel.item.neutralBusRatingA, "A");
+      const sources = sourceRatings(ctx, panel.item.tag, t);
+      if (neutral === undefined || sources === undefined) {
+        statuses.push("needs-input");
+      } else {
+        const sumA = sources.reduce((a, s) => a + s.currentA, 0);
+        values.push(
+          v("sourcesSumA", `Sum of the source ratings into ${panel.item.tag}`, sumA, "A"),
+          v("neutralBusA", `Neutral bus of ${panel.item.tag}`, neutral, "A"),
+        );
+        formulas.push(`${sources.map((s) => `${s.tag} ${round(s.currentA, 1)} A`).join(" + ")} = ${round(sumA, 1)} A < neutral bus ${neutral} A`);
+        if (!(sumA < neutral)) {
           statuses.push("fail");
-          notes.push(`output device ${rating} A exceeds the ${bus} A neutral bus of ${panel.item.tag}`);
-          fixes.push(`Use a panel whose neutral bus is rated at least ${rating} A, or an output device of at most ${bus} A that still carries the inverter's current.`);
+          notes.push(`the sources into ${panel.item.tag} sum to ${round(sumA, 1)} A, not less than its ${neutral} A neutral bus (710.15(C))`);
+          fixes.push(`Use a panel whose neutral bus is rated above ${round(sumA, 1)} A, the sum of the sources into it, or supply it at 120/240 V.`);
         }
       }
       notes.push(`the "single 120-volt supply" warning is required on ${panel.item.tag}`);
@@ -107,7 +170,7 @@ export const standAloneSupply: CheckDefinition = {
             ...(failing ? { reason: notes.join("; ") } : {}),
             remedy: () => (fixes.length ? remedy(fixes.join(" ")) : undefined),
             values,
-            formula: `inverter ${continuousW} W ≥ largest single load ${s.largestSingleLoadW} W`,
+            formula: [`inverter ${continuousW} W ≥ largest single load ${s.largestSingleLoadW} W`, ...formulas].join("; "),
             inputs: t.inputs,
             codeRefs: refsOut,
           }),

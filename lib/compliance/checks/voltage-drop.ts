@@ -14,9 +14,16 @@ import type { CheckResult, Remedy } from "../types";
 
 export const DEFAULT_VOLTAGE_DROP_LIMIT_PCT = 3;
 
-/** Two-wire drop, V: out and back through the conductor's resistance (Chapter 9 Table 8 at 75 °C). */
-export function voltageDropV(lengthFt: number, ohmPerKft: number, currentA: number, sets = 1): number {
-  return (2 * lengthFt * ohmPerKft * currentA) / (1000 * sets);
+/**
+ * Drop, V, through the conductor's resistance (Chapter 9 Table 8 at 75 °C): out and back (2 × I × R × L) on DC and
+ * single-phase circuits; √3 × I × R × L line to line on a balanced three-phase circuit.
+ */
+export function voltageDropV(lengthFt: number, ohmPerKft: number, currentA: number, sets = 1, phases: 1 | 3 = 1): number {
+  return (phaseFactor(phases) * lengthFt * ohmPerKft * currentA) / (1000 * sets);
+}
+
+function phaseFactor(phases: 1 | 3): number {
+  return phases === 3 ? Math.sqrt(3) : 2;
 }
 
 export const voltageDrop: CheckDefinition = {
@@ -24,7 +31,7 @@ export const voltageDrop: CheckDefinition = {
   title: "Voltage drop",
   scopeTopic: "voltage-drop",
   formula:
-    "2 × one-way length × Ω/kft × operating current ÷ 1000 ÷ operating voltage ≤ limit",
+    "k × one-way length × Ω/kft × operating current ÷ 1000 ÷ operating voltage ≤ limit, with k = 2 on DC and single-phase circuits and √3 on three-phase circuits (line-to-line voltage)",
   run(ctx: CheckContext): CheckResult[] {
     const ed = ctx.edition;
     const codeRefs = refs(ed, "voltage-drop", "dc-resistance");
@@ -43,6 +50,8 @@ export const voltageDrop: CheckDefinition = {
       const size = t.need(`${ci.path}.size`, "Conductor size", c.size, "AWG/kcmil");
       let I: number | undefined;
       let V: number | undefined;
+      const phases = cur.ok ? (cur.value.phases ?? 1) : 1;
+      const side = cur.ok ? cur.value.side : "dc";
       if (cur.ok) {
         I = cur.value.operatingCurrentA;
         V = cur.value.operatingVoltageV;
@@ -55,7 +64,7 @@ export const voltageDrop: CheckDefinition = {
         out.push(needsInput(this, { subject: c.tag, inputs: t.inputs, missing: t.missing.length ? t.missing : [`${ci.path}.size`], codeRefs, ...(cur.ok ? {} : { reason: cur.reason }) }));
         continue;
       }
-      const dropV = voltageDropV(len, r, I, c.parallelSets);
+      const dropV = voltageDropV(len, r, I, c.parallelSets, phases);
       const pct = (dropV / V) * 100;
       pctByCircuit.set(c.tag, pct);
       const over = pct > limit;
@@ -71,12 +80,13 @@ export const voltageDrop: CheckDefinition = {
           values: [
             v("resistanceOhmPerKft", `Resistance of ${size} ${c.material}`, r, "Ω/kft"),
             v("currentA", "Operating current", I, "A"),
-            v("voltageV", "Operating voltage", V, "V"),
+            v("voltageV", phases === 3 ? "Operating voltage, line to line" : "Operating voltage", V, "V"),
+            v("phases", "Phases", side === "dc" ? "DC" : phases, ""),
             v("dropV", "Voltage drop", dropV, "V"),
             v("dropPct", "Voltage drop", pct, "%"),
             v("limitPct", "Limit", limit, "%"),
           ],
-          formula: `2 × ${len} ft × ${r} Ω/kft × ${I.toFixed(2)} A ÷ 1000${c.parallelSets > 1 ? ` ÷ ${c.parallelSets} sets` : ""} = ${dropV.toFixed(3)} V; ÷ ${V.toFixed(1)} V = ${pct.toFixed(2)} %`,
+          formula: `${phases === 3 ? "√3" : "2"} × ${len} ft × ${r} Ω/kft × ${I.toFixed(2)} A ÷ 1000${c.parallelSets > 1 ? ` ÷ ${c.parallelSets} sets` : ""} = ${dropV.toFixed(3)} V; ÷ ${V.toFixed(1)} V = ${pct.toFixed(2)} %`,
           inputs: t.inputs,
           codeRefs,
         }),

@@ -35,6 +35,8 @@ export interface CircuitCurrent {
   /** Highest voltage of the circuit, for device voltage ratings. */
   maxVoltageV?: number;
   side: "dc" | "ac";
+  /** AC circuits: 1 (single or split phase) or 3; the voltage is then line to line. */
+  phases?: 1 | 3;
   basis: string;
   codeRefs: string[];
 }
@@ -71,6 +73,33 @@ function acVoltage(inv: Inverter): number | undefined {
   if (inv.acOutput === undefined) return undefined;
   // Line-to-line of a split or wye output: the figure its power divides by.
   return { "120": 120, "240": 240, "120/240": 240, "208": 208, "277/480": 480 }[inv.acOutput];
+}
+
+/**
+ * Phases of an AC circuit: its own field, else the inverter's or generator's at its ends, else single
+ * phase (for the same power, single phase gives the larger current and drop, so the guess errs safe).
+ */
+export function circuitPhases(ctx: CheckContext, ci: Indexed<Circuit>, t: Trace): 1 | 3 {
+  const own = t.read(`${ci.path}.phases`, "Phases", ci.item.phases);
+  if (own !== undefined) return own;
+  const inverter = endpoint(ctx, ci.item, isInverter) as Indexed<Inverter> | undefined;
+  if (inverter) {
+    return t.read(`${inverter.path}.acOutputPhases`, `AC output phases of ${inverter.item.tag}`, inverter.item.acOutputPhases) === 3 ? 3 : 1;
+  }
+  const gen = endpoint(ctx, ci.item, kindIs("generator"));
+  if (gen) return t.read(`${gen.path}.phases`, `Phases of ${gen.item.tag}`, gen.item.phases) === 3 ? 3 : 1;
+  return 1;
+}
+
+/** Line current from power: P ÷ V single phase, P ÷ (√3 × V line to line) three phase. */
+export function currentFromPowerA(watts: number, voltageV: number, phases: 1 | 3): number {
+  return phases === 3 ? watts / (Math.sqrt(3) * voltageV) : watts / voltageV;
+}
+
+function powerFormula(watts: number, voltageV: number, phases: 1 | 3, currentA: number): string {
+  return phases === 3
+    ? `${watts} W ÷ (√3 × ${voltageV} V line to line) = ${currentA.toFixed(1)} A`
+    : `${watts} W ÷ ${voltageV} V = ${currentA.toFixed(1)} A`;
 }
 
 function fail(reason: string, t: Trace): Derived<CircuitCurrent> {
@@ -220,13 +249,14 @@ function computeCircuitCurrent(ctx: CheckContext, ci: Indexed<Circuit>): Derived
     let currentA = design;
     let formula = design !== undefined ? `design current ${design} A` : "";
     let voltage: number | undefined;
+    const phases = circuitPhases(ctx, ci, t);
     if (inverter) {
       const e = inverter.item;
       voltage = acVoltage(e);
       t.read(`${inverter.path}.acOutputVoltageV`, `AC output voltage of ${e.tag}`, voltage, "V");
       const plate = t.read(`${inverter.path}.maxAcOutputCurrentA`, `Maximum AC output current of ${e.tag}`, e.maxAcOutputCurrentA, "A");
       const w = t.read(`${inverter.path}.continuousW`, `Continuous output of ${e.tag}`, e.continuousW, "W");
-      const fromW = w !== undefined && voltage !== undefined ? w / voltage : undefined;
+      const fromW = w !== undefined && voltage !== undefined ? currentFromPowerA(w, voltage, phases) : undefined;
       const derived = plate ?? fromW;
       if (derived === undefined && design === undefined) {
         t.need(`${inverter.path}.maxAcOutputCurrentA`, `Maximum AC output current of ${e.tag}`, undefined, "A");
@@ -234,7 +264,7 @@ function computeCircuitCurrent(ctx: CheckContext, ci: Indexed<Circuit>): Derived
       }
       if (derived !== undefined && (currentA === undefined || derived > currentA)) {
         currentA = derived;
-        formula = plate !== undefined ? `inverter ${e.tag} maximum continuous output ${plate} A` : `${w} W ÷ ${voltage} V = ${fromW!.toFixed(1)} A`;
+        formula = plate !== undefined ? `inverter ${e.tag} maximum continuous output ${plate} A` : powerFormula(w!, voltage!, phases, fromW!);
       }
     }
     values.push(v("currentA", "Continuous output current", currentA!, "A"));
@@ -246,6 +276,7 @@ function computeCircuitCurrent(ctx: CheckContext, ci: Indexed<Circuit>): Derived
         operatingCurrentA: currentA!,
         ...(voltage !== undefined ? { operatingVoltageV: voltage, maxVoltageV: voltage } : {}),
         side: "ac",
+        phases,
         basis: "the inverter's continuous output current",
         codeRefs: [localRef(ed, "inverter-output-current")],
       },
@@ -261,14 +292,15 @@ function computeCircuitCurrent(ctx: CheckContext, ci: Indexed<Circuit>): Derived
     let currentA = design;
     let formula = design !== undefined ? `design current ${design} A` : "";
     let voltage: number | undefined;
+    const phases = circuitPhases(ctx, ci, t);
     if (gen) {
       const kw = t.need(`${gen.path}.ratedKW`, `Rating of ${gen.item.tag}`, gen.item.ratedKW, "kW");
       voltage = t.need(`${gen.path}.voltageV`, `Voltage of ${gen.item.tag}`, gen.item.voltageV, "V");
       if (kw !== undefined && voltage !== undefined) {
-        const fromPlate = (kw * 1000) / voltage;
+        const fromPlate = currentFromPowerA(kw * 1000, voltage, phases);
         if (currentA === undefined || fromPlate > currentA) {
           currentA = fromPlate;
-          formula = `${kw} kW × 1000 ÷ ${voltage} V = ${fromPlate.toFixed(1)} A`;
+          formula = powerFormula(kw * 1000, voltage, phases, fromPlate);
         }
       }
     } else if (design === undefined) {
@@ -284,6 +316,7 @@ function computeCircuitCurrent(ctx: CheckContext, ci: Indexed<Circuit>): Derived
         operatingCurrentA: currentA,
         ...(voltage !== undefined ? { operatingVoltageV: voltage, maxVoltageV: voltage } : {}),
         side: "ac",
+        phases,
         basis: "the generator's nameplate current",
         codeRefs: [localRef(ed, "generator-conductors")],
       },
@@ -302,6 +335,7 @@ function computeCircuitCurrent(ctx: CheckContext, ci: Indexed<Circuit>): Derived
     return fail("an AC branch circuit needs its load current", t);
   }
   const inverter = endpoint(ctx, c, isInverter) as Indexed<Inverter> | undefined;
+  const phases = circuitPhases(ctx, ci, t);
   const voltage =
     t.read(`${ci.path}.nominalVoltageV`, "Nominal voltage", c.nominalVoltageV, "V") ?? (inverter ? acVoltage(inverter.item) : undefined);
   values.push(v("currentA", "Load current (taken as continuous)", currentA, "A"));
@@ -313,6 +347,7 @@ function computeCircuitCurrent(ctx: CheckContext, ci: Indexed<Circuit>): Derived
       operatingCurrentA: currentA,
       ...(voltage !== undefined ? { operatingVoltageV: voltage, maxVoltageV: voltage } : {}),
       side: "ac",
+      phases,
       basis: "the load current, taken as continuous",
       codeRefs: [localRef(ed, "branch-conductors")],
     },

@@ -14,7 +14,16 @@ import { conductorProtectedBy, largestStandardRatingA, nextStandardRatingA, reme
  * current and only the conductor is short; lowers it to a standard rating the conductor allows when that still
  * covers the current; otherwise sizes the device from the current and the conductor from the device.
  */
-export function ocpdRemedy(ctx: CheckContext, ci: Indexed<Circuit>, dev: Indexed<Equipment>, kind: OcpdKind, ratingA: number, minA: number): Remedy {
+export function ocpdRemedy(
+  ctx: CheckContext,
+  ci: Indexed<Circuit>,
+  dev: Indexed<Equipment>,
+  kind: OcpdKind,
+  ratingA: number,
+  minA: number,
+  /** The module's maximum series fuse rating, where the device protects a string (110.3(B), 690.9). */
+  seriesFuseA?: number,
+): Remedy {
   const c = ci.item;
   const ed = ctx.edition;
   const amp = conductorAmpacity(ctx, ci);
@@ -23,6 +32,9 @@ export function ocpdRemedy(ctx: CheckContext, ci: Indexed<Circuit>, dev: Indexed
   const nextUp = nextStandardRatingA(ed, kind, minA);
   if (nextUp === undefined) return remedy(`No standard ${kind} of 240.6(A) reaches ${minA.toFixed(1)} A: split the circuit or use a device of an engineered rating.`);
   const ratingPath = `${dev.path}.ratingA`;
+  if (seriesFuseA !== undefined && nextUp > seriesFuseA) {
+    return remedy(`No standard ${kind} lies between ${minA.toFixed(1)} A and the module's ${seriesFuseA} A series fuse rating: use modules with a higher series fuse rating.`);
+  }
   // A device that already covers the current and is a standard rating stays; else the next standard rating up.
   const isStandard = nextStandardRatingA(ed, kind, ratingA) === ratingA;
   let target = ratingA >= minA && isStandard ? ratingA : nextUp;
@@ -31,6 +43,8 @@ export function ocpdRemedy(ctx: CheckContext, ci: Indexed<Circuit>, dev: Indexed
     const lower = largestStandardRatingA(ed, kind, Math.min(target, amp.value.allowedA));
     if (lower !== undefined && lower >= minA && fits(lower)) target = lower;
   }
+  // The module's series fuse rating caps the device; nextUp fits under it (checked above).
+  if (seriesFuseA !== undefined && target > seriesFuseA) target = largestStandardRatingA(ed, kind, seriesFuseA) ?? nextUp;
   const changes: RemedyChange[] = [];
   const lines: string[] = [];
   if (target !== ratingA) {

@@ -41,7 +41,7 @@ export function linkAttachmentToEquipment(ctx: ServiceContext, id: string, equip
       .where(and(eq(attachments.id, row.id), eq(attachments.orgId, ctx.orgId)))
       .returning()
       .get();
-    audit(tx, ctx, "attachment.linked", "attachment", row.id, { from: row.equipmentTag, to: tag });
+    audit(tx, ctx, "attachment.linked", "attachment", row.id, { projectId: row.projectId, from: row.equipmentTag, to: tag });
     return next;
   });
   return toView(updated, null, revisionsUsing(ctx).get(row.id) ?? []);

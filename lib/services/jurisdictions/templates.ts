@@ -5,7 +5,7 @@ import { runChecks } from "../../compliance";
 import { requiredLabels } from "../../compliance/labels";
 import { SHEET_PLAN } from "../../packet/model";
 import { renderPacketPdf } from "../../packet/pdf";
-import { loadTemplateSource, validateTemplate } from "../../packet/templates";
+import { loadTemplateSource, TemplateError, validateTemplate } from "../../packet/templates";
 import { SHEET_TEMPLATE_NAMES, type SheetTemplateName } from "../../packet/types";
 import type { ProjectRecord } from "../../schemas/project-record";
 import { audit, requirePermission, type ServiceContext } from "../context";
@@ -135,14 +135,21 @@ export async function previewSheetTemplate(ctx: ServiceContext, jurisdictionId: 
     },
   };
   const run = runChecks(record);
-  const pdf = await renderPacketPdf({
-    record,
-    run,
-    labels: requiredLabels(record, run.edition),
-    revision: { number: 0, createdAt: new Date().toISOString(), preparedBy: ctx.user.name, organisation: currentOrganisation(ctx)?.name ?? "" },
-    datasheets: [],
-    templateOverrides: { ...overridesOf(row), [name]: normalised },
-  });
+  let pdf: Awaited<ReturnType<typeof renderPacketPdf>>;
+  try {
+    pdf = await renderPacketPdf({
+      record,
+      run,
+      labels: requiredLabels(record, run.edition),
+      revision: { number: 0, createdAt: new Date().toISOString(), preparedBy: ctx.user.name, organisation: currentOrganisation(ctx)?.name ?? "" },
+      datasheets: [],
+      templateOverrides: { ...overridesOf(row), [name]: normalised },
+    });
+  } catch (error) {
+    // Each sheet renders within TEMPLATE_LIMITS (loop count, output, time); a template past them is answered, not served.
+    if (error instanceof TemplateError) return { ok: false, line: error.line, message: error.message.replace(/^template [^,]+, line \d+:\s*/, "") };
+    throw error;
+  }
   const codes = new Set(SHEET_PLAN.filter((s) => s.template === name).map((s) => s.code));
   const sheet = pdf.sheetPages.find((s) => codes.has(s.sheet));
   if (!sheet) throw new Error(`the packet has no sheet drawn from the ${name} template`);

@@ -1,6 +1,7 @@
 import { and, desc, eq, sql } from "drizzle-orm";
 import { circuits, jurisdictions, projects } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";
+import { afterCursor, pageSize, toPage, type Page, type PageRequest } from "../page";
 
 export interface ProjectListRow {
   id: string;
@@ -15,9 +16,11 @@ export interface ProjectListRow {
   updatedAt: string;
 }
 
-export function listProjects(ctx: ServiceContext): ProjectListRow[] {
+/** The organisation's projects, most recently updated first, one page at a time. */
+export function listProjects(ctx: ServiceContext, request: PageRequest = {}): Page<ProjectListRow> {
   requirePermission(ctx, "project:read", "list projects");
-  return ctx.db
+  const limit = pageSize(request);
+  const rows = ctx.db
     .select({
       id: projects.id,
       name: projects.name,
@@ -32,7 +35,9 @@ export function listProjects(ctx: ServiceContext): ProjectListRow[] {
     })
     .from(projects)
     .leftJoin(jurisdictions, and(eq(jurisdictions.id, projects.jurisdictionId), eq(jurisdictions.orgId, ctx.orgId)))
-    .where(eq(projects.orgId, ctx.orgId))
-    .orderBy(desc(projects.updatedAt))
+    .where(and(eq(projects.orgId, ctx.orgId), afterCursor(request, projects.updatedAt, projects.id)))
+    .orderBy(desc(projects.updatedAt), desc(projects.id))
+    .limit(limit + 1)
     .all();
+  return toPage(rows, limit, (r) => [r.updatedAt, r.id]);
 }

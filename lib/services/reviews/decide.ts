@@ -5,8 +5,9 @@ import { deliverQueued, queueEmail } from "../../email/outbox";
 import { formatIssues } from "../../schemas/fields";
 import { reviewDecisionSchema, type ReviewNoteInput } from "../../schemas/review";
 import { audit, requirePermission, type ServiceContext } from "../context";
-import { conflict, invalid, type FieldIssue } from "../errors";
+import { conflict, invalid, ServiceError, type FieldIssue } from "../errors";
 import { dispatchRevisionWorker } from "../revisions/dispatch";
+import { independenceRefusal, licenceCoverageRefusal } from "./independence";
 import {
   deliverAfterCommit,
   findOwnLicence,
@@ -68,6 +69,8 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
     const what = row.reviewState === "draft" ? "has not been sent for review" : row.reviewState === "returned" ? "was already returned" : "is already approved";
     throw conflict(`Revision ${row.number} ${what}; there is nothing to decide.`);
   }
+  const independence = independenceRefusal(ctx, row, project);
+  if (independence) throw new ServiceError("forbidden", independence);
   const run = snapshotRun(row);
   checkNoteTargets(notes, run ? new Set(run.results.map((r) => r.id)) : new Set());
 
@@ -91,6 +94,8 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
         { path: "licence.expiresOn", message: `is in the past (${licence.expiresOn})` },
       ]);
     }
+    const coverage = licenceCoverageRefusal(ctx, licence, project);
+    if (coverage) throw invalid(coverage, [{ path: "licence.region", message: "does not cover the project's jurisdiction" }]);
     if (!stampView(ctx.db, ctx.orgId, licence.stampAttachmentId)) {
       throw invalid("Upload your stamp image before approving: it is printed on every page of the approved packet.", [{ path: "licence.stamp", message: "is not on file" }]);
     }

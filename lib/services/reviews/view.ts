@@ -8,7 +8,8 @@ import { ServiceError } from "../errors";
 import { getProjectRecord } from "../projects/get-record";
 import { listRevisionReviews, type ReviewEntry } from "./history";
 import { toLicenceView, type LicenceView } from "./licence";
-import { findRevisionForReview, PACKET_SHEETS, snapshotIntact, snapshotRun } from "./shared";
+import { independenceRefusal, licenceCoverageRefusal } from "./independence";
+import { findOwnLicence, findRevisionForReview, PACKET_SHEETS, snapshotIntact, snapshotRun } from "./shared";
 
 export type ReviewCheck = Pick<CheckResult, "id" | "checkId" | "title" | "status" | "message" | "values" | "formula" | "codeRefs"> & {
   subject: string | null;
@@ -47,6 +48,10 @@ export interface ReviewWorkspace {
   /** The actor's own licence when they review; null otherwise or before they have recorded one. */
   licence: LicenceView | null;
   mayDecide: boolean;
+  /** Why the actor may not decide this revision at all (they took part in the work), or null. */
+  decisionRefusal: string | null;
+  /** Why the actor's licence does not cover the project's jurisdiction, or null; it blocks approval only. */
+  licenceCoverage: string | null;
   maySend: boolean;
 }
 
@@ -85,6 +90,10 @@ export function getReviewWorkspace(ctx: ServiceContext, revisionId: string, opti
     : undefined;
   const hasPdf = row.state === "ready" && Boolean(row.pdfPath);
   const reviewer = can(ctx.roles, "review:decide");
+  const open = row.state === "ready" && row.reviewState === "in-review";
+  const decisionRefusal = reviewer && open ? independenceRefusal(ctx, row, project) : null;
+  const ownLicence = reviewer && open ? findOwnLicence(ctx) : undefined;
+  const licenceCoverage = ownLicence ? licenceCoverageRefusal(ctx, ownLicence, project) : null;
   return {
     revision: {
       id: row.id,
@@ -118,7 +127,9 @@ export function getReviewWorkspace(ctx: ServiceContext, revisionId: string, opti
     recordChangedSince,
     history: listRevisionReviews(ctx, row.id),
     licence: reviewer && can(ctx.roles, "licence:edit-own") ? toLicenceView(ctx, options.now) : null,
-    mayDecide: reviewer && row.state === "ready" && row.reviewState === "in-review",
+    mayDecide: reviewer && open && decisionRefusal === null,
+    decisionRefusal,
+    licenceCoverage,
     maySend: can(ctx.roles, "review:send") && row.state === "ready" && (row.reviewState === "draft" || row.reviewState === "returned"),
   };
 }

@@ -1,6 +1,7 @@
 import { and, desc, eq, inArray } from "drizzle-orm";
 import { jurisdictions, packetRevisions, projects, submissions } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";
+import { afterCursor, pageSize, toPage, type Page, type PageRequest } from "../page";
 
 export interface RevisionQueueRow {
   revisionId: string;
@@ -60,9 +61,11 @@ export interface SubmissionQueueRow {
   createdAt: string;
 }
 
-export function listSubmissions(ctx: ServiceContext): SubmissionQueueRow[] {
+/** The organisation's submissions, newest first, one page at a time. */
+export function listSubmissions(ctx: ServiceContext, request: PageRequest = {}): Page<SubmissionQueueRow> {
   requirePermission(ctx, "submission:read", "read submissions");
-  return ctx.db
+  const limit = pageSize(request);
+  const rows = ctx.db
     .select({
       submissionId: submissions.id,
       projectId: projects.id,
@@ -78,7 +81,9 @@ export function listSubmissions(ctx: ServiceContext): SubmissionQueueRow[] {
     .innerJoin(projects, eq(projects.id, submissions.projectId))
     .innerJoin(jurisdictions, eq(jurisdictions.id, submissions.jurisdictionId))
     .innerJoin(packetRevisions, eq(packetRevisions.id, submissions.revisionId))
-    .where(eq(submissions.orgId, ctx.orgId))
-    .orderBy(desc(submissions.createdAt))
+    .where(and(eq(submissions.orgId, ctx.orgId), afterCursor(request, submissions.createdAt, submissions.id)))
+    .orderBy(desc(submissions.createdAt), desc(submissions.id))
+    .limit(limit + 1)
     .all();
+  return toPage(rows, limit, (r) => [r.createdAt, r.submissionId]);
 }

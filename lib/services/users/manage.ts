@@ -2,9 +2,23 @@ import { and, eq, sql } from "drizzle-orm";
 import { userRoles, users } from "../../../db/schema";
 import { formatIssues } from "../../schemas/fields";
 import { newUserSchema, setActiveSchema, setRolesSchema } from "../../schemas/users";
+import type { Role } from "../../auth/roles";
 import { hashPassword } from "../auth/verify-credentials";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid, notFound } from "../errors";
+
+/**
+ * Which roles a change granted and revoked, and who did it, by name as well
+ * as by the audit row's user id: a reviewer who was granted a second role is
+ * traced to the person who granted it even after an account is renamed.
+ */
+function roleChange(before: readonly Role[], after: readonly Role[], ctx: ServiceContext) {
+  return {
+    granted: after.filter((r, i) => !before.includes(r) && after.indexOf(r) === i),
+    revoked: before.filter((r) => !after.includes(r)),
+    grantedBy: { id: ctx.user.id, name: ctx.user.name, email: ctx.user.email },
+  };
+}
 
 function findUserInOrg(ctx: ServiceContext, userId: string) {
   const user = ctx.db.select().from(users).where(and(eq(users.id, userId), eq(users.orgId, ctx.orgId))).get();
@@ -23,7 +37,7 @@ export async function addUser(ctx: ServiceContext, input: unknown): Promise<{ id
   return ctx.db.transaction((tx) => {
     const row = tx.insert(users).values({ orgId: ctx.orgId, name, email, passwordHash }).returning({ id: users.id }).get();
     tx.insert(userRoles).values(roles.map((role) => ({ userId: row.id, role }))).run();
-    audit(tx, ctx, "user.added", "user", row.id, { email, roles });
+    audit(tx, ctx, "user.added", "user", row.id, { email, roles, ...roleChange([], roles, ctx) });
     return row;
   });
 }
@@ -45,9 +59,10 @@ export function setUserRoles(ctx: ServiceContext, input: unknown): void {
       .where(and(eq(users.id, user.id), eq(users.version, version)))
       .run();
     if (bumped.changes === 0) throw conflict("This user was changed by someone else. Reload and try again.");
+    const before = tx.select({ role: userRoles.role }).from(userRoles).where(eq(userRoles.userId, user.id)).all().map((r) => r.role);
     tx.delete(userRoles).where(eq(userRoles.userId, user.id)).run();
     tx.insert(userRoles).values([...new Set(roles)].map((role) => ({ userId: user.id, role }))).run();
-    audit(tx, ctx, "user.roles-set", "user", user.id, { roles });
+    audit(tx, ctx, "user.roles-set", "user", user.id, { roles, ...roleChange(before, roles, ctx) });
   });
 }
 

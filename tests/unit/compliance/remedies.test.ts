@@ -82,6 +82,17 @@ describe("remedies on the demo mistakes", () => {
     expect(r.after.status).toBe("pass");
   });
 
+  it("a string fuse above the module's series fuse rating is lowered to the standard rating under it", () => {
+    const farm = exampleJson("ferncliff-farmhouse");
+    farm.equipment.push({ tag: "F-9", kind: "fuse", ratingA: 30, voltageRatingV: 600, currentType: "dc", interruptingRatingA: 20000 });
+    circuit(farm, "C-1").ocpdTag = "F-9";
+    // 1.25 × 1.25 × 13.85 A = 21.6 A → 25 A (NEC 2023 240.6(A)), which is also the module's 25 A series fuse rating (110.3(B)).
+    const r = afterRemedy(farm, "overcurrent-protection:C-1");
+    expect(r.before.status).toBe("fail");
+    expect(r.remedy.changes).toEqual([{ path: `equipment.${farm.equipment.length - 1}.ratingA`, value: 25 }]);
+    expect(r.after.status).toBe("pass");
+  });
+
   it("an EGC below Table 250.122 is raised to the table size", () => {
     const hut = exampleJson("tamarack-hut");
     circuit(hut, "C-5").egcSize = "14";

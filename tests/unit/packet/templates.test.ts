@@ -1,7 +1,8 @@
 import fs from "node:fs";
 import { describe, expect, it } from "vitest";
 import { parseMarkup } from "@/lib/packet/markup";
-import { SHEET_PLAN, templateContext } from "@/lib/packet/model";
+import { templateContext } from "@/lib/packet/context";
+import { SHEET_PLAN } from "@/lib/packet/model";
 import { DEFAULT_TEMPLATE_DIR, TEMPLATE_CONTEXT_SHAPE, renderSheetTemplate, validateTemplate, type Shape } from "@/lib/packet/templates";
 import { SHEET_TEMPLATE_NAMES } from "@/lib/packet/types";
 import { fixtureInput } from "./fixtures";

@@ -85,10 +85,55 @@ export function makeBrokenPng(): Uint8Array {
  * The smallest JPEG structure a reader needs for its size: SOI, a baseline
  * SOF0 segment (ITU-T T.81 B.2.2: 8-bit, 1 × 1, three components), EOI.
  */
-export function makeJpeg(): Uint8Array {
+export function makeJpeg(width = 1, height = 1): Uint8Array {
   return new Uint8Array([
-    0xff, 0xd8, 0xff, 0xc0, 0x00, 0x11, 0x08, 0x00, 0x01, 0x00, 0x01, 0x03, 0x01, 0x22, 0x00, 0x02, 0x11, 0x01, 0x03, 0x11, 0x01, 0xff, 0xd9,
+    0xff, 0xd8, 0xff, 0xc0, 0x00, 0x11, 0x08, height >> 8, height & 0xff, width >> 8, width & 0xff, 0x03, 0x01, 0x22, 0x00, 0x02, 0x11, 0x01, 0x03, 0x11, 0x01, 0xff, 0xd9,
   ]);
+}
+
+/** A JPEG that opens with an APP0 (JFIF) segment before its frame header, as cameras and editors write them. */
+export function makeJfif(width: number, height: number): Uint8Array {
+  const app0 = [0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01, 0x01, 0x00, 0x00, 0x01, 0x00, 0x01, 0x00, 0x00];
+  const rest = makeJpeg(width, height).slice(2);
+  return new Uint8Array([0xff, 0xd8, ...app0, ...rest]);
+}
+
+/**
+ * A decompression bomb: a valid 1-bit greyscale PNG of width × height pixels,
+ * all black, which deflates to a few tens of kilobytes but decodes to
+ * width × height × 4 bytes of RGBA.
+ */
+export function makePngBomb(width: number, height: number): Uint8Array {
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(width, 0);
+  ihdr.writeUInt32BE(height, 4);
+  ihdr[8] = 1; // bit depth
+  ihdr[9] = 0; // colour type: greyscale
+  const rowBytes = 1 + Math.ceil(width / 8);
+  return new Uint8Array(
+    Buffer.concat([
+      Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+      pngChunk("IHDR", ihdr),
+      pngChunk("IDAT", deflateSync(Buffer.alloc(rowBytes * height), { level: 9 })),
+      pngChunk("IEND", new Uint8Array(0)),
+    ]),
+  );
+}
+
+/**
+ * A real PDF carrying one extra object stream (ISO 32000-1 §7.5.7) whose Flate
+ * data inflates to `inflatedBytes` of spaces: a few kilobytes on disk.
+ */
+export async function makePdfBomb(inflatedBytes: number): Promise<Uint8Array> {
+  const text = latin1(await makePdf(1, "Datasheet"));
+  const data = deflateSync(Buffer.alloc(inflatedBytes, 0x20), { level: 9 });
+  const object = Buffer.concat([
+    Buffer.from(`99 0 obj\n<< /Type /ObjStm /N 1 /First 4 /Filter /FlateDecode /Length ${data.length} >>\nstream\n`, "latin1"),
+    data,
+    Buffer.from("\nendstream\nendobj\n", "latin1"),
+  ]);
+  const at = text.indexOf("\n", text.indexOf("%PDF-")) + 1;
+  return new Uint8Array(Buffer.concat([Buffer.from(text.slice(0, at), "latin1"), object, Buffer.from(text.slice(at), "latin1")]));
 }
 
 /** The start of an HEIC photo as phones write it (ISO/IEC 23008-12 'ftyp' box, brand heic). */

@@ -117,6 +117,11 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
           Its stored record no longer validates; the revision&apos;s own snapshot is unaffected.
         </Notice>
       ) : null}
+      {ws.decisionRefusal ? (
+        <Notice tone="signal" title="You cannot decide this revision">
+          {ws.decisionRefusal}
+        </Notice>
+      ) : null}
       {rev.reviewState === "draft" ? (
         <Notice tone="caution" title="Not sent for review">
           The designer has not sent this revision for review yet.
@@ -196,6 +201,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
             mayDecide={ws.mayDecide}
             approveRefusals={[
               ...(ws.snapshotIntact ? [] : ["the revision's frozen record no longer matches its SHA-256"]),
+              ...(ws.licenceCoverage ? [ws.licenceCoverage] : []),
               ...(rev.isDraft ? ["this revision is a draft (its cover lists what fails or is missing), so it can only be returned"] : []),
             ]}
             reviewerName={ctx.user.name}

@@ -1,6 +1,6 @@
 import { NextResponse } from "next/server";
 import { requireContext } from "@/lib/auth/session";
-import { handle } from "@/lib/http";
+import { handle, readJson } from "@/lib/http";
 import { retireLibraryItem } from "@/lib/services/library/retire";
 import { versionedBody } from "../../versioned-body";
 
@@ -8,6 +8,9 @@ import { versionedBody } from "../../versioned-body";
 export const POST = handle(async (request: Request, { params }: { params: Promise<{ id: string }> }) => {
   const ctx = await requireContext();
   const { id } = await params;
-  const { version } = versionedBody(await request.json().catch(() => ({})));
+  // The body is optional ({ version }); a missing or malformed one means "whatever version is current".
+  const body = await readJson(request, { maxBytes: 4 * 1024 });
+  if (!body.ok && body.response.status === 413) return body.response;
+  const { version } = versionedBody(body.ok ? body.body : {});
   return NextResponse.json({ item: retireLibraryItem(ctx, id, version) });
 });

@@ -3,7 +3,12 @@ import { requireContext } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import { errorResponse } from "@/lib/http";
 import { uploadStampImage, UploadRefusedError } from "@/lib/services/reviews";
+import { requirePermission } from "@/lib/services/context";
 import { formatBytes } from "@/lib/uploads/format-bytes";
+import { BodyTooLargeError, readFormDataLimited } from "@/lib/uploads/limited-body";
+
+/** Room for the multipart boundaries around the image. */
+const MULTIPART_OVERHEAD_BYTES = 64 * 1024;
 
 function refusal(status: number, message: string, reason: string) {
   return NextResponse.json({ error: message, code: "upload-refused", reason, issues: [] }, { status });
@@ -13,14 +18,18 @@ function refusal(status: number, message: string, reason: string) {
 export async function POST(request: Request): Promise<Response> {
   try {
     const ctx = await requireContext();
+    // Who may keep a stamp is known before a byte of the body is read.
+    requirePermission(ctx, "licence:edit-own", "keep a licence record");
+    requirePermission(ctx, "attachment:upload", "attach files");
     const maxBytes = env().UPLOAD_MAX_BYTES;
     if (!(request.headers.get("content-type") ?? "").toLowerCase().startsWith("multipart/form-data")) {
       return refusal(400, "Send the stamp image as multipart/form-data under “file”.", "missing-field");
     }
     let form: FormData;
     try {
-      form = await request.formData();
-    } catch {
+      form = await readFormDataLimited(request, maxBytes + MULTIPART_OVERHEAD_BYTES);
+    } catch (error) {
+      if (error instanceof BodyTooLargeError) return refusal(413, `The image is larger than the largest file accepted, ${formatBytes(maxBytes)}.`, "too-large");
       return refusal(400, "The upload arrived incomplete and could not be read. Try again.", "missing-field");
     }
     const file = form.get("file");

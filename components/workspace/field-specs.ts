@@ -1,0 +1,125 @@
+/**
+ * The project and site fields of the editor with their labels, units and
+ * help: what the form draws and what a message calls a field.
+ */
+import { BATTERY_LOCATIONS } from "@/lib/schemas/project-record";
+import type { FieldControlProps, Option } from "./field-control";
+
+const SYSTEM_KIND_OPTIONS: Option[] = [
+  { value: "stand-alone", label: "Stand-alone" },
+  { value: "stand-alone-generator", label: "Stand-alone with generator" },
+  { value: "hybrid", label: "Hybrid / grid-interactive" },
+];
+
+const OCCUPANCY_OPTIONS: Option[] = [
+  { value: "one-two-family-dwelling", label: "One- and two-family dwelling" },
+  { value: "other-building", label: "Other building" },
+];
+
+const MOUNTING_OPTIONS: Option[] = [
+  { value: "ground", label: "Ground mount" },
+  { value: "roof", label: "Roof mount" },
+];
+
+const RAPID_SHUTDOWN_OPTIONS: Option[] = [
+  { value: "module-level", label: "Module-level" },
+  { value: "array-boundary", label: "Array boundary" },
+  { value: "listed-pv-hazard-control", label: "Listed PV hazard control system" },
+  { value: "none", label: "None" },
+];
+
+const BATTERY_LOCATION_OPTIONS: Option[] = BATTERY_LOCATIONS.map((v) => ({ value: v, label: v.replace(/-/g, " ") }));
+
+export type FieldSpec = Pick<FieldControlProps, "path" | "label" | "type" | "options" | "required"> & { unit?: string; help?: string; wide?: boolean };
+
+export const PROJECT_FIELDS: FieldSpec[] = [
+  { path: "name", label: "Project name", type: "text", required: true },
+  { path: "client", label: "Client", type: "text" },
+  { path: "systemKind", label: "System kind", type: "select", options: SYSTEM_KIND_OPTIONS, required: true },
+  {
+    path: "daysOfAutonomy",
+    label: "Days of autonomy",
+    unit: "days",
+    type: "number",
+    help: "Days the batteries carry the loads without sun; two to three by common practice for stand-alone systems.",
+  },
+  {
+    path: "rapidShutdownMethod",
+    label: "Rapid-shutdown method",
+    type: "select",
+    options: RAPID_SHUTDOWN_OPTIONS,
+    help: "Needed where PV circuits run on or in a building (690.12).",
+  },
+];
+
+export const SITE_FIELDS: FieldSpec[] = [
+  { path: "site.address", label: "Site address", type: "text", wide: true },
+  {
+    path: "site.occupancy",
+    label: "Occupancy",
+    type: "select",
+    options: OCCUPANCY_OPTIONS,
+    required: true,
+    help: "One- and two-family dwellings limit PV system voltage to 600 V (690.7).",
+  },
+  { path: "site.mounting", label: "Mounting", type: "select", options: MOUNTING_OPTIONS, required: true },
+  {
+    path: "site.roofClearanceIn",
+    label: "Roof clearance of raceways",
+    unit: "in",
+    type: "number",
+    help: "Height of PV raceways above the roof surface, for the rooftop temperature adder (Table 310.15(B)(2) in 2020/2023; 310.15(B)(3)(c) in 2017).",
+  },
+  {
+    path: "site.designLowTempC",
+    label: "Design low temperature",
+    unit: "°C",
+    type: "number",
+    help: "Usually the extreme annual mean minimum design dry-bulb temperature for the nearest weather station in a climate-data handbook (690.7(A) informational note). Allowed −60 … +70 °C.",
+  },
+  {
+    path: "site.designLowTempSource",
+    label: "Source of the low temperature",
+    type: "text",
+    help: "Name the station, the table and its edition, so the reviewer can trace the figure.",
+  },
+  {
+    path: "site.designHighTempC",
+    label: "Design high temperature",
+    unit: "°C",
+    type: "number",
+    help: "Usually the 2 % annual design dry-bulb temperature for the nearest station from the same handbook (common practice for ampacity correction and the MPPT window). Allowed −60 … +70 °C.",
+  },
+  { path: "site.designHighTempSource", label: "Source of the high temperature", type: "text", help: "Station, table, edition." },
+  {
+    path: "site.moduleTempRiseC",
+    label: "Module temperature rise",
+    unit: "°C",
+    type: "number",
+    help: "Cell temperature above ambient at the design high; about 30 °C for rack and roof mounts by common practice, used when left empty.",
+  },
+  {
+    path: "site.sunHoursPerDay",
+    label: "Sun hours per day",
+    unit: "h",
+    type: "number",
+    help: "Peak sun hours of the worst month the system must serve (common practice), from a solar-resource map or dataset for the site.",
+  },
+  {
+    path: "site.batteryLocation",
+    label: "Battery location",
+    type: "select",
+    options: BATTERY_LOCATION_OPTIONS,
+    help: "Drives the storage siting limits (IRC R328 / R330, NFPA 855 chapter 15). Never a habitable room.",
+  },
+  { path: "site.batteryLocationNote", label: "Battery location note", type: "text" },
+  {
+    path: "site.batterySpacingIn",
+    label: "Spacing between storage units",
+    unit: "in",
+    type: "number",
+    help: "3 ft (36 in) unless large-scale fire testing supports less.",
+  },
+  { path: "site.hasSmokeOrHeatDetection", label: "Smoke or heat detection", type: "tri-state" },
+  { path: "site.hasVehicleImpactProtection", label: "Vehicle-impact protection", type: "tri-state", help: "Needed where storage stands in a garage." },
+];

@@ -1,0 +1,26 @@
+import type { Block } from "../markup";
+import type { PacketInput } from "../types";
+import { table } from "./shared";
+
+export function reviewBlocks(input: PacketInput): Block[] {
+  const notes = input.reviewNotes ?? [];
+  const blocks: Block[] = [];
+  blocks.push(
+    table(
+      [["Target", 1], ["Note", 4], ["Author", 1.2]],
+      notes.length ? notes.map((n) => [n.target, n.text, n.author]) : [["—", "No review notes on this revision.", ""]],
+      "Review notes",
+    ),
+  );
+  const open = input.run.results.filter((r) => r.status === "fail" || r.status === "needs-input" || r.status === "attest" || r.status === "warning");
+  blocks.push(
+    table(
+      [["Status", 1.1], ["Check", 3], ["Subject", 0.8], ["Code reference", 2]],
+      open.length
+        ? open.map((r) => [{ text: "", status: r.status }, r.title, r.subject ?? "—", r.codeRefs.join("; ")])
+        : [["—", "No open points.", "", ""]],
+      "Points for the reviewer (fail, needs input, warning, attest)",
+    ),
+  );
+  return blocks;
+}
