@@ -13,7 +13,11 @@ export const authConfig = {
     authorized({ auth, request }) {
       // Pages only: route handlers are outside the proxy's matcher and check the session themselves.
       if (request.nextUrl.pathname === "/sign-in") return true;
-      return Boolean(auth?.user);
+      if (auth?.user) return true;
+      // The redirect is made here rather than by returning false, because the proxy's own handler runs only for allowed requests.
+      const signIn = new URL("/sign-in", request.nextUrl);
+      signIn.searchParams.set("callbackUrl", request.nextUrl.href);
+      return Response.redirect(signIn);
     },
     jwt({ token, user }) {
       if (user) {

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import localFont from "next/font/local";
+import { connection } from "next/server";
 import "./globals.css";
 
 const plexSans = localFont({
@@ -29,7 +30,9 @@ export const metadata: Metadata = {
   description: "Code checks and permit packets for solar + battery systems",
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page is rendered per request, so Next.js can put this request's CSP nonce on its scripts (see proxy.ts).
+  await connection();
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
       <body className="min-h-screen">{children}</body>

@@ -4,7 +4,16 @@
  */
 import type { Role } from "../lib/auth/roles";
 
-export const DEMO_ORG = { name: "Quillfeather Solar Co.", slug: "quillfeather" };
+export const DEMO_ORG = {
+  name: "Quillfeather Solar Co.",
+  slug: "quillfeather",
+  licenceNumber: "EC-208417",
+  licenceClassification: "Electrical contractor",
+  licenceState: "Alder Bay",
+  phone: "555-0147",
+  email: "permits@quillfeather.test",
+  address: "12 Ropewalk Row, Alder Bay",
+};
 
 export const DEMO_USERS: { name: string; email: string; password: string; roles: Role[] }[] = [
   { name: "Dana Whitlock", email: "designer@quillfeather.test", password: "demo-designer-2026", roles: ["designer"] },

@@ -45,7 +45,7 @@ function allowedTypes(kind: AttachmentKind): string[] {
 }
 
 function targetOf(meta: { kind?: unknown; equipmentTag?: unknown }): string {
-  const kind = typeof meta.kind === "string" && meta.kind in KIND_RULES ? KIND_RULES[meta.kind as AttachmentKind].label : "File";
+  const kind = typeof meta.kind === "string" && Object.hasOwn(KIND_RULES, meta.kind) ? KIND_RULES[meta.kind as AttachmentKind].label : "File";
   return typeof meta.equipmentTag === "string" && meta.equipmentTag ? `${kind} for ${meta.equipmentTag}` : kind;
 }
 

@@ -10,7 +10,7 @@ const COMMON_PRACTICE_DAYS = 2;
 
 const INVERTER_KINDS = new Set(["inverter", "inverter-charger", "hybrid-inverter"]);
 
-// Palette of app/globals.css: slate for loads, brass for the standing idle draw,
+// Palette of app/globals.css: slate for loads, brass for the inverter's own losses (conversion, idle draw),
 // caution for a shortfall (sizing is common practice, not code, so it warns rather than fails).
 const SLATE = "#2f3e52";
 const BRASS = "#8a6a1f";
@@ -35,7 +35,7 @@ export interface LoadsChartProps {
 }
 
 /**
- * Daily energy by load (the inverter idle draw over 24 h as its own bar) and
+ * Daily energy by load (the inverter's conversion loss and idle draw over 24 h as bars of their own) and
  * usable storage against the target days of autonomy. Every figure is also in
  * the table beside its chart, so the chart is never the only way to read it.
  */
@@ -54,6 +54,9 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
     detail: `${l.watts} W${l.quantity > 1 ? ` × ${l.quantity}` : ""} × ${l.hoursPerDay} h`,
     idle: false,
   }));
+  if (s.conversionLossWh > 0) {
+    bars.push({ name: "Inverter conversion loss", wh: s.conversionLossWh, detail: `loads ÷ ${s.inverterEfficiencyPct} % efficiency`, idle: true });
+  }
   if (idleInverters.length > 0) {
     bars.push({ name: "Inverter idle, 24 h", wh: s.idleWh, detail: idleDetail, idle: true });
   }

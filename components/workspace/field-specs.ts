@@ -21,6 +21,13 @@ const MOUNTING_OPTIONS: Option[] = [
   { value: "roof", label: "Roof mount" },
 ];
 
+const INSIDE_BOUNDARY_OPTIONS: Option[] = [
+  { value: "listed-hazard-control", label: "Listed PV hazard control system" },
+  { value: "80v-in-30s", label: "80 V or less within 30 s" },
+  { value: "no-exposed-wiring", label: "No exposed wiring or conductive parts" },
+  { value: "none", label: "None" },
+];
+
 const RAPID_SHUTDOWN_OPTIONS: Option[] = [
   { value: "module-level", label: "Module-level" },
   { value: "array-boundary", label: "Array boundary" },
@@ -49,6 +56,13 @@ export const PROJECT_FIELDS: FieldSpec[] = [
     type: "select",
     options: RAPID_SHUTDOWN_OPTIONS,
     help: "Needed where PV circuits run on or in a building (690.12).",
+  },
+  {
+    path: "rapidShutdownInsideBoundary",
+    label: "Inside the array boundary",
+    type: "select",
+    options: INSIDE_BOUNDARY_OPTIONS,
+    help: "How a building-mounted array's conductors inside the boundary are controlled (690.12(B)(2)).",
   },
 ];
 
@@ -122,4 +136,10 @@ export const SITE_FIELDS: FieldSpec[] = [
   },
   { path: "site.hasSmokeOrHeatDetection", label: "Smoke or heat detection", type: "tri-state" },
   { path: "site.hasVehicleImpactProtection", label: "Vehicle-impact protection", type: "tri-state", help: "Needed where storage stands in a garage." },
+  {
+    path: "site.pvOnlyBuilding",
+    label: "PV circuits enter a PV-only building",
+    type: "tri-state",
+    help: "Yes only where the building the ground array's circuits enter houses PV equipment and nothing else (690.12 exception).",
+  },
 ];

@@ -62,6 +62,7 @@ export function circuitColumns(tags: TagLists): GridColumn[] {
     { key: "lengthFt", header: "One-way length", unit: "ft", type: "number", width: "w-20" },
     { key: "ambientTempC", header: "Ambient", unit: "°C", type: "number", width: "w-16" },
     { key: "onRooftop", header: "Rooftop", type: "checkbox", width: "w-10" },
+    { key: "entersBuilding", header: "Enters a building", type: "tri-state", width: "w-16" },
     { key: "roofClearanceIn", header: "Roof clearance", unit: "in", type: "number", width: "w-16" },
     { key: "terminalTempRatingC", header: "Terminal rating", type: "number-select", options: TEMP_OPTIONS, width: "w-20" },
     { key: "ocpdTag", header: "Protected by", type: "select", options: tags.byKinds(["fuse", "breaker"]), width: "w-28" },

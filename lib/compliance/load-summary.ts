@@ -6,6 +6,11 @@ export interface LoadSummary {
   dailyLoadWh: number;
   /** Inverter idle draw over 24 h, Wh (0 where no idle figure is recorded). */
   idleWh: number;
+  /** Efficiency the AC loads are drawn through, %: the lowest recorded among the inverters; null when none is recorded. */
+  inverterEfficiencyPct: number | null;
+  /** Energy lost converting the loads' AC energy from the battery: daily load ÷ efficiency − daily load, Wh (0 without an efficiency). */
+  conversionLossWh: number;
+  /** What the battery supplies a day: loads ÷ inverter efficiency + idle draw over 24 h, Wh. */
   dailyTotalWh: number;
   /** Σ watts × quantity of the loads that run together, W. */
   peakSimultaneousW: number;
@@ -20,6 +25,8 @@ export interface LoadSummary {
   autonomyDays: number | null;
   /** Inverters lacking an idle figure (their tags). */
   inverterIdleMissing: string[];
+  /** Inverters lacking an efficiency (their tags). */
+  inverterEfficiencyMissing: string[];
 }
 
 const INVERTER_KINDS = new Set(["inverter", "inverter-charger", "hybrid-inverter"]);
@@ -41,12 +48,18 @@ export function loadSummary(record: ProjectRecord): LoadSummary {
   peakSimultaneousW = Math.max(peakSimultaneousW, largestSingleLoadW);
   let idleWh = 0;
   const inverterIdleMissing: string[] = [];
+  const inverterEfficiencyMissing: string[] = [];
+  let efficiencyPct: number | null = null;
   let usable: number | null = 0;
   for (const e of record.equipment) {
     if (INVERTER_KINDS.has(e.kind)) {
       const idleW = (e as { idleW?: number }).idleW;
       if (idleW === undefined) inverterIdleMissing.push(e.tag);
       else idleWh += idleW * 24 * e.quantity;
+      const eff = (e as { efficiencyPct?: number }).efficiencyPct;
+      if (eff === undefined) inverterEfficiencyMissing.push(e.tag);
+      // Several inverters: the lowest efficiency, so the need is never understated.
+      else efficiencyPct = efficiencyPct === null ? eff : Math.min(efficiencyPct, eff);
     }
     if (e.kind === "battery") {
       const kwh = e.capacityKWh ?? (e.capacityAh !== undefined && e.nominalVoltageV !== undefined ? (e.capacityAh * e.nominalVoltageV) / 1000 : undefined);
@@ -54,11 +67,15 @@ export function loadSummary(record: ProjectRecord): LoadSummary {
       else usable += kwh * 1000 * e.quantity * (e.usableDodPct / 100);
     }
   }
-  const dailyTotalWh = dailyLoadWh + idleWh;
+  // The loads are AC: the battery supplies them through the inverter, so their energy is divided by its efficiency; the idle draw is already battery-side.
+  const conversionLossWh = efficiencyPct !== null ? dailyLoadWh / (efficiencyPct / 100) - dailyLoadWh : 0;
+  const dailyTotalWh = dailyLoadWh + conversionLossWh + idleWh;
   const autonomyDays = usable !== null && dailyTotalWh > 0 ? usable / dailyTotalWh : null;
   return {
     dailyLoadWh,
     idleWh,
+    inverterEfficiencyPct: efficiencyPct,
+    conversionLossWh,
     dailyTotalWh,
     peakSimultaneousW,
     largestSurgeW,
@@ -67,5 +84,6 @@ export function loadSummary(record: ProjectRecord): LoadSummary {
     usableStorageWh: usable,
     autonomyDays,
     inverterIdleMissing,
+    inverterEfficiencyMissing,
   };
 }

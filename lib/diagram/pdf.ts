@@ -6,10 +6,14 @@ import { rgb, type Color, type PDFFont, type PDFPage } from "pdf-lib";
 import type { OneLineLayout } from "./layout";
 import { PALETTE, buildScene, type Ink, type Prim } from "./scene";
 
-/** Thinnest stroke the sheet will print: below ~0.35 pt lines drop out of office printers. */
-const MIN_LINE_PT = 0.35;
-/** Smallest lettering a too-long line is shrunk to; past that it runs long rather than become unreadable. */
-const MIN_TEXT_PT = 4;
+/** Thinnest stroke the sheet will print: 0.5 pt still survives a half-size office copy. */
+const MIN_LINE_PT = 0.5;
+/**
+ * Smallest lettering on a sheet (8 pt at full size). A diagram scaled down to
+ * fit keeps its text at this size, and a too-long line runs long rather than
+ * shrink below it.
+ */
+const MIN_TEXT_PT = 8;
 
 function hexToRgb(hex: string): Color {
   const n = Number.parseInt(hex.slice(1), 16);
@@ -86,13 +90,15 @@ export function drawOneLine(
       case "text": {
         const font = p.weight === "bold" ? fonts.bold : fonts.regular;
         const text = encodable(font, p.text);
-        let size = p.size * s;
+        let size = Math.max(p.size * s, MIN_TEXT_PT);
         let width = font.widthOfTextAtSize(text, size);
         if (p.maxWidth !== undefined && width > p.maxWidth * s) {
-          size = Math.max(size * ((p.maxWidth * s) / width), Math.min(MIN_TEXT_PT, size));
+          size = Math.max(size * ((p.maxWidth * s) / width), MIN_TEXT_PT);
           width = font.widthOfTextAtSize(text, size);
         }
-        const x = p.anchor === "middle" ? X(p.x) - width / 2 : p.anchor === "end" ? X(p.x) - width : X(p.x);
+        const anchored = p.anchor === "middle" ? X(p.x) - width / 2 : p.anchor === "end" ? X(p.x) - width : X(p.x);
+        // Lettering held at the minimum in a drawing scaled below 1:1 can outgrow its place; keep it inside the box.
+        const x = Math.max(box.x + 1, Math.min(anchored, box.x + box.width - width - 4));
         page.drawText(text, { x, y: Y(p.y), size, font, color: COLOURS[p.colour] });
         break;
       }

@@ -160,7 +160,7 @@ function kindGlyph(kind: OneLineNode["kind"], x: number, y: number): Prim[] {
     case "generator":
       return [
         p(`M ${X(3)} ${Y(7)} A 7 7 0 1 0 ${X(17)} ${Y(7)} A 7 7 0 1 0 ${X(3)} ${Y(7)}`),
-        { type: "text", x: x + 10, y: y + 10, text: "G", size: 8, weight: "bold", colour: "muted", anchor: "middle" },
+        { type: "text", x: x + 10, y: y + 10, text: "G", size: 8, weight: "bold", colour: "ink", anchor: "middle" },
       ];
     case "inverter":
     case "inverter-charger":
@@ -189,7 +189,7 @@ function kindGlyph(kind: OneLineNode["kind"], x: number, y: number): Prim[] {
     case "rapid-shutdown":
       return [
         p(`M ${X(0)} ${Y(0)} L ${X(20)} ${Y(0)} L ${X(20)} ${Y(14)} L ${X(0)} ${Y(14)} Z`),
-        { type: "text", x: x + 10, y: y + 10, text: "RSD", size: 6, weight: "bold", colour: "muted", anchor: "middle" },
+        { type: "text", x: x + 10, y: y + 10, text: "RSD", size: TEXT.markSize, weight: "bold", colour: "ink", anchor: "middle" },
       ];
     case "unknown":
       return [];
@@ -204,7 +204,7 @@ function nodeGroup(n: OneLineNode): SceneGroup {
     { type: "rect", x: n.x + LINE.box / 2, y: n.y + LINE.box / 2, width: n.width - LINE.box, height: header - LINE.box / 2, fill: "band" },
     { type: "path", d: `M ${r2(n.x)} ${r2(n.y + header)} L ${r2(n.x + n.width)} ${r2(n.y + header)}`, stroke: "ink", lineWidth: LINE.rule },
     { type: "text", x: n.x + padX, y: n.y + 13, text: n.tag, size: TEXT.tagSize, weight: "bold", colour: trouble ? "trouble" : "ink", maxWidth: n.width - 2 * padX - 24 },
-    { type: "text", x: n.x + padX, y: n.y + 23.5, text: n.title, size: TEXT.titleSize, weight: "bold", colour: "muted", maxWidth: n.width - 2 * padX - 24 },
+    { type: "text", x: n.x + padX, y: n.y + 23.5, text: n.title, size: TEXT.titleSize, weight: "bold", colour: "ink", maxWidth: n.width - 2 * padX - 24 },
     ...kindGlyph(n.kind, n.x + n.width - padX - 20, n.y + 7),
   ];
   let y = n.y + header + TEXT.bodySize + 2;
@@ -243,7 +243,7 @@ function edgeGroup(e: OneLineEdge): SceneGroup {
     y += step;
   }
   for (const line of e.deviceLines) {
-    prims.push({ type: "text", x: b.x + pad, y, text: line, size: TEXT.calloutSize, weight: "regular", colour: "muted", maxWidth: inner });
+    prims.push({ type: "text", x: b.x + pad, y, text: line, size: TEXT.calloutSize, weight: "regular", colour: "ink", maxWidth: inner });
     y += step;
   }
   for (const line of e.trouble) {
@@ -267,8 +267,8 @@ function deviceMarkPrims(m: DeviceMark, withTag: boolean): Prim[] {
   if (withTag) {
     prims.push(
       m.vertical
-        ? { type: "text", x: m.x + 10, y: m.y + 2.5, text: m.tag, size: 6, weight: "regular", colour: "muted" }
-        : { type: "text", x: m.x, y: m.y + 11, text: m.tag, size: 6, weight: "regular", colour: "muted", anchor: "middle" },
+        ? { type: "text", x: m.x + 10, y: m.y + 2.5, text: m.tag, size: TEXT.markSize, weight: "regular", colour: "ink" }
+        : { type: "text", x: m.x, y: m.y + 11, text: m.tag, size: TEXT.markSize, weight: "regular", colour: "ink", anchor: "middle" },
     );
   }
   return prims;
@@ -278,7 +278,7 @@ function legendGroup(layout: OneLineLayout): SceneGroup {
   const b = layout.legend;
   const prims: Prim[] = [
     { type: "rect", x: b.x, y: b.y, width: b.width, height: b.height, fill: "paper", stroke: "ink", lineWidth: LINE.rule },
-    { type: "text", x: b.x + 6, y: b.y + 11, text: "LEGEND", size: TEXT.titleSize, weight: "bold", colour: "muted" },
+    { type: "text", x: b.x + 6, y: b.y + 11, text: "LEGEND", size: TEXT.titleSize, weight: "bold", colour: "ink" },
   ];
   const items: { kind: DeviceKind; text: string }[] = [
     { kind: "fuse", text: "fuse" },
@@ -301,9 +301,9 @@ function legendGroup(layout: OneLineLayout): SceneGroup {
     x: b.x + 6,
     y: b.y + 54,
     text: "Callout: conductors, size, material, insulation, rating; EGC; raceway, one-way length.",
-    size: 6.5,
+    size: TEXT.calloutSize,
     weight: "regular",
-    colour: "muted",
+    colour: "ink",
     maxWidth: b.width - 12,
   });
   return { id: "legend", role: "legend", label: "Legend of the one-line diagram symbols", trouble: false, prims };
@@ -317,7 +317,7 @@ export function buildScene(layout: OneLineLayout): Scene {
       role: "note",
       label: "No equipment or circuits entered yet",
       trouble: false,
-      prims: [{ type: "text", x: 24, y: 32, text: "No equipment or circuits entered yet.", size: TEXT.bodySize, weight: "regular", colour: "muted" }],
+      prims: [{ type: "text", x: 24, y: 32, text: "No equipment or circuits entered yet.", size: TEXT.bodySize, weight: "regular", colour: "ink" }],
     });
   }
   if (layout.unconnectedHeading) {
@@ -327,7 +327,7 @@ export function buildScene(layout: OneLineLayout): Scene {
       label: "Equipment on no drawn circuit",
       trouble: false,
       prims: [
-        { type: "text", x: layout.unconnectedHeading.x, y: layout.unconnectedHeading.y + 7, text: "EQUIPMENT ON NO DRAWN CIRCUIT", size: TEXT.titleSize, weight: "bold", colour: "muted" },
+        { type: "text", x: layout.unconnectedHeading.x, y: layout.unconnectedHeading.y + 7, text: "EQUIPMENT ON NO DRAWN CIRCUIT", size: TEXT.titleSize, weight: "bold", colour: "ink" },
       ],
     });
   }

@@ -5,11 +5,13 @@
  * embedded font and shrinks a line that still would not fit.
  */
 
+/** No lettering below 8 pt at 1:1; the packet draws the diagram at least at that scale (1/8 in lettering at half size is the counter's ask). */
 export const TEXT = {
   tagSize: 10,
-  titleSize: 7.5,
+  titleSize: 8,
   bodySize: 8,
-  calloutSize: 7.5,
+  calloutSize: 8,
+  markSize: 8,
   lineGap: 2.5,
 } as const;
 

@@ -12,22 +12,36 @@ export const EMAIL_TEMPLATES = [
 ] as const;
 export type EmailTemplate = (typeof EMAIL_TEMPLATES)[number];
 
-const compiled = new Map<string, Handlebars.TemplateDelegate>();
+const compiled = new Map<string, { subject: Handlebars.TemplateDelegate; body: Handlebars.TemplateDelegate }>();
+
+/** Line breaks and other control characters: a value typed into a project name must not end the subject and start the body. */
+const CONTROL_CHARACTERS = /[\u0000-\u001f\u007f\u0085\u2028\u2029]+/g;
+
+/** A subject as one line of text, whatever the values put into it held. */
+export function oneLineSubject(text: string): string {
+  return text.replace(CONTROL_CHARACTERS, " ").replace(/ {2,}/g, " ").trim();
+}
 
 /**
  * Renders templates/email/<name>.hbs. The first line of a template is
  * `Subject: …`; the rest is the plain-text body. Strict, so a missing value
- * is an error rather than a blank in a message to a client or an AHJ.
+ * is an error rather than a blank in a message to a client or an AHJ. The
+ * subject is rendered on its own and kept to one line.
  */
 export function renderEmail(name: EmailTemplate, vars: Record<string, unknown>): { subject: string; text: string } {
   let template = compiled.get(name);
   if (!template) {
     const file = path.join(process.cwd(), "templates", "email", `${name}.hbs`);
-    template = Handlebars.compile(fs.readFileSync(file, "utf8"), { strict: true, noEscape: true });
+    const source = fs.readFileSync(file, "utf8");
+    const newline = source.indexOf("\n");
+    const first = newline < 0 ? source : source.slice(0, newline);
+    const subjectSource = first.startsWith("Subject:") ? first.slice("Subject:".length) : name;
+    const bodySource = first.startsWith("Subject:") ? (newline < 0 ? "" : source.slice(newline + 1)) : source;
+    template = {
+      subject: Handlebars.compile(subjectSource, { strict: true, noEscape: true }),
+      body: Handlebars.compile(bodySource, { strict: true, noEscape: true }),
+    };
     compiled.set(name, template);
   }
-  const out = template(vars);
-  const [first, ...rest] = out.split("\n");
-  const subject = first?.startsWith("Subject:") ? first.slice("Subject:".length).trim() : name;
-  return { subject, text: rest.join("\n").trim() + "\n" };
+  return { subject: oneLineSubject(template.subject(vars)), text: template.body(vars).trim() + "\n" };
 }

@@ -60,7 +60,7 @@ function scopeLines(record: ProjectRecord): string[] {
   return lines;
 }
 
-export function templateContext(input: PacketInput, sheet: { code: string; title: string; kind: string }, sheetPages: Map<string, string>, datasheets: PacketDatasheet[], draft: { isDraft: boolean; reasons: string[] }): TemplateContext {
+export function templateContext(input: PacketInput, sheet: { code: string; title: string; kind: string }, sheetPages: Map<string, string>, datasheets: PacketDatasheet[], draft: { isDraft: boolean; reasons: string[] }, sheetNumbers?: Map<string, string>): TemplateContext {
   const { record, run, revision, approval } = input;
   const fig = systemFigures(record);
   const hasBattery = record.equipment.some((e) => e.kind === "battery");
@@ -71,7 +71,14 @@ export function templateContext(input: PacketInput, sheet: { code: string; title
   if (hasBattery) codes.push({ name: "NFPA 855, Installation of Stationary Energy Storage Systems", edition: "as adopted by the AHJ" });
   codes.push({ name: "ANSI Z535.4, Product Safety Signs and Labels (label format)", edition: "current" });
   return {
-    firm: { name: revision.organisation, preparedBy: revision.preparedBy },
+    firm: {
+      name: revision.organisation,
+      preparedBy: revision.preparedBy,
+      licence: revision.organisationLicence?.number
+        ? [revision.organisationLicence.number, revision.organisationLicence.classification, revision.organisationLicence.state].filter(Boolean).join(", ")
+        : "",
+      contact: [revision.organisationContact?.phone, revision.organisationContact?.email, revision.organisationContact?.address].filter(Boolean).join(", "),
+    },
     project: {
       name: record.name,
       client: record.client,
@@ -92,9 +99,15 @@ export function templateContext(input: PacketInput, sheet: { code: string; title
       requiredDocuments: record.jurisdiction.requiredDocuments,
     },
     revision: { number: String(revision.number), date: isoDate(revision.createdAt), createdAt: revision.createdAt },
+    revisions: (input.revisionHistory ?? [{ number: revision.number, date: revision.createdAt, change: "This issue", by: revision.preparedBy }]).map((r) => ({
+      number: String(r.number),
+      date: isoDate(r.date),
+      change: r.change,
+      by: r.by || "—",
+    })),
     sheet: { code: sheet.code, title: sheet.title, kind: sheet.kind },
     sheets: [
-      ...SHEET_PLAN.map((s) => ({ code: s.code, title: s.title, pages: sheetPages.get(s.code) ?? "" })),
+      ...SHEET_PLAN.map((s) => ({ code: sheetNumbers?.get(s.code) ?? s.code, title: s.title, pages: sheetPages.get(s.code) ?? "" })),
       ...datasheets.map((d) => ({ code: d.code, title: d.title, pages: sheetPages.get(d.code) ?? "" })),
     ],
     scope: scopeLines(record),

@@ -47,6 +47,8 @@ function draftReasons(input: PacketInput, missingDocs: string[]): string[] {
 export interface BuildOptions {
   /** Packet page ranges per sheet code, for the sheet index (known after a first layout pass). */
   sheetPages?: Map<string, string>;
+  /** Sheet numbers per plan code when its content ran onto added sheets ("E-003 to E-003.2"). */
+  sheetNumbers?: Map<string, string>;
 }
 
 export function buildPacketModel(input: PacketInput, options: BuildOptions = {}): PacketModel {
@@ -63,7 +65,7 @@ export function buildPacketModel(input: PacketInput, options: BuildOptions = {})
   const draft = { isDraft: reasons.length > 0, reasons };
 
   const sheets: Sheet[] = SHEET_PLAN.map((plan) => {
-    const context = templateContext(input, { code: plan.code, title: plan.title, kind: plan.kind }, sheetPages, datasheets, draft);
+    const context = templateContext(input, { code: plan.code, title: plan.title, kind: plan.kind }, sheetPages, datasheets, draft, options.sheetNumbers);
     const blocks = renderSheetTemplate(plan.template, context, input.templateOverrides?.[plan.template]);
     switch (plan.kind) {
       case "site-plan":
@@ -106,6 +108,10 @@ export function buildPacketModel(input: PacketInput, options: BuildOptions = {})
   return {
     titleBlock: {
       firm: revision.organisation,
+      firmLicence: revision.organisationLicence?.number
+        ? `Licence ${[revision.organisationLicence.number, revision.organisationLicence.classification, revision.organisationLicence.state].filter(Boolean).join(" · ")}`
+        : "",
+      firmContact: [revision.organisationContact?.phone, revision.organisationContact?.email, revision.organisationContact?.address].filter(Boolean).join(" · "),
       preparedBy: revision.preparedBy,
       project: record.name,
       client: record.client,

@@ -41,6 +41,9 @@ export interface PacketMarking {
 export interface PacketModel {
   titleBlock: {
     firm: string;
+    /** The contractor's licence, from the organisation record ("" when not recorded). */
+    firmLicence: string;
+    firmContact: string;
     preparedBy: string;
     project: string;
     client: string;

@@ -18,7 +18,7 @@ const B = "b" as const;
 
 /** Every sheet template receives the same context (documented in templates/packet/README.md). */
 export const TEMPLATE_CONTEXT_SHAPE = {
-  firm: { name: S, preparedBy: S },
+  firm: { name: S, preparedBy: S, licence: S, contact: S },
   project: {
     name: S,
     client: S,
@@ -39,6 +39,7 @@ export const TEMPLATE_CONTEXT_SHAPE = {
     requiredDocuments: [S],
   },
   revision: { number: S, date: S, createdAt: S },
+  revisions: [{ number: S, date: S, change: S, by: S }],
   sheet: { code: S, title: S, kind: S },
   sheets: [{ code: S, title: S, pages: S }],
   scope: [S],

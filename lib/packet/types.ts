@@ -21,6 +21,18 @@ export interface PacketRevision {
   createdAt: string;
   preparedBy: string;
   organisation: string;
+  /** The contractor's licence and contact as the organisation record holds them. */
+  organisationLicence?: { number: string; classification?: string; state?: string };
+  organisationContact?: { phone?: string; email?: string; address?: string };
+}
+
+/** One line of the cover's revision history. */
+export interface RevisionHistoryEntry {
+  number: number;
+  /** ISO 8601. */
+  date: string;
+  change: string;
+  by: string;
 }
 
 export interface PacketApproval {
@@ -66,6 +78,8 @@ export interface PacketInput {
   datasheets: DatasheetAttachment[];
   /** Handlebars sources replacing the shipped sheet templates (a jurisdiction's cover letter, general notes). */
   templateOverrides?: Partial<Record<SheetTemplateName, string>>;
+  /** Earlier revisions of the project and this one, oldest first. Without it the cover lists this revision alone. */
+  revisionHistory?: RevisionHistoryEntry[];
 }
 
 export interface SheetPages {

@@ -36,6 +36,8 @@ export const BATTERY_LOCATIONS = [
   "habitable-room",
 ] as const;
 
+export const RAPID_SHUTDOWN_INSIDE_BOUNDARY = ["listed-hazard-control", "80v-in-30s", "no-exposed-wiring", "none"] as const;
+
 export const RESIDENTIAL_CODES = ["IRC-2018", "IRC-2021", "IRC-2024", "none"] as const;
 
 export const siteSchema = z.object({
@@ -61,6 +63,11 @@ export const siteSchema = z.object({
   batterySpacingIn: numberIn(0, 600, "in").optional(),
   hasSmokeOrHeatDetection: z.boolean().optional(),
   hasVehicleImpactProtection: z.boolean().optional(),
+  /**
+   * The building the PV circuits enter houses PV equipment only (the 690.12 exception for ground-mounted
+   * arrays). A fact the designer states; never assumed.
+   */
+  pvOnlyBuilding: z.boolean().optional(),
 });
 export type Site = z.infer<typeof siteSchema>;
 
@@ -338,6 +345,11 @@ export const circuitSchema = z
     lengthFt: numberIn(0, 5000, "ft").optional(),
     /** Ambient where the conductor runs; defaults to the site's design high temperature. */
     ambientTempC: numberIn(-60, 70, "°C").optional(),
+    /**
+     * The DC circuit runs on or into a building (690.7 building voltage limits, 690.12 rapid shutdown).
+     * Empty on a ground-mounted array is read as entering one, the stricter case.
+     */
+    entersBuilding: z.boolean().optional(),
     /** Raceway or cable exposed to sunlight on or above a roof. */
     onRooftop: z.boolean().default(false),
     roofClearanceIn: numberIn(0, 120, "in").optional(),
@@ -431,6 +443,12 @@ export const projectRecordObjectSchema = z.object({
   rapidShutdownMethod: z
     .enum(["module-level", "array-boundary", "listed-pv-hazard-control", "none"])
     .optional(),
+  /**
+   * How PV circuits inside the array boundary meet 690.12(B)(2) on a building-mounted array: a listed PV hazard
+   * control system, 80 V or less within 30 s, or no exposed wiring methods or conductive parts; "none" when
+   * the design meets none of them.
+   */
+  rapidShutdownInsideBoundary: z.enum(RAPID_SHUTDOWN_INSIDE_BOUNDARY).optional(),
   grounding: groundingSchema.default({ electrodes: [], gecMaterial: "cu" }),
   equipment: z.array(equipmentSchema).default([]),
   arrays: z.array(arraySchema).default([]),

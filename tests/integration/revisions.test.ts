@@ -5,7 +5,7 @@ import { createHash } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { PDFDocument, StandardFonts } from "pdf-lib";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { packetRevisions } from "../../db/schema";
+import { organisations, packetRevisions } from "../../db/schema";
 import { runChecks } from "../../lib/compliance";
 import { formatNumber } from "../../lib/packet/format";
 import { REVIEW_MARKING, SHEET_PLAN } from "../../lib/packet/model";
@@ -63,6 +63,8 @@ function filesUnder(dir: string): string[] {
 }
 
 const org = makeOrg(db, "Revision Test Firm");
+// The contractor's licence and contact as an office records them on the organisation (invented values).
+db.update(organisations).set({ licenceNumber: "EC-555021", licenceClassification: "Electrical contractor", phone: "555-0190", email: "permits@revision-test.test" }).where(eq(organisations.id, org.id)).run();
 const otherOrg = makeOrg(db, "Other Firm");
 const designer = makeContext(db, org.id, ["designer"]);
 const outsider = makeContext(db, otherOrg.id, ["designer"]);
@@ -122,6 +124,23 @@ describe("generating a revision", () => {
   it("carries the review marking on every page", () => {
     expect(text.pages.length).toBeGreaterThan(SHEET_PLAN.length);
     text.pages.forEach((page, i) => expect(page, `page ${i + 1}`).toContain(REVIEW_MARKING));
+  });
+
+  it("keeps a blank AHJ approval stamp box and the contractor's licence and contact on every sheet", () => {
+    const row = db.select().from(packetRevisions).where(eq(packetRevisions.id, revisionId)).get()!;
+    const sheetPages = (row.pageCount ?? 0) - DATASHEET_PAGES;
+    expect(sheetPages).toBeGreaterThan(SHEET_PLAN.length - 1);
+    for (let i = 0; i < sheetPages; i += 1) {
+      expect(text.pages[i], `page ${i + 1}`).toContain("AHJ APPROVAL STAMP");
+      expect(text.pages[i], `page ${i + 1}`).toContain("Licence EC-555021 · Electrical contractor");
+      expect(text.pages[i], `page ${i + 1}`).toContain("555-0190 · permits@revision-test.test");
+    }
+  });
+
+  it("lists the revision history on the cover: number, date, what changed, who", () => {
+    const row = db.select().from(packetRevisions).where(eq(packetRevisions.id, revisionId)).get()!;
+    expect(text.pages[0]).toContain("REVISION HISTORY Rev Date What changed By");
+    expect(text.pages[0]).toContain(`1 ${row.createdAt.slice(0, 10)} First issue ${designer.user.name}`);
   });
 
   it("prints the maximum PV voltage the engine computed", () => {

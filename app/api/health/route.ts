@@ -1,5 +1,6 @@
 import { NextResponse } from "next/server";
+import { withApiHeaders } from "@/lib/http";
 
 export function GET() {
-  return NextResponse.json({ ok: true });
+  return withApiHeaders(NextResponse.json({ ok: true }));
 }

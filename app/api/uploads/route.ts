@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { requireContext } from "@/lib/auth/session";
 import { env } from "@/lib/env";
-import { errorResponse } from "@/lib/http";
+import { errorResponse, originRefusal, withApiHeaders } from "@/lib/http";
 import { uploadAttachment } from "@/lib/services/attachments";
 import { requirePermission } from "@/lib/services/context";
 import { formatBytes } from "@/lib/uploads/format-bytes";
@@ -22,7 +22,13 @@ function refusal(status: number, message: string, reason: string) {
  * under "file" (or "files[]"), and fields projectId, kind, equipmentTag.
  */
 export async function POST(request: Request): Promise<Response> {
+  return withApiHeaders(await receive(request));
+}
+
+async function receive(request: Request): Promise<Response> {
   try {
+    const refused = originRefusal(request);
+    if (refused) return refused;
     const ctx = await requireContext();
     // Who may upload is known before a byte of the body is read.
     requirePermission(ctx, "attachment:upload", "attach files");

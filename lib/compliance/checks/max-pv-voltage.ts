@@ -6,12 +6,23 @@ import { makeResult, needsInput, type CheckDefinition } from "../result";
 import type { CheckResult, Remedy } from "../types";
 import { remedy } from "../derive/remedy";
 
+/**
+ * A ground-mounted array whose PV circuits are all recorded as staying outside buildings. An empty
+ * entersBuilding, or an array with no circuit recorded, keeps the building limit (the stricter reading).
+ */
+function outsideBuildings(ctx: CheckContext, arrayTag: string, t: Trace): boolean {
+  if (ctx.record.site.mounting !== "ground") return false;
+  const circuits = ctx.circuitsByArray.get(arrayTag) ?? [];
+  for (const c of circuits) t.read(`${c.path}.entersBuilding`, `${c.item.tag} enters a building`, c.item.entersBuilding);
+  return circuits.length > 0 && circuits.every((c) => c.item.entersBuilding === false);
+}
+
 export const maxPvVoltage: CheckDefinition = {
   id: "max-pv-voltage",
   title: "Maximum PV system voltage at the design low temperature",
   scopeTopic: "max-voltage",
   formula:
-    "Voc × modules in series × cold correction (module coefficient, else Table 690.7(A)) ≤ every rating on the circuit and the building limit",
+    "Voc × modules in series × cold correction (module coefficient, else Table 690.7(A)) ≤ every rating on the circuit and the building limit (600 V on or in one- and two-family dwellings, 1000 V on or in other buildings, 1500 V with listed equipment where the PV circuits are not on or in a building)",
   run(ctx: CheckContext): CheckResult[] {
     const codeRefs = refs(ctx.edition, "max-voltage", "voltage-correction-table", "building-voltage-limit");
     const out: CheckResult[] = [];
@@ -30,8 +41,13 @@ export const maxPvVoltage: CheckDefinition = {
       const limits: { label: string; limitV: number }[] = [];
       const dwelling = ctx.record.site.occupancy === "one-two-family-dwelling";
       t.read("site.occupancy", "Occupancy", ctx.record.site.occupancy);
-      // 690.7: up to 600 V on or in one- and two-family dwellings, 1000 V on or in other buildings.
-      limits.push({ label: dwelling ? "one- and two-family dwelling limit" : "limit on or in other buildings", limitV: dwelling ? 600 : 1000 });
+      if (outsideBuildings(ctx, array.tag, t)) {
+        // 690.7: PV DC circuits not on or in buildings may reach 1500 V with equipment listed for it.
+        limits.push({ label: "limit for PV circuits not on or in a building (listed equipment)", limitV: 1500 });
+      } else {
+        // 690.7: up to 600 V on or in one- and two-family dwellings, 1000 V on or in other buildings.
+        limits.push({ label: dwelling ? "one- and two-family dwelling limit" : "limit on or in other buildings", limitV: dwelling ? 600 : 1000 });
+      }
       if (input) {
         const max = t.need(input.maxVoltagePath, `Maximum input voltage of ${input.label}`, input.maxVoltageV, "V");
         if (max !== undefined) limits.push({ label: `${input.label} maximum input`, limitV: max });

@@ -1,6 +1,7 @@
 /**
- * 11. Stand-alone sizing (common practice): the daily energy of the loads plus
- * the inverter's idle draw over 24 h; usable storage against the days of
+ * 11. Stand-alone sizing (common practice): the daily energy the battery
+ * supplies — the AC loads through the inverter's efficiency, plus its idle draw
+ * over 24 h; usable storage against the days of
  * autonomy (two to three by common practice); array energy against the daily
  * need at the site's sun hours. Sizing is not a code requirement, so a
  * shortfall warns.
@@ -23,7 +24,7 @@ export const standAloneSizing: CheckDefinition = {
   title: "Stand-alone sizing",
   scopeTopic: "stand-alone-supply",
   formula:
-    "usable storage ÷ daily energy ≥ days of autonomy; array W × sun hours × 0.75 ≥ daily energy",
+    "daily energy = AC loads ÷ inverter efficiency + inverter idle W × 24 h; usable storage ÷ daily energy ≥ days of autonomy; array W × sun hours × 0.75 ≥ daily energy. Counted: inverter conversion loss and idle draw; the 0.75 array factor covers wiring, temperature, soiling and charging losses; battery round-trip loss and DC wiring loss on discharge are not counted",
   run(ctx: CheckContext): CheckResult[] {
     const r = ctx.record;
     const codeRefs = refs(ctx.edition, "stand-alone-supply");
@@ -35,6 +36,9 @@ export const standAloneSizing: CheckDefinition = {
     const s = loadSummary(r);
     r.equipment.forEach((e, i) => {
       if (s.inverterIdleMissing.includes(e.tag)) t.need(`equipment.${i}.idleW`, `Idle draw of ${e.tag}`, undefined, "W");
+      else if ("idleW" in e) t.read(`equipment.${i}.idleW`, `Idle draw of ${e.tag}`, e.idleW, "W");
+      if (s.inverterEfficiencyMissing.includes(e.tag)) t.need(`equipment.${i}.efficiencyPct`, `Efficiency of ${e.tag}`, undefined, "%");
+      else if ("efficiencyPct" in e) t.read(`equipment.${i}.efficiencyPct`, `Efficiency of ${e.tag}`, e.efficiencyPct, "%");
     });
     const bats = equipmentOfKind(ctx, "battery");
     if (bats.length === 0) t.need("equipment", "A battery", undefined);
@@ -85,16 +89,18 @@ export const standAloneSizing: CheckDefinition = {
         ...(status === "pass" ? {} : { reason: notes.join("; ") }),
         remedy: () => sizingRemedy(ctx, bats, autonomy, days, arrayWhPerDay, s.dailyTotalWh),
         values: [
-          v("dailyLoadWh", "Loads per day", s.dailyLoadWh, "Wh"),
+          v("dailyLoadWh", "AC loads per day", s.dailyLoadWh, "Wh"),
+          v("inverterEfficiencyPct", "Inverter efficiency", s.inverterEfficiencyPct ?? "none", s.inverterEfficiencyPct === null ? "" : "%"),
+          v("conversionLossWh", "Inverter conversion loss per day", s.conversionLossWh, "Wh"),
           v("idleWh", "Inverter idle over 24 h", s.idleWh, "Wh"),
-          v("dailyTotalWh", "Daily need", s.dailyTotalWh, "Wh"),
+          v("dailyTotalWh", "Daily need from the battery", s.dailyTotalWh, "Wh"),
           v("usableStorageWh", "Usable storage", usable, "Wh"),
           v("autonomyDays", "Days of autonomy", Number.isFinite(autonomy) ? autonomy : "no daily load", Number.isFinite(autonomy) ? "days" : ""),
           v("targetDays", daysGiven !== undefined ? "Days designed for" : "Days (common practice)", days, "days"),
           v("arrayW", "Array nameplate", arrayW, "W"),
           v("arrayWhPerDay", `Array energy (× ${sun} h × ${ARRAY_DERATE})`, arrayWhPerDay, "Wh"),
         ],
-        formula: `Σ W × qty × h + idle W × 24 h = ${Math.round(s.dailyTotalWh)} Wh; Σ kWh × qty × DoD = ${Math.round(usable)} Wh; ${Math.round(usable)} ÷ ${Math.round(s.dailyTotalWh)} = ${Number.isFinite(autonomy) ? autonomy.toFixed(2) : "—"} days; ${arrayW} W × ${sun} h × ${ARRAY_DERATE} = ${Math.round(arrayWhPerDay)} Wh`,
+        formula: `Σ W × qty × h ${Math.round(s.dailyLoadWh)} Wh ÷ inverter efficiency ${s.inverterEfficiencyPct ?? "—"} % + idle W × 24 h ${Math.round(s.idleWh)} Wh = ${Math.round(s.dailyTotalWh)} Wh (counted: conversion loss and idle draw; battery round-trip and DC wiring losses not counted); Σ kWh × qty × DoD = ${Math.round(usable)} Wh; ${Math.round(usable)} ÷ ${Math.round(s.dailyTotalWh)} = ${Number.isFinite(autonomy) ? autonomy.toFixed(2) : "—"} days; ${arrayW} W × ${sun} h × ${ARRAY_DERATE} = ${Math.round(arrayWhPerDay)} Wh`,
         inputs: t.inputs,
         codeRefs,
       }),

@@ -38,6 +38,9 @@ export type CodeTopic =
   | "ess-disconnect"
   | "generator-disconnect"
   | "rapid-shutdown"
+  | "rapid-shutdown-inside-boundary"
+  | "rapid-shutdown-pv-only-building"
+  | "ground-mount-voltage"
   | "rapid-shutdown-label"
   | "dc-source-label"
   | "raceway-marking"
@@ -100,6 +103,12 @@ export const CODE_REFS: Readonly<Record<CodeTopic, ByEdition>> = {
   "ess-disconnect": { "2017": "706.7", "2020": "706.15", "2023": "706.15" },
   "generator-disconnect": same("445.18"),
   "rapid-shutdown": same("690.12"),
+  // Controlled conductors inside the array boundary: listed hazard control, 80 V in 30 s, or no exposed wiring (from memory, all three editions).
+  "rapid-shutdown-inside-boundary": same("690.12(B)(2)"),
+  // Ground-mounted PV circuits entering a building that houses PV equipment only (from memory, all three editions).
+  "rapid-shutdown-pv-only-building": same("690.12 Exception"),
+  // PV DC circuits not on or in buildings: listed equipment up to 1500 V (from memory, all three editions).
+  "ground-mount-voltage": same("690.7"),
   "rapid-shutdown-label": { "2017": "690.56(C)", "2020": "690.56(C)", "2023": "690.12(D)" },
   "dc-source-label": { "2017": "690.53", "2020": "690.53", "2023": "690.7(D)" },
   // 2017 690.31(G)(3)/(G)(4); 2020 regrouped DC circuits in buildings under

@@ -1,6 +1,6 @@
 import { PDFName, PDFRef, type PDFFont } from "pdf-lib";
 import { fitText } from "../text";
-import type { Ctx, PageInfo } from "./style";
+import { MIN_TEXT, type Ctx, type PageInfo } from "./style";
 
 export interface MarginStreams {
   save: PDFRef;
@@ -24,7 +24,8 @@ export function drawDatasheetMargin(ctx: Ctx, info: PageInfo, pageNo: number, to
   const box = page.getCropBox();
   const rotation = ((page.getRotation().angle % 360) + 360) % 360;
   const across = rotation === 90 || rotation === 270 ? box.height : box.width;
-  const size = Math.max(4.5, Math.min(7, across / 88));
+  // The stamp is Sundocket's own lettering, so it keeps the sheets' 8 pt minimum even on a letter-size datasheet.
+  const size = MIN_TEXT;
   const lines: { text: string; font: PDFFont }[] = model.marking.approved
     ? [
         { text: model.marking.approvalLines[0] ?? "", font: fonts.bold },

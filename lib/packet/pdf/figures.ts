@@ -4,7 +4,7 @@ import { labelArtwork } from "../../labels/artwork";
 import { drawText } from "../text-layer";
 import { textWidth, wrapText } from "../text";
 import type { PacketInput } from "../types";
-import { GUTTER, HAIR, INK, MUTED, SMALL, SMALL_LH, WHITE, type Ctx, type Item } from "./style";
+import { GUTTER, HAIR, INK, MUTED, RULE_PT, SMALL, SMALL_LH, WHITE, type Ctx, type Item } from "./style";
 
 export function sitePlanItem(ctx: Ctx, w: number, h: number, caption: string): Item {
   const { fonts, sitePlan } = ctx;
@@ -15,8 +15,8 @@ export function sitePlanItem(ctx: Ctx, w: number, h: number, caption: string): I
       page.drawRectangle({ x, y: top - boxH, width: w, height: boxH, borderColor: INK, borderWidth: 0.8 });
       drawText(page, caption, { x, y: top - h + 3, size: SMALL, font: fonts.condensed, color: MUTED });
       if (!sitePlan) {
-        page.drawLine({ start: { x, y: top }, end: { x: x + w, y: top - boxH }, thickness: 0.3, color: HAIR });
-        page.drawLine({ start: { x, y: top - boxH }, end: { x: x + w, y: top }, thickness: 0.3, color: HAIR });
+        page.drawLine({ start: { x, y: top }, end: { x: x + w, y: top - boxH }, thickness: RULE_PT, color: HAIR });
+        page.drawLine({ start: { x, y: top - boxH }, end: { x: x + w, y: top }, thickness: RULE_PT, color: HAIR });
         const msg = "SITE PLAN NOT ATTACHED";
         const tw = textWidth(fonts.bold, msg, 16);
         page.drawRectangle({ x: x + w / 2 - tw / 2 - 8, y: top - boxH / 2 - 12, width: tw + 16, height: 28, color: WHITE });
@@ -68,7 +68,7 @@ export function labelRowItem(ctx: Ctx, labels: PacketInput["labels"], w: number)
         drawLabel(page, c.label, { x: cx, y: top - 4 - c.artH, width: artW, height: c.artH }, fonts);
         c.text.forEach((t, li) => drawText(page, t.text, { x: cx + artW + 10, y: top - 4 - (li + 1) * SMALL_LH + 2, size: SMALL, font: t.font, color: t.color }));
       });
-      page.drawLine({ start: { x, y: top - h + 4 }, end: { x: x + w, y: top - h + 4 }, thickness: 0.3, color: HAIR });
+      page.drawLine({ start: { x, y: top - h + 4 }, end: { x: x + w, y: top - h + 4 }, thickness: RULE_PT, color: HAIR });
     },
   };
 }

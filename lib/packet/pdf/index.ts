@@ -52,6 +52,15 @@ async function embedSitePlan(doc: PDFDocument, input: PacketInput): Promise<Ctx[
   return { kind: "image", image };
 }
 
+/** Content that does not fit flows onto added sheets numbered E-003.1, E-003.2 … rather than shrinking. */
+function continuationCode(code: string, index: number): string {
+  return index === 0 ? code : `${code}.${index}`;
+}
+
+function sheetRange(code: string, count: number): string {
+  return count > 1 ? `${code} to ${continuationCode(code, count - 1)}` : code;
+}
+
 function pageRange(first: number, count: number): string {
   return count > 1 ? `${first}–${first + count - 1}` : String(first);
 }
@@ -94,12 +103,14 @@ async function renderOnce(
   const sheetPages: SheetPages[] = [];
   let next = coverGuess + 1;
   const text = new Map<string, string>();
+  const numbers = new Map<string, string>();
   const bodyPages: { sheet: Sheet; pages: PDFPage[] }[] = [];
   for (const sheet of draftModel.sheets.slice(1)) {
     const writer = new SheetWriter(ctx, sheet, () => doc.addPage([PAGE_W, PAGE_H]));
     writer.writeBlocks(sheet.blocks);
     bodyPages.push({ sheet, pages: writer.pages });
     text.set(sheet.code, pageRange(next, writer.pages.length));
+    numbers.set(sheet.code, sheetRange(sheet.code, writer.pages.length));
     next += writer.pages.length;
   }
   draftModel.datasheets.forEach((d, i) => {
@@ -108,9 +119,10 @@ async function renderOnce(
     next += n;
   });
   text.set(draftModel.sheets[0]!.code, pageRange(1, coverGuess));
+  numbers.set(draftModel.sheets[0]!.code, sheetRange(draftModel.sheets[0]!.code, coverGuess));
 
   // The cover, with the index filled in, goes in front.
-  const model = buildPacketModel(input, { sheetPages: text });
+  const model = buildPacketModel(input, { sheetPages: text, sheetNumbers: numbers });
   ctx.model = model;
   const coverSheet = model.sheets[0]!;
   let inserted = 0;
@@ -124,7 +136,9 @@ async function renderOnce(
 
   const push = (sheet: { code: string; title: string }, pages: PDFPage[], datasheet: boolean) => {
     const first = infos.length + 1;
-    pages.forEach((page, i) => infos.push({ page, sheet: sheet.code, title: sheet.title, index: i + 1, count: pages.length, datasheet }));
+    pages.forEach((page, i) =>
+      infos.push({ page, sheet: datasheet ? sheet.code : continuationCode(sheet.code, i), baseSheet: sheet.code, title: sheet.title, index: i + 1, count: pages.length, datasheet }),
+    );
     sheetPages.push({ sheet: sheet.code, title: sheet.title, firstPage: first, pageCount: pages.length });
   };
   push(coverSheet, coverWriter.pages, false);

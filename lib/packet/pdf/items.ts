@@ -5,7 +5,7 @@ import { STATUS_SHAPE, STATUS_WORD, formatCheckValue } from "../format";
 import type { Block, Cell } from "../markup";
 import { drawText } from "../text-layer";
 import { textWidth, wrapText } from "../text";
-import { FILL, HAIR, INK, MUTED, RULE, SIGNAL, SMALL, SMALL_LH, WHITE, type Ctx, type Item } from "./style";
+import { FILL, HAIR, INK, MIN_TEXT, MUTED, RULE, RULE_PT, SIGNAL, SMALL, SMALL_LH, WHITE, type Ctx, type Item } from "./style";
 
 export function textItem(font: PDFFont, size: number, lh: number, line: string, color: Color = INK, indent = 0, prefix?: string): Item {
   return {
@@ -24,7 +24,7 @@ export function paragraphItems(font: PDFFont, size: number, lh: number, text: st
   );
 }
 
-export function statusBadge(page: PDFPage, fonts: PdfFonts, status: CheckStatus, x: number, top: number, h: number, size = 7) {
+export function statusBadge(page: PDFPage, fonts: PdfFonts, status: CheckStatus, x: number, top: number, h: number, size = MIN_TEXT) {
   const text = `${STATUS_SHAPE[status]} ${STATUS_WORD[status]}`;
   const font = fonts.condensedBold;
   const w = textWidth(font, text, size) + 6;
@@ -43,8 +43,8 @@ export function tableItems(ctx: Ctx, block: Extract<Block, { kind: "table" }>, w
   const { fonts } = ctx;
   const total = block.columns.reduce((t, c) => t + c.weight, 0) || 1;
   const widths = block.columns.map((c) => (c.weight / total) * w);
-  const size = 7;
-  const lh = 8.6;
+  const size = MIN_TEXT;
+  const lh = 10;
   const padX = 3;
   const padY = 2.5;
   const rowItem = (cells: Cell[], header: boolean): Item => {
@@ -63,7 +63,7 @@ export function tableItems(ctx: Ctx, block: Extract<Block, { kind: "table" }>, w
           const cw = widths[i] ?? 0;
           const align = block.columns[i]?.align ?? "left";
           if (cell.status) {
-            statusBadge(page, fonts, cell.status, cx + padX, top - padY, lh + 0.5, 6.4);
+            statusBadge(page, fonts, cell.status, cx + padX, top - padY, lh + 0.5, MIN_TEXT);
           } else {
             cell.lines.forEach((line, li) => {
               const tw = textWidth(cell.font, line, size);
@@ -71,10 +71,10 @@ export function tableItems(ctx: Ctx, block: Extract<Block, { kind: "table" }>, w
               drawText(page, line, { x: tx, y: top - padY - (li + 1) * lh + 2.2, size, font: cell.font, color: INK });
             });
           }
-          if (i > 0) page.drawLine({ start: { x: cx, y: top }, end: { x: cx, y: top - h }, thickness: 0.3, color: HAIR });
+          if (i > 0) page.drawLine({ start: { x: cx, y: top }, end: { x: cx, y: top - h }, thickness: RULE_PT, color: HAIR });
           cx += cw;
         });
-        page.drawLine({ start: { x, y: top - h }, end: { x: x + w, y: top - h }, thickness: header ? 0.7 : 0.3, color: header ? INK : HAIR });
+        page.drawLine({ start: { x, y: top - h }, end: { x: x + w, y: top - h }, thickness: header ? 0.8 : RULE_PT, color: header ? INK : HAIR });
       },
     };
   };
@@ -88,15 +88,15 @@ export function checkCardItems(ctx: Ctx, r: CheckResult, w: number): Item[] {
   const items: Item[] = [];
   const indent = (item: Item): Item => ({ h: item.h, draw: (p, x, top, ww) => item.draw(p, x + 5, top, ww - 10) });
   const title = r.subject && !r.title.includes(r.subject) ? `${r.title}: ${r.subject}` : r.title;
-  const titleLines = wrapText(fonts.bold, 8, title, inner - 78);
-  const headH = Math.max(16, titleLines.length * 10 + 6);
+  const titleLines = wrapText(fonts.bold, 9, title, inner - 92);
+  const headH = Math.max(18, titleLines.length * 11 + 7);
   items.push({
     h: headH,
     draw(page, x, top) {
       page.drawRectangle({ x, y: top - headH, width: w, height: headH, color: r.status === "fail" ? rgb(0.98, 0.92, 0.92) : rgb(0.96, 0.96, 0.97) });
-      statusBadge(page, fonts, r.status, x + 4, top - 3.5, 10.5, 6.8);
-      titleLines.forEach((line, i) => drawText(page, line, { x: x + 80, y: top - 11.5 - i * 10, size: 8, font: fonts.bold, color: INK }));
-      page.drawLine({ start: { x, y: top - headH }, end: { x: x + w, y: top - headH }, thickness: 0.4, color: RULE });
+      statusBadge(page, fonts, r.status, x + 4, top - 3.5, 11.5, MIN_TEXT);
+      titleLines.forEach((line, i) => drawText(page, line, { x: x + 94, y: top - 12.5 - i * 11, size: 9, font: fonts.bold, color: INK }));
+      page.drawLine({ start: { x, y: top - headH }, end: { x: x + w, y: top - headH }, thickness: RULE_PT, color: RULE });
     },
   });
   const add = (font: PDFFont, text: string, color: Color = INK, label?: string) => {
@@ -111,10 +111,10 @@ export function checkCardItems(ctx: Ctx, r: CheckResult, w: number): Item[] {
   const pairRows = (title: string, rows: { label: string; value: string }[], bold: boolean) => {
     if (!rows.length) return;
     items.push(indent({
-      h: 11,
+      h: 13,
       draw(page, x, top, ww) {
-        drawText(page, title.toUpperCase(), { x, y: top - 8.5, size: 6.2, font: fonts.condensedBold, color: MUTED });
-        page.drawLine({ start: { x, y: top - 10.5 }, end: { x: x + ww, y: top - 10.5 }, thickness: 0.3, color: HAIR });
+        drawText(page, title.toUpperCase(), { x, y: top - 10, size: MIN_TEXT, font: fonts.condensedBold, color: INK });
+        page.drawLine({ start: { x, y: top - 12.5 }, end: { x: x + ww, y: top - 12.5 }, thickness: RULE_PT, color: HAIR });
       },
     }));
     for (const row of rows) {

@@ -9,9 +9,10 @@ export const PAGE_W = 17 * 72;
 export const PAGE_H = 11 * 72;
 /** Wider left margin for binding. */
 export const OUTER = { left: 36, right: 18, top: 18, bottom: 18 };
-export const ZONE = 10;
+/** Zone band: room for 8 pt zone numbers. */
+export const ZONE = 12;
 export const INNER = { x0: OUTER.left + ZONE, x1: PAGE_W - OUTER.right - ZONE, y0: OUTER.bottom + ZONE, y1: PAGE_H - OUTER.top - ZONE };
-export const TITLE_W = 200;
+export const TITLE_W = 216;
 export const TB = { x0: INNER.x1 - TITLE_W, x1: INNER.x1, y0: INNER.y0, y1: INNER.y1 };
 export const BAND_H = 18;
 export const PAD = 12;
@@ -21,18 +22,26 @@ export const FLOW_TOP = CONTENT.top - HEADING_H;
 export const GUTTER = 18;
 
 export const INK = rgb(0.08, 0.08, 0.1);
-export const MUTED = rgb(0.38, 0.38, 0.42);
+/** Secondary text: still near-black, so it survives a half-size copy. */
+export const MUTED = rgb(0.2, 0.2, 0.24);
 export const RULE = rgb(0.55, 0.55, 0.6);
-export const HAIR = rgb(0.78, 0.78, 0.8);
+export const HAIR = rgb(0.45, 0.45, 0.5);
 export const FILL = rgb(0.91, 0.91, 0.93);
 /** The one signal colour, reserved for what fails. */
 export const SIGNAL = rgb(0.75, 0.07, 0.12);
 export const WHITE = rgb(1, 1, 1);
 
-export const BODY = 8.5;
-export const BODY_LH = 11.5;
-export const SMALL = 7.2;
-export const SMALL_LH = 9.2;
+/**
+ * The smallest lettering a sheet carries: 8 pt at full size (17 × 11) stays
+ * about 5.5 pt on a half-size counter copy; plan-review guides ask for 1/8 in.
+ */
+export const MIN_TEXT = 8;
+/** Thinnest table rule that survives a half-size copy. */
+export const RULE_PT = 0.5;
+export const BODY = 9;
+export const BODY_LH = 12;
+export const SMALL = MIN_TEXT;
+export const SMALL_LH = 10.2;
 
 export interface Ctx {
   doc: PDFDocument;
@@ -60,7 +69,10 @@ export interface Group {
 
 export interface PageInfo {
   page: PDFPage;
+  /** This page's sheet number: the sheet's code, then E-003.1, E-003.2 … for the sheets its content flowed onto. */
   sheet: string;
+  /** The sheet's code in the plan. */
+  baseSheet: string;
   title: string;
   index: number;
   count: number;

@@ -1,8 +1,8 @@
-import { type PDFFont, type PDFImage, type PDFPage } from "pdf-lib";
+import type { PDFFont, PDFImage, PDFPage } from "pdf-lib";
 import type { PdfFonts } from "../fonts";
 import { drawText } from "../text-layer";
 import { fitText, textWidth, wrapText } from "../text";
-import { BAND_H, INK, INNER, MUTED, OUTER, PAGE_H, PAGE_W, TB, TITLE_W, type Ctx, type PageInfo } from "./style";
+import { BAND_H, INK, INNER, MIN_TEXT, MUTED, RULE_PT, OUTER, PAGE_H, PAGE_W, TB, TITLE_W, type Ctx, type PageInfo } from "./style";
 
 export function drawZones(page: PDFPage, fonts: PdfFonts) {
   const outer = { x0: OUTER.left, y0: OUTER.bottom, x1: PAGE_W - OUTER.right, y1: PAGE_H - OUTER.top };
@@ -14,22 +14,22 @@ export function drawZones(page: PDFPage, fonts: PdfFonts) {
   const rh = (INNER.y1 - INNER.y0) / rows;
   for (let i = 0; i <= cols; i += 1) {
     const x = INNER.x0 + i * cw;
-    page.drawLine({ start: { x, y: outer.y1 }, end: { x, y: INNER.y1 }, thickness: 0.4, color: INK });
-    page.drawLine({ start: { x, y: outer.y0 }, end: { x, y: INNER.y0 }, thickness: 0.4, color: INK });
+    page.drawLine({ start: { x, y: outer.y1 }, end: { x, y: INNER.y1 }, thickness: RULE_PT, color: INK });
+    page.drawLine({ start: { x, y: outer.y0 }, end: { x, y: INNER.y0 }, thickness: RULE_PT, color: INK });
     if (i < cols) {
       const n = String(cols - i);
-      drawText(page, n, { x: x + cw / 2 - 2, y: INNER.y1 + 2.2, size: 6, font: fonts.condensed, color: MUTED });
-      drawText(page, n, { x: x + cw / 2 - 2, y: outer.y0 + 2.2, size: 6, font: fonts.condensed, color: MUTED });
+      drawText(page, n, { x: x + cw / 2 - 2.2, y: INNER.y1 + 2.6, size: MIN_TEXT, font: fonts.condensed, color: INK });
+      drawText(page, n, { x: x + cw / 2 - 2.2, y: outer.y0 + 2.6, size: MIN_TEXT, font: fonts.condensed, color: INK });
     }
   }
   for (let j = 0; j <= rows; j += 1) {
     const y = INNER.y0 + j * rh;
-    page.drawLine({ start: { x: outer.x0, y }, end: { x: INNER.x0, y }, thickness: 0.4, color: INK });
-    page.drawLine({ start: { x: INNER.x1, y }, end: { x: outer.x1, y }, thickness: 0.4, color: INK });
+    page.drawLine({ start: { x: outer.x0, y }, end: { x: INNER.x0, y }, thickness: RULE_PT, color: INK });
+    page.drawLine({ start: { x: INNER.x1, y }, end: { x: outer.x1, y }, thickness: RULE_PT, color: INK });
     if (j < rows) {
       const letter = "ABCDEF"[j] ?? "";
-      drawText(page, letter, { x: outer.x0 + 2.5, y: y + rh / 2 - 2, size: 6, font: fonts.condensed, color: MUTED });
-      drawText(page, letter, { x: INNER.x1 + 2.5, y: y + rh / 2 - 2, size: 6, font: fonts.condensed, color: MUTED });
+      drawText(page, letter, { x: outer.x0 + 3, y: y + rh / 2 - 3, size: MIN_TEXT, font: fonts.condensed, color: INK });
+      drawText(page, letter, { x: INNER.x1 + 3, y: y + rh / 2 - 3, size: MIN_TEXT, font: fonts.condensed, color: INK });
     }
   }
 }
@@ -41,86 +41,94 @@ export function drawTitleBlock(ctx: Ctx, info: PageInfo, pageNo: number, total: 
   const x = TB.x0 + 8;
   const w = TITLE_W - 16;
   page.drawLine({ start: { x: TB.x0, y: TB.y0 }, end: { x: TB.x0, y: TB.y1 }, thickness: 1.4, color: INK });
-  let y = TB.y1 - 8;
+  let y = TB.y1 - 6;
   const rule = () => {
-    y -= 5;
+    y -= 4;
     page.drawLine({ start: { x: TB.x0, y }, end: { x: TB.x1, y }, thickness: 0.6, color: INK });
-    y -= 8;
+    y -= 4;
   };
   const label = (t: string) => {
-    drawText(page, t, { x, y: y - 6, size: 5.8, font: fonts.condensedBold, color: MUTED });
-    y -= 9;
+    drawText(page, t, { x, y: y - MIN_TEXT, size: MIN_TEXT, font: fonts.condensedBold, color: MUTED });
+    y -= MIN_TEXT + 2.5;
   };
   const lines = (t: string, font: PDFFont, size: number, max = 3) => {
     for (const l of wrapText(font, size, t, w).slice(0, max)) {
       drawText(page, l, { x, y: y - size, size, font, color: INK });
-      y -= size * 1.25;
+      y -= size * 1.22;
     }
   };
   lines(tb.firm, fonts.bold, 10.5, 2);
-  lines(`Prepared by ${tb.preparedBy}`, fonts.condensed, 7);
+  if (tb.firmLicence) lines(tb.firmLicence, fonts.condensed, MIN_TEXT, 2);
+  if (tb.firmContact) lines(tb.firmContact, fonts.condensed, MIN_TEXT, 2);
+  lines(`Prepared by ${tb.preparedBy}`, fonts.condensed, MIN_TEXT, 1);
   rule();
   label("PROJECT");
   lines(tb.project, fonts.bold, 9.5, 2);
-  if (tb.client) lines(tb.client, fonts.condensed, 7.2, 1);
-  lines(tb.address || "Address not given", fonts.condensed, 7.2, 2);
+  if (tb.client) lines(tb.client, fonts.condensed, MIN_TEXT, 1);
+  lines(tb.address || "Address not given", fonts.condensed, MIN_TEXT, 2);
   rule();
   label("AUTHORITY HAVING JURISDICTION");
-  lines(tb.jurisdiction, fonts.condensed, 7.2, 2);
-  lines(`${tb.edition}`, fonts.condensedBold, 7.2, 1);
+  lines(tb.jurisdiction, fonts.condensed, MIN_TEXT, 2);
+  lines(`${tb.edition}`, fonts.condensedBold, MIN_TEXT, 1);
   rule();
   label("REVISION");
-  drawText(page, `Rev ${tb.revision}`, { x, y: y - 8, size: 8, font: fonts.bold, color: INK });
-  drawText(page, tb.date, { x: x + 44, y: y - 8, size: 8, font: fonts.condensed, color: INK });
-  drawText(page, model.marking.approved ? "Approved" : model.draft.isDraft ? "Draft for review" : "Issued for review", { x: x + 100, y: y - 8, size: 7, font: fonts.condensed, color: INK });
+  drawText(page, `Rev ${tb.revision}`, { x, y: y - 9, size: 9, font: fonts.bold, color: INK });
+  drawText(page, tb.date, { x: x + 44, y: y - 9, size: 9, font: fonts.condensed, color: INK });
+  drawText(page, model.marking.approved ? "Approved" : model.draft.isDraft ? "Draft for review" : "Issued for review", { x: x + 106, y: y - 9, size: MIN_TEXT, font: fonts.condensed, color: INK });
   y -= 12;
   rule();
   label(model.marking.approved ? "PROFESSIONAL REVIEW" : "REVIEW STATUS");
-  const boxH = 168;
+  const boxH = 140;
   const boxTop = y;
   page.drawRectangle({ x, y: boxTop - boxH, width: w, height: boxH, borderColor: INK, borderWidth: 0.8 });
   if (model.marking.approved) {
     const a = ctx.input.approval!;
     let ty = boxTop - 6;
     if (stamp) {
-      const s = Math.min((w - 16) / stamp.width, 108 / stamp.height);
+      const s = Math.min((w - 16) / stamp.width, 80 / stamp.height);
       page.drawImage(stamp, { x: x + (w - stamp.width * s) / 2, y: ty - stamp.height * s, width: stamp.width * s, height: stamp.height * s });
       ty -= stamp.height * s + 6;
     } else {
       ty -= 4;
     }
     for (const [t, font, size] of [
-      [a.reviewerName, fonts.bold, 8],
-      [`Licence ${a.licenceNumber} · ${a.licenceState}`, fonts.condensed, 7],
-      [a.licenceDiscipline, fonts.condensed, 7],
-      [`Approved ${a.approvedAt.slice(0, 10)}`, fonts.condensed, 7],
+      [a.reviewerName, fonts.bold, 9],
+      [`Licence ${a.licenceNumber} · ${a.licenceState}`, fonts.condensed, MIN_TEXT],
+      [a.licenceDiscipline, fonts.condensed, MIN_TEXT],
+      [`Approved ${a.approvedAt.slice(0, 10)}`, fonts.condensed, MIN_TEXT],
     ] as const) {
       drawText(page, fitText(font, size, t, w - 8), { x: x + 4, y: ty - size, size, font, color: INK });
-      ty -= size * 1.3;
+      ty -= size * 1.25;
     }
   } else {
     const msg = ["PREPARED FOR REVIEW BY A", "LICENSED PROFESSIONAL", "", "NOT FOR CONSTRUCTION", "UNTIL STAMPED"];
-    let ty = boxTop - 50;
+    let ty = boxTop - 40;
     for (const m of msg) {
-      const tw = textWidth(fonts.bold, m, 8.5);
-      if (m) drawText(page, m, { x: x + (w - tw) / 2, y: ty, size: 8.5, font: fonts.bold, color: INK });
-      ty -= 11;
+      const tw = textWidth(fonts.bold, m, 9);
+      if (m) drawText(page, m, { x: x + (w - tw) / 2, y: ty, size: 9, font: fonts.bold, color: INK });
+      ty -= 12;
     }
-    drawText(page, "Stamp", { x: x + 4, y: boxTop - boxH + 4, size: 5.8, font: fonts.condensed, color: MUTED });
+    drawText(page, "Professional stamp", { x: x + 4, y: boxTop - boxH + 4, size: MIN_TEXT, font: fonts.condensed, color: MUTED });
   }
   y = boxTop - boxH - 2;
   rule();
+  // Kept blank for the jurisdiction's approval stamp, on every sheet: the counter stamps each one.
+  label("AHJ APPROVAL STAMP");
+  const ahjH = 104;
+  page.drawRectangle({ x, y: y - ahjH, width: w, height: ahjH, borderColor: INK, borderWidth: 0.8, borderDashArray: [4, 3] });
+  y -= ahjH + 2;
+  rule();
   label("SHEET TITLE");
-  lines(info.title, fonts.bold, 9, 3);
+  lines(info.title, fonts.bold, 9, 2);
   // The sheet number sits in the bottom corner, where a reader flipping the set looks.
-  const numSize = 24;
+  const numSize = 22;
   page.drawLine({ start: { x: TB.x0, y: TB.y0 + 58 }, end: { x: TB.x1, y: TB.y0 + 58 }, thickness: 0.6, color: INK });
-  drawText(page, "SHEET", { x, y: TB.y0 + 49, size: 5.8, font: fonts.condensedBold, color: MUTED });
+  drawText(page, "SHEET", { x, y: TB.y0 + 47, size: MIN_TEXT, font: fonts.condensedBold, color: MUTED });
   drawText(page, info.sheet, { x, y: TB.y0 + 22, size: numSize, font: fonts.bold, color: INK });
-  const sub = info.count > 1 ? `page ${info.index} of ${info.count} of this sheet` : "";
-  if (sub) drawText(page, sub, { x, y: TB.y0 + 11, size: 6.5, font: fonts.condensed, color: INK });
-  const pn = `${pageNo} / ${total}`;
-  drawText(page, pn, { x: TB.x1 - 8 - textWidth(fonts.condensed, pn, 7), y: TB.y0 + 49, size: 7, font: fonts.condensed, color: INK });
+  const sub = info.count > 1 ? `sheet ${info.index} of ${info.count} of ${info.baseSheet}` : "";
+  if (sub) drawText(page, sub, { x, y: TB.y0 + 9, size: MIN_TEXT, font: fonts.condensed, color: INK });
+  const pn = `page ${pageNo} / ${total}`;
+  drawText(page, pn, { x: TB.x1 - 8 - textWidth(fonts.condensed, pn, MIN_TEXT), y: TB.y0 + 47, size: MIN_TEXT, font: fonts.condensed, color: INK });
 }
 
 export function drawBand(ctx: Ctx, page: PDFPage) {

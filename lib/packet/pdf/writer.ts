@@ -5,7 +5,10 @@ import { drawText } from "../text-layer";
 import { wrapText } from "../text";
 import { labelRowItem, sitePlanItem } from "./figures";
 import { checkCardItems, paragraphItems, tableItems } from "./items";
-import { BODY, BODY_LH, CONTENT, FLOW_TOP, GUTTER, HAIR, INK, MUTED, RULE, WHITE, type Ctx, type Group, type Item } from "./style";
+import { BODY, BODY_LH, CONTENT, FLOW_TOP, GUTTER, HAIR, INK, MIN_TEXT, MUTED, RULE, RULE_PT, WHITE, type Ctx, type Group, type Item } from "./style";
+
+/** Line height of a label :: value row. */
+const FIELD_LH = 11;
 
 export class SheetWriter {
   pages: PDFPage[] = [];
@@ -29,13 +32,14 @@ export class SheetWriter {
     this.col = 0;
     this.y = FLOW_TOP;
     const { fonts } = this.ctx;
-    const heading = `${this.sheet.code}  ${this.sheet.title.toUpperCase()}${this.pages.length > 1 ? "  (CONTINUED)" : ""}`;
+    const n = this.pages.length - 1;
+    const heading = `${n > 0 ? `${this.sheet.code}.${n}` : this.sheet.code}  ${this.sheet.title.toUpperCase()}${n > 0 ? "  (CONTINUED)" : ""}`;
     drawText(this.page, heading, { x: CONTENT.x0, y: CONTENT.top - 13, size: 12, font: fonts.bold, color: INK });
     this.page.drawLine({ start: { x: CONTENT.x0, y: CONTENT.top - 19 }, end: { x: CONTENT.x1, y: CONTENT.top - 19 }, thickness: 1.2, color: INK });
     if (this.sheet.columns > 1) {
       for (let c = 1; c < this.sheet.columns; c += 1) {
         const gx = CONTENT.x0 + c * (this.colW + GUTTER) - GUTTER / 2;
-        this.page.drawLine({ start: { x: gx, y: FLOW_TOP }, end: { x: gx, y: CONTENT.bottom }, thickness: 0.25, color: HAIR });
+        this.page.drawLine({ start: { x: gx, y: FLOW_TOP }, end: { x: gx, y: CONTENT.bottom }, thickness: RULE_PT, color: HAIR });
       }
     }
   }
@@ -97,7 +101,7 @@ export class SheetWriter {
     blocks.forEach((block, index) => {
       switch (block.kind) {
         case "heading": {
-          const size = block.level === 1 ? 12 : block.level === 2 ? 9.5 : 8.5;
+          const size = block.level === 1 ? 12 : block.level === 2 ? 10 : 9;
           const text = block.level === 2 ? block.text.toUpperCase() : block.text;
           const items = paragraphItems(fonts.bold, size, size * 1.4, text, w);
           if (block.level === 2) {
@@ -121,9 +125,9 @@ export class SheetWriter {
             h: it.h,
             draw(p, x, top, ww) {
               if (i === 0) {
-                const s = 10;
-                p.drawSvgPath(`M ${s / 2} 0 L ${s} ${s * 0.87} L 0 ${s * 0.87} Z`, { x: x + 7, y: top - 1.5, borderColor: INK, borderWidth: 1, color: WHITE });
-                drawText(p, "!", { x: x + 10.6, y: top - 8.6, size: 6.5, font: fonts.bold, color: INK });
+                const s = 13;
+                p.drawSvgPath(`M ${s / 2} 0 L ${s} ${s * 0.87} L 0 ${s * 0.87} Z`, { x: x + 5, y: top - 0.5, borderColor: INK, borderWidth: 1, color: WHITE });
+                drawText(p, "!", { x: x + 9.2, y: top - 10.2, size: MIN_TEXT, font: fonts.bold, color: INK });
               }
               it.draw(p, x + 22, top, ww - 26);
             },
@@ -136,15 +140,15 @@ export class SheetWriter {
         case "fields": {
           const keyW = Math.min(150, w * 0.34);
           const items = block.rows.map(([k, v]): Item => {
-            const keyLines = wrapText(fonts.condensedBold, BODY - 0.5, k, keyW - 6);
-            const valLines = wrapText(fonts.regular, BODY - 0.5, v || "—", w - keyW);
-            const h = Math.max(keyLines.length, valLines.length) * (BODY_LH - 0.5) + 2;
+            const keyLines = wrapText(fonts.condensedBold, MIN_TEXT, k, keyW - 6);
+            const valLines = wrapText(fonts.regular, MIN_TEXT, v || "—", w - keyW);
+            const h = Math.max(keyLines.length, valLines.length) * FIELD_LH + 2;
             return {
               h,
               draw(p, x, top, ww) {
-                keyLines.forEach((l, i) => drawText(p, l, { x, y: top - (i + 1) * (BODY_LH - 0.5) + 2.5, size: BODY - 0.5, font: fonts.condensedBold, color: MUTED }));
-                valLines.forEach((l, i) => drawText(p, l, { x: x + keyW, y: top - (i + 1) * (BODY_LH - 0.5) + 2.5, size: BODY - 0.5, font: fonts.regular, color: INK }));
-                p.drawLine({ start: { x, y: top - h + 0.5 }, end: { x: x + ww, y: top - h + 0.5 }, thickness: 0.25, color: HAIR });
+                keyLines.forEach((l, i) => drawText(p, l, { x, y: top - (i + 1) * FIELD_LH + 2.6, size: MIN_TEXT, font: fonts.condensedBold, color: MUTED }));
+                valLines.forEach((l, i) => drawText(p, l, { x: x + keyW, y: top - (i + 1) * FIELD_LH + 2.6, size: MIN_TEXT, font: fonts.regular, color: INK }));
+                p.drawLine({ start: { x, y: top - h + 0.5 }, end: { x: x + ww, y: top - h + 0.5 }, thickness: RULE_PT, color: HAIR });
               },
             };
           });
@@ -178,7 +182,7 @@ export class SheetWriter {
               items: [{
                 h,
                 draw(p, x, top, ww) {
-                  p.drawRectangle({ x, y: top - h, width: ww, height: h, borderColor: HAIR, borderWidth: 0.5 });
+                  p.drawRectangle({ x, y: top - h, width: ww, height: h, borderColor: HAIR, borderWidth: RULE_PT });
                   drawer(p, { x: x + 6, y: top - h + 6, width: ww - 12, height: h - 12 }, { regular: fonts.regular, bold: fonts.bold });
                 },
               }],

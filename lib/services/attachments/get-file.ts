@@ -4,12 +4,11 @@ import { users } from "../../../db/schema";
 import { fileStore, StoredFileMissingError } from "../../storage";
 import type { ServiceContext } from "../context";
 import { notFound, ServiceError } from "../errors";
-import { findAttachmentInOrg, requireAttachmentRead, revisionsUsing, storageKeyOf, toView, type AttachmentView } from "./view";
+import { findReadableAttachment, revisionsUsing, storageKeyOf, toView, type AttachmentView } from "./view";
 
 /** One attachment of the actor's organisation, without its bytes. */
 export function getAttachment(ctx: ServiceContext, id: string): AttachmentView {
-  requireAttachmentRead(ctx);
-  const row = findAttachmentInOrg(ctx, id);
+  const row = findReadableAttachment(ctx, id);
   const uploader = row.uploadedBy ? ctx.db.select({ name: users.name }).from(users).where(eq(users.id, row.uploadedBy)).get() : undefined;
   return toView(row, uploader?.name ?? null, revisionsUsing(ctx).get(row.id) ?? []);
 }

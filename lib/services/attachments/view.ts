@@ -55,6 +55,34 @@ export function requireAttachmentRead(ctx: ServiceContext): void {
   if (!can(ctx.roles, "project:read") && !can(ctx.roles, "packet:read")) throw forbidden("see attachments");
 }
 
+/**
+ * Whether the actor reads only approved sets (an installer): they see the
+ * files an approved revision merged, and the site photos of a project that has
+ * an approved revision, never a design still in progress or a reviewer's stamp.
+ */
+export function readsApprovedSetsOnly(ctx: ServiceContext): boolean {
+  return !can(ctx.roles, "project:read");
+}
+
+export function isInApprovedSet(ctx: ServiceContext, row: Pick<Attachment, "id" | "projectId" | "kind">): boolean {
+  if (!row.projectId) return false;
+  const approved = ctx.db
+    .select({ attachmentIds: packetRevisions.attachmentIds })
+    .from(packetRevisions)
+    .where(and(eq(packetRevisions.orgId, ctx.orgId), eq(packetRevisions.projectId, row.projectId), eq(packetRevisions.reviewState, "approved")))
+    .all();
+  if (approved.length === 0) return false;
+  return row.kind === "photo" || approved.some((r) => r.attachmentIds.includes(row.id));
+}
+
+/** An attachment the actor may read: of their organisation, and for an installer part of an approved set. */
+export function findReadableAttachment(ctx: ServiceContext, id: string): Attachment {
+  requireAttachmentRead(ctx);
+  const row = findAttachmentInOrg(ctx, id);
+  if (readsApprovedSetsOnly(ctx) && !isInApprovedSet(ctx, row)) throw notFound("Attachment");
+  return row;
+}
+
 export function findAttachmentInOrg(ctx: ServiceContext, id: string): Attachment {
   const row = ctx.db
     .select()

@@ -1,8 +1,9 @@
-import { and, eq, inArray } from "drizzle-orm";
-import { equipmentLibrary, jurisdictions, loads, circuits, projectEquipment, projects, pvArrays } from "../../../db/schema";
+import { and, eq } from "drizzle-orm";
+import { jurisdictions, loads, circuits, projectEquipment, projects, pvArrays } from "../../../db/schema";
 import { parseProjectFile } from "../../compliance";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { invalid, notFound } from "../errors";
+import { keepOwnLibraryLinks } from "./library-links";
 import { recordToRows } from "./mapping";
 
 export interface ImportResult {
@@ -48,25 +49,7 @@ export function importProject(ctx: ServiceContext, file: unknown, jurisdictionId
     }
   }
 
-  // Library links are kept only where they name this organisation's own items.
-  const linked = record.equipment.map((e) => e.libraryItemId).filter((id): id is string => Boolean(id));
-  const ownLibraryIds = new Set(
-    linked.length
-      ? ctx.db
-          .select({ id: equipmentLibrary.id })
-          .from(equipmentLibrary)
-          .where(and(eq(equipmentLibrary.orgId, ctx.orgId), inArray(equipmentLibrary.id, linked)))
-          .all()
-          .map((r) => r.id)
-      : [],
-  );
-  const rows = recordToRows({
-    ...record,
-    equipment: record.equipment.map((e) => ({
-      ...e,
-      libraryItemId: e.libraryItemId && ownLibraryIds.has(e.libraryItemId) ? e.libraryItemId : undefined,
-    })),
-  } as never);
+  const rows = recordToRows({ ...record, equipment: keepOwnLibraryLinks(ctx, record.equipment) } as never);
 
   const jurisdictionIdChosen = jurisdiction.id;
   const id = ctx.db.transaction((tx) => {

@@ -146,7 +146,7 @@ export function recordToRows(record: Parsed) {
     if ((SITE_COLUMNS as readonly string[]).includes(key)) siteColumns[key] = value ?? null;
     else siteExtra[key] = value;
   }
-  for (const key of SITE_COLUMNS) if (!(key in siteColumns)) siteColumns[key] = null;
+  for (const key of SITE_COLUMNS) if (!Object.hasOwn(siteColumns, key)) siteColumns[key] = null;
   const extra: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(record)) if (!RECORD_KEYS_IN_ROWS.has(key)) extra[key] = value;
   if (Object.keys(siteExtra).length) extra.site = siteExtra;

@@ -5,6 +5,7 @@ import { projectRecordSchema, type ProjectRecordInput } from "../../schemas/proj
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid } from "../errors";
 import { findProjectInOrg } from "./load";
+import { keepOwnLibraryLinks } from "./library-links";
 import { recordToRows } from "./mapping";
 
 /**
@@ -26,7 +27,7 @@ export function saveProjectRecord(
   if (project.status === "approved" || project.status === "submitted" || project.status === "permitted") {
     // Editing is still allowed: the approved revision keeps its snapshot and the next revision needs review again.
   }
-  const rows = recordToRows(parsed.data as never);
+  const rows = recordToRows({ ...parsed.data, equipment: keepOwnLibraryLinks(ctx, parsed.data.equipment) } as never);
   return ctx.db.transaction((tx) => {
     const updated = tx
       .update(projects)

@@ -23,6 +23,7 @@ import { getAttachment, getAttachmentFile, getAttachmentFiles } from "../attachm
 import { contextForUser, type ServiceContext } from "../context";
 import { ServiceError } from "../errors";
 import { documentTitle } from "./documents";
+import { revisionHistoryFor } from "./history";
 import { packetsRoot, removePacketFile, writePacketFile, type WrittenPacketFile } from "./packet-files";
 import type { ProgressStep } from "./view";
 
@@ -152,7 +153,7 @@ export async function generateRevisionArtifacts(db: Db, revisionId: string, opti
     if (!run || !Array.isArray(run.results) || !run.counts) throw new StepError("the check results snapshot is missing");
     const labels = requiredLabels(record, run.edition);
     const { approval, stampAttachmentId, notes } = approvalFor(db, row);
-    const org = db.select({ name: organisations.name }).from(organisations).where(eq(organisations.id, row.orgId)).get();
+    const org = db.select().from(organisations).where(eq(organisations.id, row.orgId)).get();
     const author = db.select({ name: users.name }).from(users).where(eq(users.id, row.createdBy)).get();
 
     at("sheets");
@@ -177,7 +178,17 @@ export async function generateRevisionArtifacts(db: Db, revisionId: string, opti
       record,
       run,
       labels,
-      revision: { number: row.number, createdAt: row.createdAt, preparedBy: author?.name ?? "", organisation: org?.name ?? "" },
+      revision: {
+        number: row.number,
+        createdAt: row.createdAt,
+        preparedBy: author?.name ?? "",
+        organisation: org?.name ?? "",
+        ...(org?.licenceNumber
+          ? { organisationLicence: { number: org.licenceNumber, classification: org.licenceClassification ?? undefined, state: org.licenceState ?? undefined } }
+          : {}),
+        organisationContact: { phone: org?.phone ?? undefined, email: org?.email ?? undefined, address: org?.address ?? undefined },
+      },
+      revisionHistory: revisionHistoryFor(db, row),
       ...(approval ? { approval: { ...approval, ...(stampImage ? { stampImage } : {}) } } : {}),
       reviewNotes: notes,
       ...(sitePlan ? { sitePlan } : {}),

@@ -110,8 +110,8 @@ describe("rapid shutdown (690.12)", () => {
     expect(result(run(j), "rapid-shutdown").status).toBe("fail");
   });
 
-  it("is not applicable to a ground mount, with the reason", () => {
-    const r = result(run(exampleJson("tamarack-hut")), "rapid-shutdown");
+  it("is not applicable to a ground mount whose PV circuits stay outside buildings, with the reason", () => {
+    const r = result(run(exampleJson("market-stall")), "rapid-shutdown");
     expect(r.status).toBe("not-applicable");
     expect(r.reason).toMatch(/ground-mounted/);
   });

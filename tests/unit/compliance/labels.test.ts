@@ -33,7 +33,9 @@ describe("required labels", () => {
     const f = parse(exampleJson("ferncliff-farmhouse"));
     expect(byId(requiredLabels(f, "2023"), "rapid-shutdown").codeRef).toBe("NEC 2023 690.12(D)");
     expect(byId(requiredLabels(f, "2020"), "rapid-shutdown").codeRef).toBe("NEC 2020 690.56(C)");
-    expect(requiredLabels(parse(exampleJson("tamarack-hut"))).some((l) => l.id === "rapid-shutdown")).toBe(false);
+    // A ground array whose circuits stay outside buildings needs none; the hut's circuit enters the hut, so it does.
+    expect(requiredLabels(parse(exampleJson("market-stall"))).some((l) => l.id === "rapid-shutdown")).toBe(false);
+    expect(requiredLabels(parse(exampleJson("tamarack-hut"))).some((l) => l.id === "rapid-shutdown")).toBe(true);
   });
 
   it("requires the single 120-volt supply warning where a 120 V inverter feeds a 120/240 V panel (710.15(C))", () => {

@@ -213,6 +213,7 @@ describe("remedies on the demo mistakes", () => {
       ["market-stall", (j) => (j.loads[0].watts = 900), "stand-alone-supply", "W continuous"],
       ["market-stall", (j) => (equipment(j, "INV-1").listedMode = "interactive"), "device-ratings:INV-1", "stand-alone or multimode"],
       ["ferncliff-farmhouse", (j) => (j.rapidShutdownMethod = "none"), "rapid-shutdown", "method"],
+      ["ferncliff-farmhouse", (j) => (j.rapidShutdownInsideBoundary = "none"), "rapid-shutdown", "80 V or less within 30 s"],
       ["ferncliff-farmhouse", (j) => (j.site.batteryLocation = "habitable-room"), "storage-siting", "Move the storage"],
     ];
     for (const [name, mutate, id, words] of cases) {

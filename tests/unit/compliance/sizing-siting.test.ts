@@ -3,16 +3,18 @@ import { loadSummary } from "@/lib/compliance";
 import { equipment, exampleJson, parse, result, run, value } from "./fixtures";
 
 describe("load summary and stand-alone sizing (common practice)", () => {
-  it("adds loads and the inverter's idle draw over 24 h", () => {
+  it("adds the loads through the inverter's efficiency and its idle draw over 24 h", () => {
     const s = loadSummary(parse(exampleJson("tamarack-hut")));
     // 10 × 6 W × 4 h + 500 W × 0.5 h + 15 W × 24 h + 50 W × 3 h + 30 W × 3 h = 240 + 250 + 360 + 150 + 90 = 1090 Wh
     expect(s.dailyLoadWh).toBeCloseTo(1090, 6);
     // 20 W idle × 24 h = 480 Wh
     expect(s.idleWh).toBe(480);
-    expect(s.dailyTotalWh).toBeCloseTo(1570, 6);
-    // 5.12 kWh × 90 % = 4608 Wh usable; 4608 ÷ 1570 = 2.94 days
+    // AC loads drawn through the 92 % inverter (common practice): 1090 ÷ 0.92 = 1184.78 Wh, a 94.78 Wh loss; + 480 Wh idle = 1664.78 Wh
+    expect(s.conversionLossWh).toBeCloseTo(94.78, 2);
+    expect(s.dailyTotalWh).toBeCloseTo(1664.78, 2);
+    // 5.12 kWh × 90 % = 4608 Wh usable; 4608 ÷ 1664.78 = 2.77 days
     expect(s.usableStorageWh).toBeCloseTo(4608, 6);
-    expect(s.autonomyDays).toBeCloseTo(2.935, 3);
+    expect(s.autonomyDays).toBeCloseTo(2.768, 3);
     expect(s.largestSurgeW).toBe(1500);
   });
 
@@ -20,9 +22,9 @@ describe("load summary and stand-alone sizing (common practice)", () => {
     const j = exampleJson("tamarack-hut");
     delete j.daysOfAutonomy;
     j.loads.push({ name: "Space heater fan", watts: 100, hoursPerDay: 24 });
-    // 1570 + 2400 = 3970 Wh a day; 4608 Wh lasts 1.16 days < 2
+    // (1090 + 2400) ÷ 0.92 + 480 = 4273.5 Wh a day; 4608 Wh lasts 1.08 days < 2
     const r = result(run(j), "stand-alone-sizing");
-    expect(value(r, "autonomyDays")).toBeCloseTo(1.16, 2);
+    expect(value(r, "autonomyDays")).toBeCloseTo(1.078, 2);
     expect(r.status).toBe("warning");
     expect(r.reason).toMatch(/fewer than the 2 days/);
   });
@@ -30,7 +32,7 @@ describe("load summary and stand-alone sizing (common practice)", () => {
   it("asks for the generator's hours when the array falls short, and warns without a generator", () => {
     const j = exampleJson("tamarack-hut");
     j.site.sunHoursPerDay = 2;
-    // 800 W × 2 h × 0.75 = 1200 Wh < 1570 Wh
+    // 800 W × 2 h × 0.75 = 1200 Wh < 1664.8 Wh
     expect(result(run(j), "stand-alone-sizing").status).toBe("attest");
     j.systemKind = "stand-alone";
     expect(result(run(j), "stand-alone-sizing").status).toBe("warning");
@@ -38,6 +40,27 @@ describe("load summary and stand-alone sizing (common practice)", () => {
 
   it("is not applicable to a grid-interactive system", () => {
     expect(result(run(exampleJson("ferncliff-farmhouse")), "stand-alone-sizing").status).toBe("not-applicable");
+  });
+
+  it("counts the inverter's efficiency: a bank that lasts 1.8 days does not meet a 2-day target", () => {
+    const j = exampleJson("market-stall");
+    equipment(j, "INV-1").efficiencyPct = 85;
+    j.loads = [{ name: "Cold display", watts: 115.6, hoursPerDay: 8 }];
+    // 115.6 W × 8 h = 924.8 Wh ÷ 0.85 = 1088 Wh + 8 W × 24 h = 1280 Wh; 2 × 1.28 kWh × 90 % = 2304 Wh ÷ 1280 = 1.8 days.
+    // Without the efficiency it would read 924.8 + 192 = 1116.8 Wh → 2.06 days, a false pass.
+    const r = result(run(j), "stand-alone-sizing");
+    expect(value(r, "autonomyDays")).toBeCloseTo(1.8, 3);
+    expect(r.status).toBe("warning");
+    expect(r.formula).toMatch(/efficiency 85 %/);
+    expect(r.formula).toMatch(/not counted/);
+  });
+
+  it("needs the inverter's efficiency", () => {
+    const j = exampleJson("tamarack-hut");
+    delete equipment(j, "INV-1").efficiencyPct;
+    const r = result(run(j), "stand-alone-sizing");
+    expect(r.status).toBe("needs-input");
+    expect(r.missing).toContain("equipment.3.efficiencyPct");
   });
 
   it("needs the inverter's idle draw", () => {

@@ -114,7 +114,9 @@ describe("one-line PDF drawing", () => {
     const content = await page.getTextContent();
     for (const it of content.items) {
       if (!("transform" in it) || it.str.trim() === "") continue;
-      const [, , , , x, y] = it.transform as number[];
+      const [a, b, , , x, y] = it.transform as number[];
+      // Scaled down to fit, the lettering still stays at 8 pt or more (legible on a half-size copy, common practice).
+      expect(Math.hypot(a!, b!)).toBeGreaterThanOrEqual(7.99);
       expect(x!).toBeGreaterThanOrEqual(box.x - 0.5);
       expect(x! + it.width).toBeLessThanOrEqual(box.x + box.width + 0.5);
       expect(y!).toBeGreaterThanOrEqual(box.y - 0.5);

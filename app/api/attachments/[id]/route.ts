@@ -2,6 +2,7 @@ import { NextResponse } from "next/server";
 import { requireContext } from "@/lib/auth/session";
 import { handle, readJson } from "@/lib/http";
 import { deleteAttachment, getAttachmentFile, linkAttachmentToEquipment } from "@/lib/services/attachments";
+import { inlineFileHeaders } from "@/lib/security-headers";
 
 /** RFC 6266 / RFC 5987: an ASCII fallback name and the exact UTF-8 name. */
 function contentDisposition(kind: "attachment" | "inline", fileName: string): string {
@@ -20,7 +21,7 @@ export const GET = handle(async (request: Request, { params }: { params: Promise
       "Content-Type": attachment.mimeType,
       "Content-Length": String(bytes.byteLength),
       "Content-Disposition": contentDisposition(inline ? "inline" : "attachment", attachment.fileName),
-      "X-Content-Type-Options": "nosniff",
+      ...inlineFileHeaders(),
       "Cache-Control": "private, no-store",
       ETag: `"${attachment.sha256}"`,
     },

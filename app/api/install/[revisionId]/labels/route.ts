@@ -3,6 +3,7 @@ import { requireContext } from "@/lib/auth/session";
 import { handle } from "@/lib/http";
 import { LABEL_STOCKS, renderLabelSheet, type LabelStockName } from "@/lib/labels";
 import { getApprovedSet } from "@/lib/services/install/approved-set";
+import { inlineFileHeaders } from "@/lib/security-headers";
 
 /** The approved set's labels as a printable PDF: `?stock=` one of LABEL_STOCKS; `?only=<label id>` for one label. */
 export const GET = handle(async (request: Request, { params }: { params: Promise<{ revisionId: string }> }) => {
@@ -10,7 +11,7 @@ export const GET = handle(async (request: Request, { params }: { params: Promise
   const { revisionId } = await params;
   const url = new URL(request.url);
   const stock = (url.searchParams.get("stock") ?? "sheet-letter") as LabelStockName;
-  if (!(stock in LABEL_STOCKS)) {
+  if (!Object.hasOwn(LABEL_STOCKS, stock)) {
     return NextResponse.json({ error: `stock must be one of ${Object.keys(LABEL_STOCKS).join(", ")}`, code: "invalid", issues: [] }, { status: 400 });
   }
   const set = getApprovedSet(ctx, revisionId);
@@ -20,6 +21,6 @@ export const GET = handle(async (request: Request, { params }: { params: Promise
   const sheet = await renderLabelSheet(labels, { stock });
   const name = `${set.projectName.replace(/[^A-Za-z0-9]+/g, "-").replace(/^-|-$/g, "").toLowerCase()}-rev${set.revisionNumber}-labels-${stock}.pdf`;
   return new NextResponse(Buffer.from(sheet.bytes), {
-    headers: { "content-type": "application/pdf", "content-disposition": `inline; filename="${name}"` },
+    headers: { "content-type": "application/pdf", "content-disposition": `inline; filename="${name}"`, ...inlineFileHeaders() },
   });
 });

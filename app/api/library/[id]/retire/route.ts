@@ -10,7 +10,7 @@ export const POST = handle(async (request: Request, { params }: { params: Promis
   const { id } = await params;
   // The body is optional ({ version }); a missing or malformed one means "whatever version is current".
   const body = await readJson(request, { maxBytes: 4 * 1024 });
-  if (!body.ok && body.response.status === 413) return body.response;
+  if (!body.ok && (body.response.status === 413 || request.headers.has("content-type"))) return body.response;
   const { version } = versionedBody(body.ok ? body.body : {});
   return NextResponse.json({ item: retireLibraryItem(ctx, id, version) });
 });

@@ -1,6 +1,7 @@
 import { requireContext } from "@/lib/auth/session";
 import { handle } from "@/lib/http";
 import { getRevisionFile } from "@/lib/services/revisions";
+import { inlineFileHeaders } from "@/lib/security-headers";
 
 /**
  * The revision's PDF shown inline, for the reviewer's reading frame: the same
@@ -15,7 +16,7 @@ export const GET = handle(async (_request: Request, { params }: { params: Promis
       "content-type": file.contentType,
       "content-disposition": `inline; filename="${file.fileName}"`,
       "content-length": String(file.bytes.length),
-      "x-content-type-options": "nosniff",
+      ...inlineFileHeaders(),
       etag: `"${file.sha256}"`,
       "cache-control": "private, no-store",
     },

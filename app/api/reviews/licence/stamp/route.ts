@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { requireContext } from "@/lib/auth/session";
 import { env } from "@/lib/env";
-import { errorResponse } from "@/lib/http";
+import { errorResponse, originRefusal, withApiHeaders } from "@/lib/http";
 import { uploadStampImage, UploadRefusedError } from "@/lib/services/reviews";
 import { requirePermission } from "@/lib/services/context";
 import { formatBytes } from "@/lib/uploads/format-bytes";
@@ -16,7 +16,13 @@ function refusal(status: number, message: string, reason: string) {
 
 /** The reviewer's stamp image, one PNG or JPEG under "file" as multipart/form-data. */
 export async function POST(request: Request): Promise<Response> {
+  return withApiHeaders(await receive(request));
+}
+
+async function receive(request: Request): Promise<Response> {
   try {
+    const refused = originRefusal(request);
+    if (refused) return refused;
     const ctx = await requireContext();
     // Who may keep a stamp is known before a byte of the body is read.
     requirePermission(ctx, "licence:edit-own", "keep a licence record");

@@ -1,6 +1,7 @@
 import { requireContext } from "@/lib/auth/session";
 import { handle } from "@/lib/http";
 import { getRevisionFile } from "@/lib/services/revisions";
+import { inlineFileHeaders } from "@/lib/security-headers";
 
 export const GET = handle(async (_request: Request, { params }: { params: Promise<{ id: string }> }) => {
   const ctx = await requireContext();
@@ -11,6 +12,7 @@ export const GET = handle(async (_request: Request, { params }: { params: Promis
       "content-type": file.contentType,
       "content-disposition": `attachment; filename="${file.fileName}"`,
       "content-length": String(file.bytes.length),
+      ...inlineFileHeaders(),
       etag: `"${file.sha256}"`,
       "cache-control": "private, no-store",
     },
