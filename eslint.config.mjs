@@ -6,7 +6,7 @@ import tseslint from "typescript-eslint";
  * around the service layer.
  */
 export default tseslint.config(
-  { ignores: [".next/**", "node_modules/**", "drizzle/**", "data/**", "uploads/**", "test-results/**", "next-env.d.ts", "**/*.mjs"] },
+  { ignores: [".next/**", "node_modules/**", "drizzle/**", "data/**", "dist/**", "uploads/**", "test-results/**", "next-env.d.ts", "**/*.mjs"] },
   ...tseslint.configs.recommended,
   {
     rules: {

@@ -26,6 +26,31 @@ const envSchema = z.object({
   /** Failed sign-ins before an account is locked, and for how long. */
   SIGNIN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
   SIGNIN_LOCK_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** Where background jobs queue: the database file (one machine) or Redis via BullMQ (workers on many machines). */
+  JOBS_BACKEND: z.enum(["sqlite", "bullmq"]).default("sqlite"),
+  REDIS_URL: z.string().url().default("redis://127.0.0.1:6379"),
+  /**
+   * "spawn": the web server starts one worker process beside itself (one machine, nothing else to run);
+   * "external": workers are started apart with `npm run worker`, here or on other machines.
+   */
+  JOBS_WORKER: z.enum(["spawn", "external"]).default("spawn"),
+  /** Packets rendered at once per worker; each takes a core while it runs. */
+  JOBS_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
+  /** A packet of hundreds of pages renders in well under a minute; five leaves room on a busy machine. */
+  JOBS_TIME_LIMIT_S: z.coerce.number().int().min(1).default(300),
+  /** A worker that stops renewing its claim for this long is taken for dead and its job runs again. */
+  JOBS_LEASE_S: z.coerce.number().int().min(1).default(30),
+  JOBS_BACKOFF_S: z.coerce.number().min(0).default(2),
+  /** Where uploads live: the UPLOADS_DIR folder, or an S3 bucket (needed once workers run on several machines). */
+  STORAGE_BACKEND: z.enum(["disk", "s3"]).default("disk"),
+  S3_BUCKET: z.string().optional(),
+  /** An S3-compatible endpoint; leave unset for AWS. */
+  S3_ENDPOINT: z.string().url().optional(),
+  S3_REGION: z.string().default("us-east-1"),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+  S3_PREFIX: z.string().default(""),
+  S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).optional(),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -8,7 +8,8 @@
  * the server can answer, and printed as a ratio to it.
  *
  * Aims: the signed-in projects list at least 0.4x static, health at least 0.8x,
- * p99 at most 100 ms at 20 connections, no errors.
+ * p99 at most 100 ms at 20 connections, no errors. Then prints the first-load
+ * JS of each page from the build (aim: at most 180 kB gzip) and the heaviest chunks.
  *
  * --profile writes a V8 CPU profile of the server to data/bench/profiles/ (open
  * it in Chrome DevTools, Performance tab).
@@ -23,6 +24,7 @@ import Database from "better-sqlite3";
 import { DEMO_USERS } from "../db/demo-scenario";
 import { SCALE_BIG_PROJECT } from "../db/seed-scale";
 import { ensureAuthSecret } from "./lib/ensure-secret";
+import { printPageWeights } from "./lib/page-weight";
 import { run } from "./lib/run";
 
 const { values: args } = parseArgs({
@@ -188,6 +190,7 @@ async function main(): Promise<void> {
     if (list) console.log(`  projects list ${(list.reqPerSec / anchor).toFixed(2)}× static, p99 ${list.p99} ms`);
     if (health) console.log(`  health ${(health.reqPerSec / anchor).toFixed(2)}× static, p99 ${health.p99} ms`);
     console.log(`  errors in all: ${results.reduce((n, r) => n + r.errors + r.non2xx, 0)}`);
+    printPageWeights();
   } finally {
     server.kill("SIGTERM");
     await new Promise((r) => server.once("exit", r));

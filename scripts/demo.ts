@@ -21,9 +21,10 @@ async function main() {
   db.$client.close();
   console.log(`Database ready: ${dbFile}`);
 
-  if (!fs.existsSync(path.join(process.cwd(), ".next", "BUILD_ID")) || process.argv.includes("--rebuild")) {
-    console.log("Building Sundocket (first run only; about a minute)…");
-    const code = await run("npx", ["next", "build"]);
+  const built = fs.existsSync(path.join(process.cwd(), ".next", "BUILD_ID")) && fs.existsSync(path.join(process.cwd(), "dist", "worker.cjs"));
+  if (!built || process.argv.includes("--rebuild")) {
+    console.log("Building Sundocket and its job worker (first run only; about a minute)…");
+    const code = await run("npm", ["run", "build"]);
     if (code !== 0) process.exit(code);
   }
 

@@ -84,7 +84,8 @@ async function main() {
     "--reporter=json",
     `--outputFile.json=${path.join(RESULTS_DIR, "vitest.json")}`,
   ]);
-  await step("Production build", "npx", ["next", "build"]);
+  // The web app and the job worker it starts beside itself (dist/worker.cjs).
+  await step("Production build", "npm", ["run", "build"]);
   console.log("\n── Seeding the end-to-end database ──");
   await prepareE2eDatabase();
   await step("End-to-end tests (Chromium)", "npx", ["playwright", "test"], {

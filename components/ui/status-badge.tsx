@@ -17,11 +17,11 @@ export function statusWord(status: CheckStatus): string {
   return STATUS_LOOK[status].word;
 }
 
-export function StatusBadge({ status }: { status: CheckStatus }) {
+export function StatusBadge({ status, compact = false }: { status: CheckStatus; compact?: boolean }) {
   const look = STATUS_LOOK[status];
   return (
     <span
-      className={`inline-flex items-center gap-1 whitespace-nowrap rounded-[2px] border px-1.5 py-0.5 text-xs font-semibold ${look.className}`}
+      className={`inline-flex items-center gap-1 whitespace-nowrap rounded-[2px] border font-semibold ${compact ? "px-1 text-[11px]" : "px-1.5 py-0.5 text-xs"} ${look.className}`}
     >
       <span aria-hidden="true">{look.shape}</span>
       {look.word}

@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useState } from "react";
-import { CHECK_STATUSES, type CheckResult, type CheckStatus, type Remedy } from "@/lib/compliance";
+import { CHECK_STATUSES, type CheckResult, type CheckStatus, type RemedyChange } from "@/lib/compliance";
 import { StatusBadge, statusWord } from "@/components/ui/status-badge";
 import { useFormContext } from "react-hook-form";
 import { plural } from "@/lib/schemas/vocabulary";
@@ -16,50 +16,21 @@ function formatFigure(v: number | string | boolean): string {
   return v;
 }
 
-/**
- * The engine's fix for a failing (or warning) result. A single field change can be applied here: it sets the form
- * value like typing would, and the designer saves as usual.
- */
-function RemedyNote({ remedy, record, canEdit }: { remedy: Remedy; record: unknown; canEdit: boolean }) {
-  const { setValue } = useFormContext();
-  const single = remedy.changes.length === 1 ? remedy.changes[0]! : undefined;
-  return (
-    <div className="mx-3 mb-2 flex items-start gap-2 border-l-2 border-query bg-query-soft/40 px-2 py-1 text-xs" data-testid="remedy">
-      <p className="min-w-0 flex-1 leading-snug">
-        <span className="field-label">Fix </span>
-        {humaniseText(record, remedy.text)}
-      </p>
-      {single && canEdit ? (
-        <button
-          type="button"
-          className="btn-quiet shrink-0 px-2 py-0.5 text-xs"
-          title={`Sets ${describePath(record, single.path)} to ${String(single.value)}`}
-          onClick={() => {
-            setValue(single.path, single.value, { shouldDirty: true, shouldValidate: true });
-            focusRecordPaths([single.path]);
-          }}
-        >
-          Apply
-        </button>
-      ) : null}
-    </div>
-  );
-}
-
 function ResultItem({
   result,
   record,
   open,
   onToggle,
   projectId,
-  canEdit,
+  onApply,
 }: {
   result: CheckResult;
   record: unknown;
   open: boolean;
   onToggle: () => void;
   projectId: string;
-  canEdit: boolean;
+  /** Carries out a remedy's field changes; absent while rows are left out of the checks (their paths would not match the form). */
+  onApply?: (changes: RemedyChange[]) => void;
 }) {
   const used = [...result.missing, ...result.inputs.map((i) => i.path)];
   // Documents are edited on the attachments tab, not in this form.
@@ -86,7 +57,20 @@ function ResultItem({
           <span className="block text-xs leading-snug text-ink-soft">{humaniseText(record, result.message)}</span>
         </span>
       </button>
-      {result.remedy ? <RemedyNote remedy={result.remedy} record={record} canEdit={canEdit} /> : null}
+      {/* The fix stands under the result, open or not: it is what a designer looks for first. */}
+      {result.remedy ? (
+        <div className="mx-3 mb-2 border-l-2 border-query pl-2 text-xs" data-testid="remedy">
+          <p>
+            <span className="field-label">Fix </span>
+            {humaniseText(record, result.remedy.text)}
+          </p>
+          {result.remedy.changes.length && onApply ? (
+            <button type="button" className="btn-quiet mt-1 px-2 py-0.5 text-xs" onClick={() => onApply(result.remedy!.changes)}>
+              Apply: {result.remedy.changes.map((c) => `${describePath(record, c.path)} → ${String(c.value)}`).join("; ")}
+            </button>
+          ) : null}
+        </div>
+      ) : null}
       {open ? (
         <div className="space-y-2 px-3 pb-3 text-xs">
           {result.reason ? <p className="text-ink-soft">{humaniseText(record, result.reason)}</p> : null}
@@ -165,7 +149,14 @@ export function ChecksPanel({ projectId, canEdit }: { projectId: string; canEdit
   const groups = new Map<CheckStatus, CheckResult[]>();
   for (const r of live.run?.results ?? []) groups.set(r.status, [...(groups.get(r.status) ?? []), r]);
   const stale = live.record === null && live.issues.length > 0;
-  const { getValues } = useFormContext();
+  const { getValues, setValue } = useFormContext();
+  const apply =
+    canEdit && live.omitted.length === 0
+      ? (changes: RemedyChange[]) => {
+          for (const c of changes) setValue(c.path, c.value, { shouldDirty: true, shouldValidate: true });
+          focusRecordPaths(changes.map((c) => c.path));
+        }
+      : undefined;
   // Field errors name rows of the form as it stands; engine results name rows of the record the engine ran on.
   const values = getValues();
   const issueGroups = groupIssues(values, live.issues);
@@ -230,7 +221,7 @@ export function ChecksPanel({ projectId, canEdit }: { projectId: string; canEdit
               </h3>
               <ul>
                 {results.map((r) => (
-                  <ResultItem key={r.id} projectId={projectId} canEdit={canEdit} record={live.record} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
+                  <ResultItem key={r.id} projectId={projectId} record={live.record} onApply={apply} result={r} open={openId === r.id} onToggle={() => setOpenId(openId === r.id ? null : r.id)} />
                 ))}
               </ul>
             </section>

@@ -19,10 +19,12 @@ import {
   type ColumnDef,
   type SortingState,
 } from "@tanstack/react-table";
-import { Fragment, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
+import { Fragment, useEffect, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
 import { useFieldArray, useFormContext } from "react-hook-form";
 import { pluralNoun } from "@/lib/schemas/vocabulary";
 import { FieldControl, type FieldType, type Option } from "./field-control";
+import { sameValue } from "./field-values";
+import { OPEN_ROW_EVENT } from "./focus-path";
 
 export interface GridColumn {
   key: string;
@@ -33,7 +35,8 @@ export interface GridColumn {
   required?: boolean;
   /** Tailwind width class for the cell's control. */
   width?: string;
-  onValueChange?: (rowIndex: number, value: unknown) => void;
+  /** Told after the designer changes the cell, with the value it held before. */
+  onValueChange?: (rowIndex: number, value: unknown, previous: unknown) => void;
 }
 
 interface RowRef {
@@ -55,13 +58,62 @@ export interface EditableGridProps {
   empty?: ReactNode;
   /** Told after a row is deleted, so a caller that points at rows by index can follow. */
   onRemoved?: (index: number) => void;
+  /** Asked before a row is deleted; call `remove` to go ahead (a caller may first ask about references to it). */
+  onRequestRemove?: (index: number, remove: () => void) => void;
+  /** Told when the designer leaves a cell whose value changed (a renamed tag, say). */
+  onCommit?: (index: number, key: string, before: unknown, after: unknown) => void;
+  /** Fields that open below a row rather than standing in a column. */
+  detailColumns?: GridColumn[];
+  /** Drawn under a cell's control: a derived-value note or a suggestion to accept. */
+  cellExtra?: (key: string, index: number) => ReactNode;
+  /** A read-only column after the editable ones (a result, say). */
+  trailing?: { header: string; cell: (index: number) => ReactNode };
 }
+
+export { OPEN_ROW_EVENT };
 
 const KEY_COLUMN = "__row";
 
-export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow, rowActions, selectedIndex, empty, onRemoved }: EditableGridProps) {
+export function EditableGrid({
+  name,
+  label,
+  noun,
+  columns,
+  newRow,
+  duplicateRow,
+  rowActions,
+  selectedIndex,
+  empty,
+  onRemoved,
+  onRequestRemove,
+  onCommit,
+  detailColumns,
+  cellExtra,
+  trailing,
+}: EditableGridProps) {
   const { control, getValues, setValue } = useFormContext();
   const { fields, append, insert, remove } = useFieldArray({ control, name });
+  const [open, setOpen] = useState<Set<string>>(() => new Set());
+  const fieldsRef = useRef(fields);
+  fieldsRef.current = fields;
+  useEffect(() => {
+    const onOpen = (e: Event) => {
+      const { grid, index } = (e as CustomEvent<{ grid: string; index: number }>).detail;
+      const key = fieldsRef.current[index]?.id;
+      if (grid === name && key) setOpen((o) => new Set(o).add(key));
+    };
+    window.addEventListener(OPEN_ROW_EVENT, onOpen);
+    return () => window.removeEventListener(OPEN_ROW_EVENT, onOpen);
+  }, [name]);
+  const toggle = (key: string) =>
+    setOpen((o) => {
+      const next = new Set(o);
+      if (next.has(key)) next.delete(key);
+      else next.add(key);
+      return next;
+    });
+  const hasDetail = Boolean(detailColumns?.length);
+  const span = columns.length + 2 + (trailing ? 1 : 0);
   const [sorting, setSorting] = useState<SortingState>([]);
   const tableRef = useRef<HTMLTableElement>(null);
   const entered = useRef(new Map<string, unknown>());
@@ -157,6 +209,14 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
     }
   };
 
+  const commit = (index: number, key: string, path: string) => {
+    if (!onCommit || !entered.current.has(path)) return;
+    const before = entered.current.get(path);
+    const after = getValues(path);
+    if (!sameValue(before, after)) onCommit(index, key, before, after);
+    entered.current.set(path, after);
+  };
+
   const rows = table.getRowModel().rows;
   const headers = table.getHeaderGroups()[0]?.headers ?? [];
   const all = () => (getValues(name) ?? []) as Record<string, unknown>[];
@@ -172,7 +232,7 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
                 if (h.column.id === KEY_COLUMN) {
                   return (
                     <Fragment key={h.id}>
-                      <th scope="col">#</th>
+                      <th scope="col" className={hasDetail ? "w-6" : undefined}>#</th>
                       <th scope="col">
                         <span className="sr-only">Row actions</span>
                       </th>
@@ -194,33 +254,47 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
                   </th>
                 );
               })}
+              {trailing ? <th scope="col">{trailing.header}</th> : null}
             </tr>
           </thead>
           <tbody>
             {rows.length === 0 ? (
               <tr>
-                <td colSpan={columns.length + 2} className="py-4 text-left text-sm text-ink-soft">
+                <td colSpan={span} className="py-4 text-left text-sm text-ink-soft">
                   {empty ?? `No ${pluralNoun(noun)} yet.`}
                 </td>
               </tr>
             ) : null}
             {rows.map((row, visual) => {
               const index = row.original.index;
-              return (
+              const main = (
                 <tr key={row.id} data-selected={selectedIndex === index ? "true" : undefined} className={selectedIndex === index ? "bg-slate-soft/60" : ""}>
                   {row.getVisibleCells().map((cell) => {
                     if (cell.column.id === KEY_COLUMN) {
                       return (
                         <Fragment key={cell.id}>
-                          <th scope="row" className="w-8 border-b border-grid px-2 text-left font-normal">
+                          <th scope="row" className={`border-b border-grid text-left font-normal ${hasDetail ? "w-6 px-1" : "w-8 px-2"}`}>
                             {flexRender(cell.column.columnDef.cell, cell.getContext())}
                           </th>
                           <td className="whitespace-nowrap px-1 py-1">
                             <div className="flex gap-1">
+                              {hasDetail ? (
+                                <button
+                                  type="button"
+                                  className="btn-quiet px-1 py-0.5 text-xs"
+                                  aria-expanded={open.has(row.id)}
+                                  aria-label={`Details of ${noun} row ${index + 1}`}
+                                  title="Conductor, raceway and current fields"
+                                  onClick={() => toggle(row.id)}
+                                >
+                                  {open.has(row.id) ? "▾" : "▸"}
+                                </button>
+                              ) : null}
                               {rowActions?.(index)}
                               <button
                                 type="button"
-                                className="btn-quiet px-2 py-0.5 text-xs"
+                                className={`btn-quiet py-0.5 text-xs ${hasDetail ? "px-1" : "px-2"}`}
+                                title="Copy this row"
                                 aria-label={`Duplicate ${noun} row ${index + 1}`}
                                 onClick={() => {
                                   const rowsNow = all();
@@ -228,18 +302,23 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
                                   insert(index + 1, duplicateRow ? duplicateRow(structuredClone(source), rowsNow) : structuredClone(source));
                                 }}
                               >
-                                Copy
+                                {hasDetail ? "⧉" : "Copy"}
                               </button>
                               <button
                                 type="button"
-                                className="btn-quiet px-2 py-0.5 text-xs"
+                                className={`btn-quiet py-0.5 text-xs ${hasDetail ? "px-1" : "px-2"}`}
+                                title="Delete this row"
                                 aria-label={`Delete ${noun} row ${index + 1}`}
                                 onClick={() => {
-                                  remove(index);
-                                  onRemoved?.(index);
+                                  const go = () => {
+                                    remove(index);
+                                    onRemoved?.(index);
+                                  };
+                                  if (onRequestRemove) onRequestRemove(index, go);
+                                  else go();
                                 }}
                               >
-                                Delete
+                                {hasDetail ? "✕" : "Delete"}
                               </button>
                             </div>
                           </td>
@@ -257,6 +336,7 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
                           onFocusCapture={() => {
                             entered.current.set(path, getValues(path));
                           }}
+                          onBlurCapture={() => commit(index, col.key, path)}
                         >
                           <FieldControl
                             path={path}
@@ -267,14 +347,59 @@ export function EditableGrid({ name, label, noun, columns, newRow, duplicateRow,
                             placeholder={col.unit}
                             className="px-1.5 py-1 text-sm"
                             grid={{ name, row: visual, col: colIndex }}
-                            onValueChange={col.onValueChange ? (v) => col.onValueChange?.(index, v) : undefined}
+                            onValueChange={col.onValueChange ? (v, previous) => col.onValueChange?.(index, v, previous) : undefined}
                             onKeyDown={(e) => onCellKeyDown(e, path)}
                           />
+                          {cellExtra?.(col.key, index)}
                         </div>
                       </td>
                     );
                   })}
+                  {trailing ? <td className="whitespace-nowrap px-1 py-1">{trailing.cell(index)}</td> : null}
                 </tr>
+              );
+              if (!hasDetail || !open.has(row.id)) return main;
+              return (
+                <Fragment key={row.id}>
+                  {main}
+                  <tr className="bg-paper/60">
+                    <td colSpan={span} className="border-b border-grid px-3 py-2">
+                      <div role="group" aria-label={`Details of ${noun} row ${index + 1}`} className="grid grid-cols-[repeat(auto-fill,minmax(9rem,1fr))] gap-x-3 gap-y-2">
+                        {detailColumns!.map((col) => {
+                          const path = `${name}.${index}.${col.key}`;
+                          const options = typeof col.options === "function" ? col.options(index) : col.options;
+                          const unit = col.unit ? ` (${col.unit})` : "";
+                          return (
+                            <div
+                              key={col.key}
+                              className={col.type === "checkbox" ? "flex flex-col" : ""}
+                              onFocusCapture={() => {
+                                entered.current.set(path, getValues(path));
+                              }}
+                              onBlurCapture={() => commit(index, col.key, path)}
+                            >
+                              <span className="field-label mb-0.5 block" aria-hidden="true">
+                                {col.header}
+                                {unit}
+                              </span>
+                              <FieldControl
+                                path={path}
+                                type={col.type}
+                                label={`${col.header}${unit}, ${noun} row ${index + 1}`}
+                                options={options}
+                                required={col.required}
+                                placeholder={col.unit}
+                                className="px-1.5 py-1 text-sm"
+                                onValueChange={col.onValueChange ? (v, previous) => col.onValueChange?.(index, v, previous) : undefined}
+                              />
+                              {cellExtra?.(col.key, index)}
+                            </div>
+                          );
+                        })}
+                      </div>
+                    </td>
+                  </tr>
+                </Fragment>
               );
             })}
           </tbody>

@@ -10,6 +10,7 @@ import { EQUIPMENT_COLUMNS, EQUIPMENT_KIND_LABELS, MPPT_INPUT_COLUMNS, RATING_FI
 
 export { EQUIPMENT_COLUMNS, MPPT_INPUT_COLUMNS };
 import { OPEN_EQUIPMENT_EVENT } from "./focus-path";
+import { useReferenceGuard } from "./reference-guard";
 import { Section } from "./site-section";
 import { useRecordTags } from "./use-record-tags";
 
@@ -132,6 +133,7 @@ export function EquipmentSection() {
   const { getValues, setValue } = useFormContext();
   const tags = useRecordTags();
   const tagsRef = useRef(tags);
+  const equipmentGuard = useReferenceGuard("equipment", "equipment");
   tagsRef.current = tags;
   const [open, setOpen] = useState<number | null>(null);
   const count = (useWatch({ name: "equipment" }) as unknown[] | undefined)?.length ?? 0;
@@ -184,8 +186,11 @@ export function EquipmentSection() {
           setOpen(rows.length);
         }}
       />
+      {equipmentGuard.dialog}
       <EditableGrid
         name="equipment"
+        onCommit={equipmentGuard.onCommit}
+        onRequestRemove={equipmentGuard.onRequestRemove}
         label="Equipment"
         noun="equipment"
         columns={columns}

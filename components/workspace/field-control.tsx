@@ -23,7 +23,8 @@ export interface FieldControlProps {
   describedBy?: string;
   /** Grid coordinates for keyboard movement between cells. */
   grid?: { name: string; row: number; col: number };
-  onValueChange?: (value: unknown) => void;
+  /** Told after a change by the designer, with the value before it. */
+  onValueChange?: (value: unknown, previous: unknown) => void;
   onKeyDown?: (e: KeyboardEvent<HTMLElement>) => void;
   hideLabel?: boolean;
 }
@@ -71,8 +72,9 @@ export function FieldControl({
   const change = (raw: string | boolean) => {
     if (typeof raw === "string") setDraft(raw);
     const next = parseInput(type, raw, required);
+    const previous: unknown = field.value;
     field.onChange(next);
-    onValueChange?.(next);
+    onValueChange?.(next, previous);
   };
   let control: React.ReactNode;
   if (type === "checkbox") {

@@ -5,6 +5,8 @@
  * the item opened first; the editor listens for that event.
  */
 export const OPEN_EQUIPMENT_EVENT = "sundocket:open-equipment";
+/** Asks a grid to open a row's detail; the grid listens (editable-grid re-exports it). */
+export const OPEN_ROW_EVENT = "sundocket:open-row";
 /** Tailwind classes written out in full so the stylesheet keeps them. */
 const HIGHLIGHT_CLASSES = ["ring-2", "ring-query", "ring-offset-1", "bg-query-soft"];
 const HIGHLIGHT_MS = 2500;
@@ -37,6 +39,12 @@ export function focusRecordPaths(paths: string[]): boolean {
   if (!first) return false;
   const equipment = /^equipment\.(\d+)\./.exec(first);
   const direct = document.querySelector<HTMLElement>(`[name="${CSS.escape(first)}"]`);
+  const detail = /^(circuits)\.(\d+)\./.exec(first);
+  if (!direct && detail) {
+    window.dispatchEvent(new CustomEvent(OPEN_ROW_EVENT, { detail: { grid: detail[1], index: Number(detail[2]) } }));
+    setTimeout(() => focusNow(paths), 60);
+    return true;
+  }
   if (!direct && equipment) {
     window.dispatchEvent(new CustomEvent(OPEN_EQUIPMENT_EVENT, { detail: Number(equipment[1]) }));
     // The ratings panel draws on the next frame.

@@ -13,12 +13,14 @@ import { FormProvider, useForm } from "react-hook-form";
 import { projectRecordSchema, type ProjectRecord, type ProjectRecordInput } from "@/lib/schemas/project-record";
 import { ChecksPanel } from "./checks-panel";
 import { DiagramSection } from "./diagram-section";
+import { DuplicateProjectButton } from "./duplicate-project-button";
 import { EquipmentSection } from "./equipment-section";
 import { LiveChecksProvider } from "./live-checks";
 import { LoadsSection } from "./loads-section";
 import { ArraysSection, CircuitsSection } from "./row-sections";
 import { ProjectSection, SiteSection } from "./site-section";
 import { useUnsavedGuard } from "./unsaved-guard";
+import { useRecordHistory } from "./use-record-history";
 
 const SECTIONS = [
   ["project", "Project"],
@@ -66,6 +68,7 @@ export function ProjectEditor({
     return () => sub.unsubscribe();
   }, [form]);
   useUnsavedGuard(isDirty && canEdit, bypassGuard);
+  const history = useRecordHistory(form, record);
 
   const submit = form.handleSubmit(
     async (values) => {
@@ -141,6 +144,16 @@ export function ProjectEditor({
               ))}
             </nav>
             <span className="flex-1" />
+            {canEdit ? (
+              <span className="flex gap-1">
+                <button type="button" className="btn-quiet px-2 py-0.5 text-xs" disabled={!history.canUndo} onClick={history.undo} title="Ctrl+Z">
+                  Undo
+                </button>
+                <button type="button" className="btn-quiet px-2 py-0.5 text-xs" disabled={!history.canRedo} onClick={history.redo} title="Ctrl+Shift+Z">
+                  Redo
+                </button>
+              </span>
+            ) : null}
             <span className="figure text-xs text-ink-faint">v{version}</span>
             <span aria-live="polite" className="text-xs" data-testid="save-state">
               {save.kind === "saving"
@@ -154,6 +167,7 @@ export function ProjectEditor({
             <a href={`/api/projects/${projectId}/export`} download className="btn-quiet" title={isDirty ? "Exports the saved version" : undefined}>
               Export project file
             </a>
+            <DuplicateProjectButton projectId={projectId} disabledReason={isDirty ? "Save first: the copy is made from the saved design" : undefined} />
             {canEdit ? (
               <button type="submit" className="btn" disabled={save.kind === "saving" || save.kind === "conflict"}>
                 Save
@@ -191,7 +205,7 @@ export function ProjectEditor({
               <LoadsSection />
               <DiagramSection />
             </fieldset>
-            <aside className="w-full shrink-0 xl:sticky xl:top-14 xl:w-[24rem]" aria-label="Live checks">
+            <aside className="w-full shrink-0 xl:sticky xl:top-14 xl:w-[18rem] 2xl:w-[24rem]" aria-label="Live checks">
               <ChecksPanel projectId={projectId} canEdit={canEdit} />
             </aside>
           </div>

@@ -3,6 +3,9 @@
 import { useMemo } from "react";
 import { EditableGrid, nextTag } from "./editable-grid";
 import { arrayColumns, circuitColumns, LOAD_COLUMNS, PV_FED } from "./grid-columns";
+
+export { CircuitsSection } from "./circuits-section";
+import { useReferenceGuard } from "./reference-guard";
 import { Section } from "./site-section";
 import { useRecordTags } from "./use-record-tags";
 
@@ -10,11 +13,15 @@ export { arrayColumns, circuitColumns, LOAD_COLUMNS };
 
 export function ArraysSection() {
   const tags = useRecordTags();
+  const arraysGuard = useReferenceGuard("arrays", "array");
   const columns = useMemo(() => arrayColumns(tags), [tags]);
   return (
     <Section id="arrays" title="PV arrays" sheet="A · 4">
+      {arraysGuard.dialog}
       <EditableGrid
         name="arrays"
+        onCommit={arraysGuard.onCommit}
+        onRequestRemove={arraysGuard.onRequestRemove}
         label="PV arrays"
         noun="array"
         columns={columns}
@@ -26,40 +33,6 @@ export function ArraysSection() {
           feedsTag: tags.byKinds(PV_FED)[0]?.value ?? "",
         })}
         duplicateRow={(row) => ({ ...row, tag: nextTag("PV", tags.all) })}
-      />
-    </Section>
-  );
-}
-
-export function CircuitsSection() {
-  const tags = useRecordTags();
-  const columns = useMemo(() => circuitColumns(tags), [tags]);
-  return (
-    <Section id="circuits" title="Circuits" sheet="A · 5">
-      <p className="mb-2 text-xs text-ink-faint">
-        One row per circuit, one-way length. Ambient defaults to the design high temperature; the protecting device must be a fuse or
-        breaker in the equipment list.
-      </p>
-      <EditableGrid
-        name="circuits"
-        label="Circuits"
-        noun="circuit"
-        columns={columns}
-        newRow={() => ({
-          tag: nextTag("C", tags.all),
-          fromTag: "",
-          toTag: "",
-          kind: "pv-source",
-          material: "cu",
-          parallelSets: 1,
-          insulation: "",
-          racewayType: "",
-          racewaySize: "",
-          onRooftop: false,
-          disconnectTags: [],
-          egcMaterial: "cu",
-        })}
-        duplicateRow={(row) => ({ ...row, tag: nextTag("C", tags.all) })}
       />
     </Section>
   );

@@ -15,3 +15,4 @@ export * from "./submissions";
 export * from "./audit-log";
 export * from "./outbox";
 export * from "./installations";
+export * from "./jobs";

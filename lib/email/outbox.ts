@@ -10,7 +10,8 @@ type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 /**
  * Writes a message to the outbox inside the caller's transaction, so the
  * hand-off and its e-mail are recorded together; delivery happens after
- * commit (deliverQueued), and a failed delivery stays visible in the outbox.
+ * commit by a mail.deliver job (deliverQueued), and a failed delivery stays
+ * visible in the outbox.
  */
 export function queueEmail(
   tx: Tx | Db,

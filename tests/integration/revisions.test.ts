@@ -1,3 +1,4 @@
+import { spawn } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -5,7 +6,7 @@ import { createHash } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { PDFDocument, StandardFonts } from "pdf-lib";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { organisations, packetRevisions } from "../../db/schema";
+import { jobs, organisations, packetRevisions } from "../../db/schema";
 import { runChecks } from "../../lib/compliance";
 import { formatNumber } from "../../lib/packet/format";
 import { REVIEW_MARKING, SHEET_PLAN } from "../../lib/packet/model";
@@ -207,26 +208,35 @@ describe("a failed generation", () => {
   }, 60_000);
 });
 
-describe("generation in its own process", () => {
-  it("renders in the detached worker while the caller carries on, and ends ready", async () => {
-    // The worker inherits this environment, so it opens the same temporary database and folders.
-    process.env.DATABASE_PATH = env.file;
-    process.env.PACKETS_DIR = packetsDir;
-    process.env.UPLOADS_DIR = uploadsDir;
+describe("generation by the job worker", () => {
+  it("queues the rendering as a job that a worker process picks up, while the caller carries on, and ends ready", async () => {
     const started = startRevision(designer, projectId);
     expect(getRevision(designer, started.revisionId).state).toBe("generating");
-    const seen = new Set<string>();
-    let view = getRevision(designer, started.revisionId);
-    for (let waited = 0; view.state === "generating" && waited < 110_000; waited += 250) {
-      await new Promise((r) => setTimeout(r, 250));
-      view = getRevision(designer, started.revisionId);
-      seen.add(view.progressStep);
+    const queued = db.select().from(jobs).where(eq(jobs.kind, "packet.generate")).all();
+    expect(queued.map((j) => j.payload)).toContainEqual({ revisionId: started.revisionId });
+
+    // The worker of `npm run worker`, on the same temporary database and folders (tsx as a loader, one process).
+    const worker = spawn(process.execPath, ["--import", "tsx", path.resolve("scripts/worker.ts")], {
+      env: { ...process.env, DATABASE_PATH: env.file, PACKETS_DIR: packetsDir, UPLOADS_DIR: uploadsDir, JOBS_BACKEND: "sqlite" },
+      stdio: ["ignore", "ignore", "inherit"],
+    });
+    try {
+      const seen = new Set<string>();
+      let view = getRevision(designer, started.revisionId);
+      for (let waited = 0; view.state === "generating" && waited < 110_000; waited += 250) {
+        await new Promise((r) => setTimeout(r, 250));
+        view = getRevision(designer, started.revisionId);
+        seen.add(view.progressStep);
+      }
+      expect(view.error).toBeNull();
+      expect(view).toMatchObject({ state: "ready", progressStep: "done" });
+      expect(seen.size).toBeGreaterThan(1);
+      const pdf = await getRevisionFile(designer, started.revisionId, "pdf", { packetsDir });
+      expect(Buffer.from(pdf.bytes.subarray(0, 5)).toString("latin1")).toBe("%PDF-");
+      expect(db.select().from(jobs).where(eq(jobs.id, queued.find((j) => (j.payload as { revisionId: string }).revisionId === started.revisionId)!.id)).get()).toMatchObject({ state: "done", attempts: 1 });
+    } finally {
+      worker.kill("SIGTERM");
     }
-    expect(view.error).toBeNull();
-    expect(view).toMatchObject({ state: "ready", progressStep: "done" });
-    expect(seen.size).toBeGreaterThan(1);
-    const pdf = await getRevisionFile(designer, started.revisionId, "pdf", { packetsDir });
-    expect(Buffer.from(pdf.bytes.subarray(0, 5)).toString("latin1")).toBe("%PDF-");
   }, 120_000);
 });
 

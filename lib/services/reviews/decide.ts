@@ -1,12 +1,12 @@
 import { and, eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { packetRevisions, projects, reviewNotes, reviews, users, type LicenceSnapshot } from "../../../db/schema";
-import { deliverQueued, queueEmail } from "../../email/outbox";
+import { queueEmail } from "../../email/outbox";
 import { formatIssues } from "../../schemas/fields";
 import { reviewDecisionSchema, type ReviewNoteInput } from "../../schemas/review";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid, ServiceError, type FieldIssue } from "../errors";
-import { dispatchRevisionWorker } from "../revisions/dispatch";
+import { deliverLater, renderLater } from "../../jobs";
 import { independenceRefusal, licenceCoverageRefusal } from "./independence";
 import {
   deliverAfterCommit,
@@ -201,8 +201,8 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
     return review.id;
   });
 
-  await deliverAfterCommit(options.deliver ?? deliverQueued, ctx.db, ctx.orgId);
-  if (decision === "approved") await (options.dispatch ?? ((id: string) => dispatchRevisionWorker(ctx.db, id)))(row.id);
+  await deliverAfterCommit(options.deliver ?? deliverLater, ctx.db, ctx.orgId);
+  if (decision === "approved") await (options.dispatch ?? ((id: string) => renderLater(ctx.db, "packet.restamp", id)))(row.id);
 
   const count = notes.length;
   return {

@@ -3,7 +3,7 @@ import { packetRevisions } from "../../../db/schema";
 import { can } from "../../auth/permissions";
 import { audit, type ServiceContext } from "../context";
 import { conflict, forbidden } from "../errors";
-import { dispatchRevisionWorker } from "../revisions/dispatch";
+import { renderLater } from "../../jobs";
 import { findRevisionForReview } from "./shared";
 
 export interface RestampOptions {
@@ -29,6 +29,6 @@ export async function renderStampedPacketAgain(ctx: ServiceContext, revisionId: 
     if (moved.changes === 0) throw conflict(`Revision ${row.number} changed meanwhile; reload the page.`);
     audit(tx, ctx, "review.restamp", "packet_revision", row.id, { number: row.number, previousError: row.error });
   });
-  await (options.dispatch ?? ((id: string) => dispatchRevisionWorker(ctx.db, id)))(row.id);
+  await (options.dispatch ?? ((id: string) => renderLater(ctx.db, "packet.restamp", id)))(row.id);
   return { revisionId: row.id, message: `Rendering the stamped packet of revision ${row.number} again.` };
 }

@@ -1,7 +1,8 @@
 import { and, eq, inArray } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { packetRevisions, projects } from "../../../db/schema";
-import { deliverQueued, queueEmail } from "../../email/outbox";
+import { queueEmail } from "../../email/outbox";
+import { deliverLater } from "../../jobs";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict } from "../errors";
 import { activeReviewers, deliverAfterCommit, findRevisionForReview, snapshotRun } from "./shared";
@@ -77,7 +78,7 @@ export async function sendForReview(ctx: ServiceContext, revisionId: string, opt
     });
   });
 
-  await deliverAfterCommit(options.deliver ?? deliverQueued, ctx.db, ctx.orgId);
+  await deliverAfterCommit(options.deliver ?? deliverLater, ctx.db, ctx.orgId);
   const names = reviewers.map((r) => r.name);
   return {
     revisionId: row.id,

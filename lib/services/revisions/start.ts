@@ -3,7 +3,7 @@ import { packetRevisions } from "../../../db/schema";
 import { canonicalJson, sha256Hex } from "../../canonical-json";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict } from "../errors";
-import { dispatchRevisionWorker } from "./dispatch";
+import { renderLater } from "../../jobs";
 import { buildPreflight, type Preflight } from "./preflight";
 
 /** A generation still "generating" after this long has lost its process; a packet takes seconds, not minutes. */
@@ -24,7 +24,7 @@ export interface StartedRevision {
 
 /**
  * Freezes the record and its check run as a new revision and hands the
- * rendering to a separate process, so the request returns at once and other
+ * rendering to a worker through the job queue, so the request returns at once and other
  * users are not kept waiting. The approval of any revision is bound to the
  * SHA-256 of this snapshot's canonical JSON.
  */
@@ -86,6 +86,6 @@ export function startRevision(ctx: ServiceContext, projectId: string, options: S
     return row;
   });
 
-  (options.dispatch ?? ((id: string) => dispatchRevisionWorker(ctx.db, id)))(created.id);
+  (options.dispatch ?? ((id: string) => void renderLater(ctx.db, "packet.generate", id)))(created.id);
   return { revisionId: created.id, number: created.number, isDraft: preflight.isDraft, preflight };
 }

@@ -1,7 +1,8 @@
 import { and, eq, inArray } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { jurisdictions, packetRevisions, projects, submissionEvents, submissions } from "../../../db/schema";
-import { deliverQueued, queueEmail } from "../../email/outbox";
+import { queueEmail } from "../../email/outbox";
+import { deliverLater } from "../../jobs";
 import { formatIssues } from "../../schemas/fields";
 import { createSubmissionSchema } from "../../schemas/submission";
 import { audit, requirePermission, type ServiceContext } from "../context";
@@ -124,7 +125,7 @@ export async function createSubmission(ctx: ServiceContext, input: unknown, opti
     return row.id;
   });
 
-  await deliverAfterCommit(options.deliver ?? deliverQueued, ctx.db, ctx.orgId);
+  await deliverAfterCommit(options.deliver ?? deliverLater, ctx.db, ctx.orgId);
   return {
     submissionId,
     message: `Revision ${revision.number} of ${project.name} recorded as submitted to ${jurisdiction.name}${designer ? `; ${designer.name} has been told` : ""}.`,

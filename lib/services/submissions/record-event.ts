@@ -1,7 +1,8 @@
 import { and, asc, eq, inArray } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { projects, submissionEvents, submissions } from "../../../db/schema";
-import { deliverQueued, queueEmail } from "../../email/outbox";
+import { queueEmail } from "../../email/outbox";
+import { deliverLater } from "../../jobs";
 import { formatIssues } from "../../schemas/fields";
 import { EVENT_LABELS, INSPECTION_EVENT_KINDS, PERMIT_VALID_MAX_DAYS, recordEventSchema, SCHEDULE_AHEAD_MAX_DAYS, type EventKind } from "../../schemas/submission";
 import { audit, requirePermission, type ServiceContext } from "../context";
@@ -118,7 +119,7 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
     return { eventId: event.id, version: submission.version + 1 };
   });
 
-  if (kind === "corrections-requested" || kind === "permit-issued") await deliverAfterCommit(options.deliver ?? deliverQueued, ctx.db, ctx.orgId);
+  if (kind === "corrections-requested" || kind === "permit-issued") await deliverAfterCommit(options.deliver ?? deliverLater, ctx.db, ctx.orgId);
   return {
     eventId: result.eventId,
     submissionId: submission.id,
