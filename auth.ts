@@ -4,6 +4,7 @@ import { z } from "zod";
 import { authConfig } from "./auth.config";
 import { getDb } from "./db/client";
 import { env } from "./lib/env";
+import { signInThrottle } from "./lib/services/auth/throttle";
 import { verifyCredentials } from "./lib/services/auth/verify-credentials";
 
 class LockedSignIn extends CredentialsSignin {
@@ -11,6 +12,9 @@ class LockedSignIn extends CredentialsSignin {
 }
 class InactiveSignIn extends CredentialsSignin {
   code = "inactive";
+}
+class ThrottledSignIn extends CredentialsSignin {
+  code = "throttled";
 }
 class WrongCredentials extends CredentialsSignin {
   code = "credentials";
@@ -34,17 +38,20 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
   providers: [
     Credentials({
       credentials: { email: { label: "E-mail" }, password: { label: "Password", type: "password" } },
-      async authorize(raw) {
+      async authorize(raw, request) {
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) throw new WrongCredentials();
         const { SIGNIN_MAX_FAILURES, SIGNIN_LOCK_MINUTES } = env();
-        const outcome = await verifyCredentials(getDb(), parsed.data.email, parsed.data.password, {
-          maxFailures: SIGNIN_MAX_FAILURES,
-          lockMinutes: SIGNIN_LOCK_MINUTES,
+        const policy = { maxFailures: SIGNIN_MAX_FAILURES, lockMinutes: SIGNIN_LOCK_MINUTES };
+        const client = request.headers.get("x-forwarded-for")?.split(",")[0]?.trim() || "local";
+        const outcome = await verifyCredentials(getDb(), parsed.data.email, parsed.data.password, policy, {
+          client,
+          throttle: signInThrottle(policy.maxFailures, policy.lockMinutes),
         });
         if (outcome.ok) return { ...outcome.user };
         if (outcome.reason === "locked") throw new LockedSignIn();
         if (outcome.reason === "inactive") throw new InactiveSignIn();
+        if (outcome.reason === "throttled") throw new ThrottledSignIn();
         throw new WrongCredentials();
       },
     }),

@@ -26,6 +26,8 @@ const envSchema = z.object({
   /** Failed sign-ins before an account is locked, and for how long. */
   SIGNIN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
   SIGNIN_LOCK_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** 32 bytes in base64: seals reviewers' signing certificates at rest. Without it no certificate can be stored or used. */
+  CERTIFICATE_KEY: z.string().optional(),
   /** Where background jobs queue: the database file (one machine) or Redis via BullMQ (workers on many machines). */
   JOBS_BACKEND: z.enum(["sqlite", "bullmq"]).default("sqlite"),
   REDIS_URL: z.string().url().default("redis://127.0.0.1:6379"),

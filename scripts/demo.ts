@@ -9,11 +9,11 @@ import { DEMO_USERS } from "../db/demo-scenario";
 import { seed } from "../db/seed";
 import { env, resolvePath } from "../lib/env";
 import { startFakeSmtp } from "./fake-smtp";
-import { ensureAuthSecret } from "./lib/ensure-secret";
+import { ensureSecrets } from "./lib/ensure-secret";
 import { run } from "./lib/run";
 
 async function main() {
-  ensureAuthSecret();
+  ensureSecrets();
   const dbFile = resolvePath(env().DATABASE_PATH);
   const db = openDatabase(dbFile);
   migrateDatabase(db);

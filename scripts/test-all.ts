@@ -6,7 +6,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { prepareE2eDatabase } from "./lib/e2e-database";
-import { ensureAuthSecret } from "./lib/ensure-secret";
+import { ensureSecrets } from "./lib/ensure-secret";
 import { commandExists, run } from "./lib/run";
 
 const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
@@ -72,7 +72,7 @@ async function step(name: string, command: string, args: string[], env: NodeJS.P
 }
 
 async function main() {
-  ensureAuthSecret();
+  ensureSecrets();
   await ensureDebianPackages();
   await step("Type check", "npx", ["tsc", "--noEmit"]);
   await step("Lint", "npx", ["eslint", "--max-warnings", "0", "."]);

@@ -6,7 +6,8 @@
  * keyboard-focusable buttons when the caller wants selection.
  */
 import { useEffect, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
-import { layoutOneLine, type OneLineLayout } from "@/lib/diagram/layout";
+import { runChecks } from "@/lib/compliance";
+import { failuresOf, layoutOneLine, type OneLineLayout } from "@/lib/diagram/layout";
 import { PALETTE, buildScene, type Ink, type Prim, type SceneGroup } from "@/lib/diagram/scene";
 import { DIAGRAM_FONT_FAMILY } from "@/lib/diagram/svg";
 import type { ProjectRecord } from "@/lib/schemas/project-record";
@@ -35,7 +36,17 @@ function drawnPart(record: ProjectRecord): string {
 }
 
 export function useOneLineLayout(record: ProjectRecord): State {
-  const key = drawnPart(record);
+  // Failing checks are marked on the drawing; the engine is pure and fast enough to run on every edit.
+  const failures = useMemo(() => {
+    try {
+      return failuresOf(runChecks(record).results);
+    } catch {
+      return [];
+    }
+  }, [record]);
+  const key = drawnPart(record) + JSON.stringify(failures);
+  const latestFailures = useRef(failures);
+  latestFailures.current = failures;
   // The latest record, read when the delay runs out; `key` decides when that is.
   const latest = useRef(record);
   latest.current = record;
@@ -44,7 +55,7 @@ export function useOneLineLayout(record: ProjectRecord): State {
     let cancelled = false;
     setState((s) => ({ status: "loading", layout: s.layout }));
     const timer = setTimeout(() => {
-      layoutOneLine(latest.current)
+      layoutOneLine(latest.current, { failures: latestFailures.current })
         .then((layout) => {
           if (!cancelled) setState({ status: "ready", layout });
         })

@@ -13,6 +13,7 @@ const TEMPLATE_LABELS: Record<string, string> = {
   calculations: "Calculations",
   schedules: "Schedules",
   "label-schedule": "Label schedule",
+  grounding: "Grounding and bonding",
   "review-record": "Review record",
 };
 

@@ -31,6 +31,8 @@ export interface ReviewDeskProps {
   licence: { licenceNumber: string; region: string; discipline: string; expiresOn: string | null; blockers: string[] } | null;
   /** Other reasons an approval cannot be given (a snapshot that no longer matches its hash). */
   approveRefusals?: string[];
+  /** The reviewer's stored signing certificate: approving then asks for its password and signs the stamped packet. */
+  certificate?: { subjectName: string } | null;
   today: string;
 }
 
@@ -117,6 +119,8 @@ export function ReviewDesk(props: ReviewDeskProps) {
   const [outcome, setOutcome] = useState<{ ok: boolean; text: string; issues?: { path: string; message: string }[] } | null>(null);
   const [confirming, setConfirming] = useState<"returned" | "approved" | null>(null);
   const [confirmed, setConfirmed] = useState(false);
+  const [certificatePassword, setCertificatePassword] = useState("");
+  const passwordId = useId();
   const dialogRef = useRef<HTMLDialogElement>(null);
   const generalId = useId();
 
@@ -168,7 +172,15 @@ export function ReviewDesk(props: ReviewDeskProps) {
   function decide(decision: "returned" | "approved") {
     setOutcome(null);
     startTransition(async () => {
-      const result = await decideReviewAction({ revisionId, decision, generalNotes: general, notes: written, confirmStamp: decision === "approved" ? confirmed : undefined });
+      const result = await decideReviewAction({
+        revisionId,
+        decision,
+        generalNotes: general,
+        notes: written,
+        confirmStamp: decision === "approved" ? confirmed : undefined,
+        ...(decision === "approved" && props.certificate ? { certificatePassword } : {}),
+      });
+      setCertificatePassword("");
       setConfirming(null);
       setConfirmed(false);
       if (result.ok) {
@@ -362,11 +374,32 @@ export function ReviewDesk(props: ReviewDeskProps) {
               <input type="checkbox" className="mt-0.5" checked={confirmed} onChange={(e) => setConfirmed(e.target.checked)} disabled={pending} />
               <span>I have reviewed this revision and my stamp is to be printed on it.</span>
             </label>
+            {props.certificate ? (
+              <div className="mt-4">
+                <label htmlFor={passwordId} className="field-label block">
+                  Password of {props.certificate.subjectName}&apos;s signing certificate
+                </label>
+                <input
+                  id={passwordId}
+                  type="password"
+                  autoComplete="off"
+                  required
+                  className="input mt-1 w-full max-w-xs"
+                  value={certificatePassword}
+                  onChange={(e) => setCertificatePassword(e.target.value)}
+                  disabled={pending}
+                  aria-describedby={`${passwordId}-hint`}
+                />
+                <p id={`${passwordId}-hint`} className="mt-1 text-xs text-ink-soft">
+                  The stamped packet is digitally signed with your certificate. The password is used for this signing and not kept.
+                </p>
+              </div>
+            ) : null}
             <div className="mt-5 flex flex-wrap justify-end gap-3">
               <button type="button" className="btn-quiet" onClick={() => setConfirming(null)} disabled={pending}>
                 Keep reviewing
               </button>
-              <button type="submit" className="btn" disabled={pending || !confirmed}>
+              <button type="submit" className="btn" disabled={pending || !confirmed || (Boolean(props.certificate) && !certificatePassword)}>
                 {pending ? "Stamping…" : `Approve and stamp revision ${revisionNumber}`}
               </button>
             </div>

@@ -37,6 +37,9 @@ export function AppShell({
             <span className="block font-medium leading-tight">{user.name}</span>
             <span className="block text-xs leading-tight text-ink-soft">{roles.map((r) => ROLE_LABELS[r]).join(" · ")}</span>
           </span>
+          <Link href="/account/password" className="btn-quiet">
+            Password
+          </Link>
           <form action={signOutAction}>
             <button type="submit" className="btn-quiet">
               Sign out

@@ -302,7 +302,7 @@ export function EditableGrid({
                                   insert(index + 1, duplicateRow ? duplicateRow(structuredClone(source), rowsNow) : structuredClone(source));
                                 }}
                               >
-                                {hasDetail ? "⧉" : "Copy"}
+                                {hasDetail ? "+" : "Copy"}
                               </button>
                               <button
                                 type="button"

@@ -176,7 +176,7 @@ export function ProjectEditor({
           </div>
 
           {save.kind === "conflict" ? (
-            <div role="alert" className="sheet mb-4 border-l-4 border-l-signal px-4 py-3 text-sm">
+            <div role="alert" className="sheet sticky top-14 z-20 mb-4 border-l-4 border-l-signal px-4 py-3 text-sm shadow-sm">
               <p className="font-semibold">Someone saved this project after you opened it — your changes were not saved.</p>
               <p className="mt-1 text-ink-soft">
                 Nothing was overwritten. Reload to see their version; the edits in this tab will be lost, so note anything you need first.

@@ -15,4 +15,5 @@ export * from "./submissions";
 export * from "./audit-log";
 export * from "./outbox";
 export * from "./installations";
+export * from "./signing";
 export * from "./jobs";

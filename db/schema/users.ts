@@ -17,6 +17,12 @@ export const users = sqliteTable(
     failedSignIns: integer("failed_sign_ins").notNull().default(0),
     lockedUntil: text("locked_until"),
     lastSignInAt: text("last_sign_in_at"),
+    /**
+     * Raised whenever a session must end: deactivation, a role change, a new
+     * password. Each session token carries the value it was issued with, and a
+     * request whose token carries an older one is signed out.
+     */
+    sessionVersion: integer("session_version").notNull().default(0),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),

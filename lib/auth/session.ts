@@ -5,6 +5,12 @@ import { getDb } from "../../db/client";
 import { contextForUser, type ServiceContext } from "../services/context";
 import { ServiceError } from "../services/errors";
 
+/** The session version the token was issued with; -1 for a token from before versions, which no user has. */
+function tokenSessionVersion(session: { user?: unknown } | null): number {
+  const v = (session?.user as { sessionVersion?: unknown } | undefined)?.sessionVersion;
+  return typeof v === "number" ? v : -1;
+}
+
 /**
  * The service context of the signed-in user, or null when signed out or deactivated.
  * Cached per request so a layout, its page and their helpers share one read of the
@@ -15,7 +21,7 @@ export const currentContext = cache(async function currentContext(): Promise<Ser
   const userId = session?.user?.id;
   if (!userId) return null;
   try {
-    return contextForUser(getDb(), userId);
+    return contextForUser(getDb(), userId, tokenSessionVersion(session));
   } catch (error) {
     if (error instanceof ServiceError && error.code === "unauthenticated") return null;
     throw error;
@@ -25,5 +31,5 @@ export const currentContext = cache(async function currentContext(): Promise<Ser
 /** As currentContext, but throws the typed 401 for route handlers and actions. */
 export async function requireContext(): Promise<ServiceContext> {
   const session = await auth();
-  return contextForUser(getDb(), session?.user?.id);
+  return contextForUser(getDb(), session?.user?.id, tokenSessionVersion(session));
 }

@@ -11,6 +11,7 @@ import { batteryMaxVoltage } from "./derive/battery";
 import { arrayMaxVoltage } from "./derive/pv";
 import { Trace } from "./context";
 import { codeRef } from "./tables";
+import { storageRefs } from "./refs";
 import { switchingDevicesOn } from "./checks/disconnects";
 import { rapidShutdownApplies } from "./checks/rapid-shutdown";
 import { singleSupplyPanels } from "./checks/stand-alone-supply";
@@ -154,7 +155,7 @@ export function labelsFor(ctx: CheckContext): LabelRequirement[] {
     const maxV = batteryMaxVoltage(b, t);
     out.push({
       id: `ess-disconnect:${b.item.tag}`,
-      codeRef: codeRef(ed, "ess-label"),
+      codeRef: storageRefs(ctx, "ess-label")[0]!,
       signalWord: "WARNING",
       title: "ENERGY STORAGE SYSTEM DISCONNECT",
       lines: [

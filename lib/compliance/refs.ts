@@ -19,8 +19,6 @@ const SAME_IN_ALL_EDITIONS = {
   "branch-ocpd": "210.20(A)",
   /** Battery conductors: protection as close as practicable to the terminals. */
   "battery-conductor-ocpd": "240.21(H)",
-  /** Storage circuit current. */
-  "ess-circuit-current": "706.30(A)",
   /** Stand-alone systems' inverter input circuit current (690.8(A) list). */
   "inverter-output-current": "690.8(A)",
   /** Parallel conductors: 1/0 and larger. */
@@ -29,9 +27,43 @@ const SAME_IN_ALL_EDITIONS = {
 
 export type LocalTopic = keyof typeof SAME_IN_ALL_EDITIONS;
 
-export function localRef(edition: NecEdition, topic: LocalTopic): string {
+export function localRef(edition: NecEdition, topic: LocalTopic | "ess-circuit-current"): string {
+  // Storage circuit current: 706.20(A) in 2017 (706.30 is installation there), 706.30(A) from 2020 (from memory).
+  if (topic === "ess-circuit-current") return `NEC ${edition} ${edition === "2017" ? "706.20(A)" : "706.30(A)"}`;
   if (topic === "parallel-conductors") return `NEC ${edition} ${edition === "2017" ? "310.10(H)" : "310.10(G)"}`;
   return `NEC ${edition} ${SAME_IN_ALL_EDITIONS[topic]}`;
+}
+
+/** Storage topics whose article depends on the edition and the battery voltage. */
+export type StorageTopic = "ess-disconnect" | "ess-label" | "ess-listing" | "ess-ocpd" | "ess-circuit-current";
+
+/**
+ * 2017 Article 706 covers storage operating over 60 V DC (706.1, from memory); a lower-voltage battery
+ * falls under Article 480 in that edition. From 2020, Article 706 covers storage of any voltage over 1 kWh.
+ */
+const ARTICLE_480_2017: Record<StorageTopic, string | undefined> = {
+  "ess-disconnect": "480.7(A)",
+  "ess-label": "480.7(F)",
+  "ess-listing": "480.3",
+  // Article 480 has no overcurrent section of its own; 240.21(H) is cited beside it.
+  "ess-ocpd": undefined,
+  // The PV system's DC circuit currents (stand-alone inverter input, converter output).
+  "ess-circuit-current": "690.8(A)",
+};
+
+export function storageUnder480(ctx: { edition: NecEdition; record: { equipment: readonly { kind: string; nominalVoltageV?: number }[] } }): boolean {
+  if (ctx.edition !== "2017") return false;
+  const volts = ctx.record.equipment.filter((e) => e.kind === "battery").map((e) => e.nominalVoltageV);
+  return volts.length > 0 && volts.every((x) => x !== undefined && x <= 60);
+}
+
+/** The storage reference for the edition and the battery's voltage (Article 480 for a 60 V or lower battery under NEC 2017). */
+export function storageRefs(ctx: { edition: NecEdition; record: { equipment: readonly { kind: string; nominalVoltageV?: number }[] } }, topic: StorageTopic): string[] {
+  if (storageUnder480(ctx)) {
+    const section = ARTICLE_480_2017[topic];
+    return section ? [`NEC 2017 ${section}`] : [];
+  }
+  return topic === "ess-circuit-current" ? [localRef(ctx.edition, topic)] : refs(ctx.edition, topic);
 }
 
 const cache: Partial<Record<NecEdition, Map<CodeTopic, string>>> = {};

@@ -182,7 +182,7 @@ interface EdgeSpec {
   heading: string;
   callout: string[];
   trouble: string[];
-  devices: { tag: string; kind: DeviceKind; lines: string[]; missing: boolean }[];
+  devices: { tag: string; kind: DeviceKind; lines: string[]; missing: boolean; failing?: boolean }[];
   labelWidth: number;
   labelHeight: number;
 }
@@ -271,8 +271,8 @@ function placeDevices(points: Point[], label: Box, devices: EdgeSpec["devices"])
   return devices.map((d, i) => {
     const along = start + i * DEVICE_PITCH;
     return vertical
-      ? { tag: d.tag, kind: d.kind, x: a.x, y: along, vertical, trouble: d.missing }
-      : { tag: d.tag, kind: d.kind, x: along, y: a.y, vertical, trouble: d.missing };
+      ? { tag: d.tag, kind: d.kind, x: a.x, y: along, vertical, trouble: d.missing || Boolean(d.failing) }
+      : { tag: d.tag, kind: d.kind, x: along, y: a.y, vertical, trouble: d.missing || Boolean(d.failing) };
   });
 }
 
@@ -283,6 +283,26 @@ export interface LayoutOptions {
   targetWidthPt?: number;
   /** Allow the flow to wrap into rows when that draws it much larger (default true). */
   wrap?: boolean;
+  /** Failing check results, so the drawing marks the conductor or device each one concerns. */
+  failures?: DiagramFailure[];
+}
+
+/** A failing check as the drawing marks it: the circuit, array or equipment tag, and the check's id. */
+export interface DiagramFailure {
+  subject: string;
+  checkId: string;
+}
+
+/** The failing checks of a run, in the shape the drawing marks. */
+export function failuresOf(results: { status: string; subject?: string; checkId: string }[]): DiagramFailure[] {
+  return results.filter((r) => r.status === "fail" && r.subject).map((r) => ({ subject: r.subject!, checkId: r.checkId }));
+}
+
+/** Checks whose failure on a circuit is also a failure of its overcurrent device (the device does not protect the conductor). */
+const OCPD_CHECK = /overcurrent|ocpd|ampacity/;
+
+function failLines(failures: DiagramFailure[], tag: string): string[] {
+  return failures.filter((f) => f.subject === tag).map((f) => `FAIL ${f.checkId}`);
 }
 
 export async function layoutOneLine(record: ProjectRecord, options: LayoutOptions = {}): Promise<OneLineLayout> {
@@ -291,6 +311,7 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
   const equipment = record.equipment ?? [];
   const arrays = record.arrays ?? [];
   const circuits = record.circuits ?? [];
+  const failures = options.failures ?? [];
   const byTag = new Map<string, Equipment>();
   for (const e of equipment) if (!byTag.has(e.tag)) byTag.set(e.tag, e);
 
@@ -309,12 +330,15 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
     for (const t of c.disconnectTags ?? []) {
       if (!devTags.some((d) => d.tag === t)) devTags.push({ tag: t, role: "disconnect" });
     }
+    const circuitFails = failures.filter((f) => f.subject === c.tag);
     const devices = devTags.map(({ tag, role }) => {
       protectiveUse.add(tag);
       const e = byTag.get(tag);
-      return { tag, kind: deviceKindOf(e), lines: deviceLines(tag, e, role), missing: !e };
+      const failing = failures.some((f) => f.subject === tag) || (role === "ocpd" && circuitFails.some((f) => OCPD_CHECK.test(f.checkId)));
+      return { tag, kind: deviceKindOf(e), lines: deviceLines(tag, e, role), missing: !e, failing };
     });
-    const trouble = [...text.trouble];
+    const trouble = [...text.trouble, ...circuitFails.map((f) => `FAIL ${f.checkId}`)];
+    for (const d of devices) trouble.push(...failLines(failures, d.tag).map((l) => `${d.tag} ${l}`));
     for (const d of devices) if (d.missing) trouble.push(`${d.tag} not in the equipment list`);
     const size = labelSize(
       text.heading,
@@ -395,7 +419,8 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
   }
 
   const sized = (spec: NodeSpec) => {
-    const s = { ...spec, lines: wrapAll(spec.lines, NODE_LINE_CHARS), trouble: wrapAll(spec.trouble, NODE_LINE_CHARS - 2) };
+    const trouble = [...spec.trouble, ...failLines(failures, spec.tag)];
+    const s = { ...spec, lines: wrapAll(spec.lines, NODE_LINE_CHARS), trouble: wrapAll(trouble, NODE_LINE_CHARS - 2) };
     return { ...s, ...nodeSize(s.title, s.tag, s.lines, s.trouble) };
   };
   const flowNodes = flowSpecs.map(sized);

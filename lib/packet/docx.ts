@@ -89,6 +89,7 @@ function checkChildren(r: CheckResult): FileChild[] {
   ];
   if (r.message) out.push(new Paragraph({ children: [run(r.message, { size: 16 })] }));
   if (r.reason) out.push(new Paragraph({ children: [run("Reason: ", { bold: true, size: 16 }), run(r.reason, { size: 16 })] }));
+  if (r.remedy) out.push(new Paragraph({ children: [run("Remedy: ", { bold: true, size: 16 }), run(r.remedy.text, { size: 16, color: r.status === "fail" ? SIGNAL_HEX : undefined })] }));
   if (r.formula) out.push(new Paragraph({ children: [run("Formula: ", { bold: true, size: 16 }), run(r.formula, { size: 16 })] }));
   const rows: Cell[][] = [
     ...r.inputs.map((i): Cell[] => ["Input", i.label, formatCheckValue(i)]),
@@ -207,6 +208,10 @@ function blockChildren(block: Block, input: PacketInput): FileChild[] {
           ];
         }
         return [new Paragraph({ children: [run(sp ? `Site plan ${sp.fileName}: see sheet G-003 of the PDF packet.` : "No site plan is attached to this revision.", { bold: !sp })] })];
+      }
+      if (block.figure === "split-phase") {
+        const [inverter, panel] = block.caption.split("|");
+        return [new Paragraph({ children: [run(`Three-line detail (${inverter} to ${panel}, L1–L2 jumper and neutral) is drawn on sheet E-007 of the PDF packet.`)] })];
       }
       return [new Paragraph({ children: [run("The one-line diagram is drawn on sheet E-001 of the PDF packet; its circuits are listed on the conductor schedule (E-004).")] })];
     }

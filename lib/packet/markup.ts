@@ -23,7 +23,7 @@ export type Block =
   | { kind: "fields"; rows: [string, string][] }
   | { kind: "table"; columns: TableColumn[]; rows: Cell[][]; caption?: string }
   | { kind: "check"; result: CheckResult }
-  | { kind: "figure"; figure: "site-plan" | "one-line"; caption: string }
+  | { kind: "figure"; figure: "site-plan" | "one-line" | "split-phase"; caption: string }
   | { kind: "labels"; labels: LabelRequirement[] }
   | { kind: "column-break" };
 

@@ -5,6 +5,7 @@ import type { Block } from "./markup";
 import { AHJ_FOOTER, REVIEW_MARKING, SHEET_PLAN, type PacketDatasheet, type PacketModel, type Sheet } from "./plan";
 import { conductorBlocks } from "./sheets/conductors";
 import { equipmentBlocks } from "./sheets/equipment";
+import { groundingBlocks } from "./sheets/grounding";
 import { reviewBlocks } from "./sheets/review-record";
 import { sitePlanBlocks } from "./sheets/site-plan";
 import { storageBlocks } from "./sheets/storage";
@@ -88,6 +89,9 @@ export function buildPacketModel(input: PacketInput, options: BuildOptions = {})
         break;
       case "label-schedule":
         blocks.push({ kind: "labels", labels: input.labels });
+        break;
+      case "grounding":
+        blocks.push(...groundingBlocks(input));
         break;
       case "review-record":
         blocks.push(...reviewBlocks(input));

@@ -1,5 +1,5 @@
 import type { PDFFont, PDFPage } from "pdf-lib";
-import { layoutOneLine } from "../diagram/layout";
+import { layoutOneLine, type DiagramFailure } from "../diagram/layout";
 import { drawOneLine } from "../diagram/pdf";
 import type { ProjectRecord } from "../schemas/project-record";
 
@@ -10,7 +10,7 @@ export type OneLineDrawer = (
 ) => void;
 
 /** Lays the one-line diagram out once (async, ELK) so the sheet writer can draw it synchronously. */
-export async function prepareOneLine(record: ProjectRecord, aspectRatio: number): Promise<OneLineDrawer> {
-  const layout = await layoutOneLine(record, { aspectRatio });
+export async function prepareOneLine(record: ProjectRecord, aspectRatio: number, failures: DiagramFailure[] = []): Promise<OneLineDrawer> {
+  const layout = await layoutOneLine(record, { aspectRatio, failures });
   return (page, box, fonts) => drawOneLine(page, layout, box, fonts);
 }

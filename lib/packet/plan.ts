@@ -11,6 +11,7 @@ export type SheetKind =
   | "conductor-schedule"
   | "equipment-schedule"
   | "label-schedule"
+  | "grounding"
   | "review-record";
 
 export interface Sheet {
@@ -74,5 +75,6 @@ export const SHEET_PLAN: { code: string; title: string; kind: SheetKind; templat
   { code: "E-004", title: "Conductor and overcurrent schedule", kind: "conductor-schedule", template: "schedules", columns: 1 },
   { code: "E-005", title: "Equipment schedule", kind: "equipment-schedule", template: "schedules", columns: 1 },
   { code: "E-006", title: "Label schedule", kind: "label-schedule", template: "label-schedule", columns: 1 },
+  { code: "E-007", title: "Grounding and bonding", kind: "grounding", template: "grounding", columns: 1 },
   { code: "G-004", title: "Review record", kind: "review-record", template: "review-record", columns: 2 },
 ];

@@ -11,6 +11,7 @@ export const SHEET_TEMPLATE_NAMES = [
   "calculations",
   "schedules",
   "label-schedule",
+  "grounding",
   "review-record",
 ] as const;
 export type SheetTemplateName = (typeof SHEET_TEMPLATE_NAMES)[number];

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { passwordSchema } from "./password";
 import { ROLES } from "../auth/roles";
 
 export const roleListSchema = z
@@ -10,7 +11,7 @@ export const newUserSchema = z.object({
   email: z.string().trim().toLowerCase().email({ message: "must be an e-mail address" }).max(254),
   roles: roleListSchema,
   /** The first password, handed to the person by the admin; at least 12 characters. */
-  password: z.string().min(12, { message: "must be at least 12 characters" }).max(200),
+  password: passwordSchema,
 });
 export type NewUserInput = z.input<typeof newUserSchema>;
 

@@ -20,12 +20,16 @@ export function requirePermission(ctx: ServiceContext, permission: Permission, w
 /**
  * Builds the context from the signed-in user's id, re-reading the user so a
  * deactivated account or a changed role takes effect on the next request,
- * whatever the session token still says.
+ * whatever the session token still says. Given the session version the token
+ * was issued with (every request from a browser gives it), a token older than
+ * the user's current version is refused: that session has ended.
  */
-export function contextForUser(db: Db, userId: string | undefined | null): ServiceContext {
+export function contextForUser(db: Db, userId: string | undefined | null, sessionVersion?: number | null): ServiceContext {
   if (!userId) throw unauthenticated();
   const user = db.select().from(users).where(eq(users.id, userId)).get();
   if (!user || !user.active) throw unauthenticated();
+  // A session token issued before deactivation, a role change or a password change no longer holds.
+  if (sessionVersion !== undefined && sessionVersion !== user.sessionVersion) throw unauthenticated();
   const roles = db
     .select({ role: userRoles.role })
     .from(userRoles)

@@ -214,3 +214,54 @@ test("a designer enters the cabin system in at most 60 field entries and gets th
   const { record } = (await stored.json()) as { record: unknown };
   expect(outcome(record)).toEqual(outcome(handEntered(name)));
 });
+
+test("renaming a tag follows it everywhere, deleting a referenced item asks first, and undo puts the record back", async ({ page }) => {
+  test.setTimeout(180_000);
+  await signInAs(page, "designer");
+  await page.getByRole("link", { name: "New project" }).click();
+  const name = `Rename and undo ${Date.now().toString(36)}`;
+  await page.getByLabel("Project name").fill(name);
+  await page.getByLabel("Jurisdiction").selectOption({ label: `${jurisdiction.name} (NEC ${jurisdiction.necEdition})` });
+  await page.getByRole("button", { name: "Create project" }).click();
+  await expect(page.getByRole("heading", { level: 1, name })).toBeVisible();
+  await expect(page.getByTestId("check-state")).toHaveText("up to date");
+
+  await page.getByRole("button", { name: "+ Add equipment" }).click();
+  await page.getByRole("button", { name: "+ Add equipment" }).click();
+  await page.getByLabel("Kind, equipment row 2").selectOption("charge-controller");
+  await expect(page.getByLabel("Tag, equipment row 2")).toHaveValue("CC-1");
+  await page.getByRole("button", { name: "+ Add array" }).click();
+  await expect(page.getByLabel("Feeds, array row 1")).toHaveValue("CC-1");
+  await page.getByRole("button", { name: "+ Add circuit" }).click();
+  await page.getByLabel("From, circuit row 1").selectOption("PV-1");
+  await page.getByLabel("To, circuit row 1").selectOption("CC-1");
+  await expect(page.getByLabel("Kind, circuit row 1")).toHaveValue("pv-source");
+
+  // A renamed tag is renamed where it is used.
+  await page.getByLabel("Tag, equipment row 2").fill("CC-A");
+  await page.keyboard.press("Tab");
+  await expect(page.getByLabel("Feeds, array row 1")).toHaveValue("CC-A");
+  await expect(page.getByLabel("To, circuit row 1")).toHaveValue("CC-A");
+  await expect(page.getByText("Renamed CC-1 to CC-A in 2 places")).toBeVisible();
+
+  // Deleting it asks first and names what refers to it.
+  await page.getByRole("button", { name: "Delete equipment row 2" }).click();
+  const ask = page.getByRole("alertdialog");
+  await expect(ask).toContainText("CC-A is used in 2 places: PV-1 · feeds, C-1 · to.");
+  await ask.getByRole("button", { name: "Keep the equipment" }).click();
+  await expect(page.getByLabel("Tag, equipment row 2")).toHaveValue("CC-A");
+  await page.getByRole("button", { name: "Delete equipment row 2" }).click();
+  await page.getByRole("alertdialog").getByRole("button", { name: "Delete the equipment and remove the references" }).click();
+  await expect(page.getByLabel("Tag, equipment row 2")).toHaveCount(0);
+  await expect(page.getByLabel("To, circuit row 1")).toHaveValue("");
+
+  // Undo puts back the item and its references in one step; redo takes them away again.
+  await page.locator("body").click({ position: { x: 5, y: 5 } });
+  await page.keyboard.press("Control+z");
+  await expect(page.getByLabel("Tag, equipment row 2")).toHaveValue("CC-A");
+  await expect(page.getByLabel("To, circuit row 1")).toHaveValue("CC-A");
+  await expect(page.getByLabel("Feeds, array row 1")).toHaveValue("CC-A");
+  await page.keyboard.press("Control+Shift+z");
+  await expect(page.getByLabel("Tag, equipment row 2")).toHaveCount(0);
+  await expect(page.getByLabel("To, circuit row 1")).toHaveValue("");
+});

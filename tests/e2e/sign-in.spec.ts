@@ -120,3 +120,32 @@ test("an admin adds a user, who is locked out after repeated wrong passwords and
   await expect(formAlert(other)).toContainText(/deactivated|locked/);
   await other.close();
 });
+
+test("a role change by an admin ends the person's open session: their next page asks them to sign in again", async ({ page, browser }) => {
+  const stamp = Date.now().toString(36);
+  const email = `rue-${stamp}@quillfeather.test`;
+  const name = `Rue Halvorsen ${stamp}`;
+  await signInAs(page, "admin");
+  const form = page.getByRole("form", { name: "Add a user" });
+  await form.getByLabel("Name").fill(name);
+  await form.getByLabel("E-mail").fill(email);
+  await form.getByLabel("First password (12+ characters)").fill("first-password-rue");
+  await form.getByLabel("Designer").check();
+  await form.getByRole("button", { name: "Add user" }).click();
+  await expect(page.getByRole("table", { name: "Users" }).getByText(email)).toBeVisible();
+
+  const other = await browser.newPage();
+  await signIn(other, email, "first-password-rue");
+  await expect(other.getByRole("button", { name: "Sign out" })).toBeVisible();
+  await other.goto("/projects");
+  await expect(other).toHaveURL(/\/projects$/);
+
+  const roles = page.getByRole("form", { name: `Roles of ${name}` });
+  await roles.getByLabel("Reviewer").check();
+  await roles.getByRole("button", { name: "Save roles" }).click();
+  await expect(roles.getByRole("status")).toBeVisible();
+
+  await other.goto("/projects");
+  await expect(other).toHaveURL(/\/sign-in/);
+  await other.close();
+});

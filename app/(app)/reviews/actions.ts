@@ -3,11 +3,29 @@
 import { revalidatePath } from "next/cache";
 import { runAction, type ActionResult } from "@/lib/auth/action";
 import type { ReviewDecisionInput } from "@/lib/schemas/review";
-import { decideReview, renderStampedPacketAgain, saveOwnLicence, type Decided, type LicenceView } from "@/lib/services/reviews";
+import {
+  approveAndSign,
+  decideReview,
+  renderStampedPacketAgain,
+  saveOwnLicence,
+  signStampedPacket,
+  uploadSigningCertificate,
+  type CertificateView,
+  type Decided,
+  type LicenceView,
+} from "@/lib/services/reviews";
 
-/** The decision with its notes, as the review page collects them; the service parses and authorises. */
-export async function decideReviewAction(input: ReviewDecisionInput): Promise<ActionResult<Decided>> {
-  const result = await runAction((ctx) => decideReview(ctx, input));
+/**
+ * The decision with its notes, as the review page collects them; the service parses and authorises.
+ * With the certificate's password, an approval also signs the stamped packet.
+ */
+export async function decideReviewAction(input: ReviewDecisionInput & { certificatePassword?: string }): Promise<ActionResult<Decided>> {
+  const { certificatePassword, ...decision } = input ?? {};
+  const result = await runAction((ctx) =>
+    decision.decision === "approved" && typeof certificatePassword === "string" && certificatePassword
+      ? approveAndSign(ctx, decision, { password: certificatePassword })
+      : decideReview(ctx, decision),
+  );
   if (result.ok && typeof input?.revisionId === "string") {
     revalidatePath(`/reviews/${input.revisionId}`);
     revalidatePath("/reviews");
@@ -41,5 +59,23 @@ export async function saveLicenceAction(_prev: ActionResult<LicenceView> | null,
     revalidatePath("/reviews/licence");
     revalidatePath("/reviews");
   }
+  return result;
+}
+
+/** Signs an approved revision's stamped packet with the reviewer's stored certificate; the password is used once and dropped. */
+export async function signPacketAction(revisionId: string, certificatePassword: string): Promise<ActionResult> {
+  const result = await runAction((ctx) => signStampedPacket(ctx, String(revisionId), { password: String(certificatePassword ?? "") }));
+  if (result.ok) revalidatePath(`/reviews/${revisionId}`);
+  return result.ok ? { ok: true, message: result.data?.message } : result;
+}
+
+export async function uploadCertificateAction(_prev: ActionResult<CertificateView> | null, formData: FormData): Promise<ActionResult<CertificateView>> {
+  const file = formData.get("certificate");
+  const password = formData.get("certificatePassword");
+  const result = await runAction(async (ctx) => {
+    const bytes = file instanceof File ? new Uint8Array(await file.arrayBuffer()) : new Uint8Array();
+    return uploadSigningCertificate(ctx, { fileName: file instanceof File ? file.name : "certificate.p12", bytes, password: typeof password === "string" ? password : "" });
+  }, "Signing certificate saved. Its password is not kept: you type it each time you sign.");
+  if (result.ok) revalidatePath("/reviews/licence");
   return result;
 }

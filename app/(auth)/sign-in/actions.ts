@@ -13,6 +13,8 @@ function messageFor(code: string | undefined): string {
   switch (code) {
     case "locked":
       return `This account is locked for ${env().SIGNIN_LOCK_MINUTES} minutes after repeated failed sign-ins. Try again later, or ask your administrator to unlock it.`;
+    case "throttled":
+      return `Too many failed sign-ins from this network. Wait ${env().SIGNIN_LOCK_MINUTES} minutes and try again.`;
     case "inactive":
       return "This account has been deactivated. Ask your administrator if you still need access.";
     default:

@@ -5,11 +5,12 @@
  * close to it; inverters listed for the mode they run in; storage listed.
  */
 import type { Circuit } from "../../schemas/project-record";
-import { isDcCircuit, isInverter, Trace, v, type CheckContext, type Indexed, isProtective } from "../context";
+import { circuitArrayTag, isDcCircuit, isInverter, isPvCircuit, Trace, v, type CheckContext, type Indexed, isProtective } from "../context";
+import { arrayMaxVoltage } from "../derive/pv";
 import { batteries } from "../derive/battery";
 import { circuitCurrent } from "../derive/circuit-current";
 import { remedy } from "../derive/remedy";
-import { localRef, refs } from "../refs";
+import { localRef, refs, storageRefs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
 import type { CheckResult, CheckStatus } from "../types";
 
@@ -59,7 +60,11 @@ export const deviceRatings: CheckDefinition = {
         anyDc ||= dc;
         anyAc ||= !dc;
         if (cur.ok && cur.value.maxVoltageV !== undefined) maxV = Math.max(maxV, cur.value.maxVoltageV);
-        else if (cur.ok) t.need(`${c.path}.nominalVoltageV`, `Voltage of ${c.item.tag}`, undefined, "V");
+        else if (cur.ok && isPvCircuit(c.item)) {
+          // A PV circuit's voltage is the array's cold Voc: name what that computation lacks, not the circuit's nominal voltage it never reads.
+          const arrayTag = circuitArrayTag(ctx, c.item);
+          if (arrayTag !== undefined) t.merge(arrayMaxVoltage(ctx, arrayTag));
+        } else if (cur.ok) t.need(`${c.path}.nominalVoltageV`, `Voltage of ${c.item.tag}`, undefined, "V");
         else t.merge(cur);
         if (dc && !["pv-source", "pv-output"].includes(c.item.kind) && bats.length) onBattery.push(c);
       }
@@ -84,7 +89,7 @@ export const deviceRatings: CheckDefinition = {
       }
       const protectsBattery = (e.kind === "fuse" || e.kind === "breaker") && onBattery.length > 0;
       if (protectsBattery) {
-        codeRefs.push(...refs(ed, "ess-ocpd"), localRef(ed, "battery-conductor-ocpd"));
+        codeRefs.push(...storageRefs(ctx, "ess-ocpd"), localRef(ed, "battery-conductor-ocpd"));
         const ir = t.need(`${dev.path}.interruptingRatingA`, `Interrupting rating of ${tag}`, e.interruptingRatingA, "A");
         for (const b of bats) t.need(`${b.path}.shortCircuitCurrentA`, `Available short-circuit current of ${b.item.tag}`, b.item.shortCircuitCurrentA, "A");
         if (ir !== undefined && faultA !== undefined) {
@@ -158,7 +163,7 @@ export const deviceRatings: CheckDefinition = {
           }),
         );
       } else if (e.kind === "battery") {
-        const codeRefs = refs(ed, "ess-listing");
+        const codeRefs = storageRefs(ctx, "ess-listing");
         const listing = t.need(`${path}.listing`, `Listing of ${e.tag}`, e.listing || undefined);
         if (listing === undefined) {
           out.push(needsInput(this, { subject: e.tag, inputs: t.inputs, missing: t.missing, codeRefs }));

@@ -6,7 +6,7 @@
 import type { Circuit } from "../../schemas/project-record";
 import { equipmentOfKind, isDcCircuit, isInverter, Trace, type CheckContext, type Indexed } from "../context";
 import { remedy } from "../derive/remedy";
-import { refs } from "../refs";
+import { refs, storageRefs } from "../refs";
 import { makeResult, type CheckDefinition } from "../result";
 import type { CheckResult, Remedy } from "../types";
 
@@ -97,7 +97,7 @@ export const disconnects: CheckDefinition = {
       const t = new Trace();
       const near = circuitsNear(ctx, b.item.tag);
       const found = near.flatMap((c) => switchingDevicesOn(ctx, c.item));
-      report(b.item.tag, [...new Set(found)], undefined, "isolated from every circuit it feeds", refs(ed, "ess-disconnect"), t, near.length === 0, near);
+      report(b.item.tag, [...new Set(found)], undefined, "isolated from every circuit it feeds", storageRefs(ctx, "ess-disconnect"), t, near.length === 0, near);
     }
 
     for (const g of equipmentOfKind(ctx, "generator")) {

@@ -12,7 +12,7 @@ import { conductorAmpacity } from "../derive/conductor";
 import { arrayIsc, arrayParts } from "../derive/pv";
 import { maxProtectiveRatingA } from "../derive/remedy";
 import { missingDeviceRemedy, ocpdRemedy, stringFuseRemedy } from "../derive/ocpd-remedy";
-import { localRef, refs } from "../refs";
+import { localRef, refs, storageRefs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
 import { CIRCUIT_KIND_WORDS, withArticle } from "../../schemas/vocabulary";
@@ -44,7 +44,7 @@ export const overcurrentProtection: CheckDefinition = {
       const pv = isPvCircuit(c);
       const codeRefs = [
         ...(pv ? refs(ed, "pv-ocpd") : []),
-        ...(c.kind === "battery" ? refs(ed, "ess-ocpd") : []),
+        ...(c.kind === "battery" ? [...storageRefs(ctx, "ess-ocpd"), localRef(ed, "battery-conductor-ocpd")] : []),
         ...(c.kind === "generator-output" ? [localRef(ed, "generator-ocpd")] : []),
         ...(c.kind === "ac-branch" ? [localRef(ed, "branch-ocpd")] : []),
         ...refs(ed, "standard-ratings"),

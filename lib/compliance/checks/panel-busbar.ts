@@ -84,7 +84,7 @@ export const panelBusbar: CheckDefinition = {
             ],
             formula: `1.25 × ${sourceA.toFixed(1)} A + ${main} A ≤ 1.2 × ${bus} A`,
             inputs: t.inputs,
-            codeRefs,
+            codeRefs: [...codeRefs, ...refs(ctx.edition, "busbar-120-percent", "busbar-sum-of-breakers")],
           }),
         );
       } else {

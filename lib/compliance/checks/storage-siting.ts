@@ -5,10 +5,19 @@
  * The limits come from the siting data per code edition.
  */
 import { storageSitingRules } from "../tables";
+import type { NecEdition } from "../../schemas/project-record";
 import { Trace, v, type CheckContext } from "../context";
 import { batteries, unitKWh } from "../derive/battery";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
 import type { CheckResult, CheckStatus, RemedyChange } from "../types";
+
+/**
+ * The fire code a jurisdiction usually adopts beside its NEC edition: NEC 2017 with the 2018 IFC (storage in
+ * 1206), NEC 2020 with the 2021 IFC (1207), NEC 2023 with the 2024 IFC (1207); from memory.
+ */
+function fireCodeRef(edition: NecEdition): string {
+  return { "2017": "IFC 2018 1206", "2020": "IFC 2021 1207 / NFPA 855", "2023": "IFC 2024 1207 / NFPA 855" }[edition];
+}
 
 export const storageSiting: CheckDefinition = {
   id: "storage-siting",
@@ -32,7 +41,7 @@ export const storageSiting: CheckDefinition = {
           message: `Not a one- or two-family dwelling: the dwelling limits of ${rules.section} do not apply; confirm siting under the fire code (IFC / NFPA 855) with the AHJ.`,
           reason: "dwelling siting limits cover one- and two-family dwellings only",
           inputs: t.inputs,
-          codeRefs: [...codeRefs, "IFC 1207 / NFPA 855"],
+          codeRefs: [...codeRefs, fireCodeRef(ctx.edition)],
         }),
       ];
     }

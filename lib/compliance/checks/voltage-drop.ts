@@ -5,7 +5,8 @@
  */
 import { CONDUCTOR_SIZES_ASCENDING, compareConductorSize, dcResistanceOhmPerKft } from "../tables";
 import type { Circuit, ConductorSize } from "../../schemas/project-record";
-import { sizeLabel, Trace, v, type CheckContext, type Indexed } from "../context";
+import { circuitArrayTag, isPvCircuit, sizeLabel, Trace, v, type CheckContext, type Indexed } from "../context";
+import { arrayParts } from "../derive/pv";
 import { circuitCurrent } from "../derive/circuit-current";
 import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
@@ -24,6 +25,11 @@ export function voltageDropV(lengthFt: number, ohmPerKft: number, currentA: numb
 
 function phaseFactor(phases: 1 | 3): number {
   return phases === 3 ? Math.sqrt(3) : 2;
+}
+
+function pvModuleOf(ctx: CheckContext, c: Circuit) {
+  const arrayTag = circuitArrayTag(ctx, c);
+  return arrayTag !== undefined ? arrayParts(ctx, arrayTag)?.module : undefined;
 }
 
 export const voltageDrop: CheckDefinition = {
@@ -55,8 +61,16 @@ export const voltageDrop: CheckDefinition = {
       if (cur.ok) {
         I = cur.value.operatingCurrentA;
         V = cur.value.operatingVoltageV;
-        if (I === undefined) t.need(`${ci.path}.designCurrentA`, "Operating current", undefined, "A");
-        if (V === undefined) t.need(`${ci.path}.nominalVoltageV`, "Operating voltage", undefined, "V");
+        // A PV circuit runs at the module's Imp and Vmp; other circuits take the design current and nominal voltage.
+        const module = isPvCircuit(c) ? pvModuleOf(ctx, c) : undefined;
+        if (I === undefined) {
+          if (module) t.need(`${module.path}.impA`, `Imp of ${module.item.tag}`, undefined, "A");
+          else t.need(`${ci.path}.designCurrentA`, "Operating current", undefined, "A");
+        }
+        if (V === undefined) {
+          if (module) t.need(`${module.path}.vmpV`, `Vmp of ${module.item.tag}`, undefined, "V");
+          else t.need(`${ci.path}.nominalVoltageV`, "Operating voltage", undefined, "V");
+        }
       }
       const r = size !== undefined ? dcResistanceOhmPerKft(c.material, size) : undefined;
       if (len === undefined || size === undefined || I === undefined || V === undefined || r === undefined || t.missing.length) {

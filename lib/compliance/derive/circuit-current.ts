@@ -18,7 +18,7 @@ import {
   type EquipmentOf,
   type Indexed,
 } from "../context";
-import { refs, localRef } from "../refs";
+import { refs, localRef, storageRefs } from "../refs";
 import type { CheckValue } from "../types";
 import { batteryMaxVoltage, systemBattery, type Battery } from "./battery";
 import { arrayIsc, arrayMaxVoltage } from "./pv";
@@ -177,7 +177,7 @@ function computeCircuitCurrent(ctx: CheckContext, ci: Indexed<Circuit>): Derived
     let formula = "";
     let basis = "";
     let operatingCurrentA: number | undefined;
-    const codeRefs = [localRef(ed, "ess-circuit-current")];
+    const codeRefs = storageRefs(ctx, "ess-circuit-current");
     if (controller) {
       const rated = t.need(`${controller.path}.ratedOutputCurrentA`, `Rated output of ${controller.item.tag}`, controller.item.ratedOutputCurrentA, "A");
       if (rated !== undefined) {

@@ -48,6 +48,8 @@ export type CodeTopic =
   | "stand-alone-supply"
   | "stand-alone-label"
   | "busbar"
+  | "busbar-120-percent"
+  | "busbar-sum-of-breakers"
   | "arc-flash-label"
   | "field-marking"
   | "listing-use"
@@ -121,14 +123,19 @@ export const CODE_REFS: Readonly<Record<CodeTopic, ByEdition>> = {
   "stand-alone-label": same("710.15(C)"),
   // Busbar rules: 2017 705.12(B)(2)(3); 2020 restructured to 705.12(B)(3) (from memory, 2023 kept it).
   busbar: { "2017": "705.12(B)(2)(3)", "2020": "705.12(B)(3)", "2023": "705.12(B)(3)" },
+  // The items within it: the 120 % rule is 2017 705.12(B)(2)(3)(b), 2020/2023 705.12(B)(3)(2); the
+  // sum-of-breakers rule 2017 705.12(B)(2)(3)(c), 2020/2023 705.12(B)(3)(3) (from memory).
+  "busbar-120-percent": { "2017": "705.12(B)(2)(3)(b)", "2020": "705.12(B)(3)(2)", "2023": "705.12(B)(3)(2)" },
+  "busbar-sum-of-breakers": { "2017": "705.12(B)(2)(3)(c)", "2020": "705.12(B)(3)(3)", "2023": "705.12(B)(3)(3)" },
   "arc-flash-label": same("110.16"),
   "field-marking": same("110.21(B)"),
   "listing-use": same("110.3(B)"),
   "interrupting-rating": same("110.9"),
   "pv-listing": same("690.4(B)"),
   "ess-listing": same("706.5"),
-  // Plaque or directory at the building showing the power sources.
-  "stand-alone-plaque": same("710.10"),
+  // Plaque or directory at the building showing the power sources: 2017 Article 710 has no 710.10, the
+  // stand-alone plaque is 690.56(A) there (from memory).
+  "stand-alone-plaque": { "2017": "690.56(A)", "2020": "710.10", "2023": "710.10" },
   "source-directory": same("705.10"),
   // The branch-circuit informational note suggesting 3 % / 5 %: a recommendation,
   // not a requirement. 2023 renumbered 210.19's notes (from memory).

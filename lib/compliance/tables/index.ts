@@ -58,6 +58,7 @@ export {
 } from "./conductor-properties";
 export { EGC_TABLE_250_122, minimumEgcSize, type EgcRow } from "./egc-250-122";
 export { CODE_REFS, CODE_TOPICS, codeRef, type CodeTopic } from "./code-refs";
+export { CITATIONS, isMappedCitation, type CitationEntry } from "./citations";
 export {
   storageSitingRules,
   STORAGE_SITING_RULES,

@@ -3,6 +3,7 @@ import { deflateSync } from "node:zlib";
 import { PDFArray, PDFContentStream, PDFDocument, PDFName, PDFRawStream, PDFRef, type PDFPage } from "pdf-lib";
 import { embedPacketFonts } from "../fonts";
 import { buildPacketModel, type Sheet } from "../model";
+import { failuresOf } from "../../diagram/layout";
 import { prepareOneLine, type OneLineDrawer } from "../one-line";
 import { beginTextLayer, endTextLayer } from "../text-layer";
 import type { PacketInput, PacketPdf, SheetPages } from "../types";
@@ -68,7 +69,7 @@ function pageRange(first: number, count: number): string {
 /** Renders the permit packet: sheets in order, title block and review marking on every page, datasheets merged at the end. */
 export async function renderPacketPdf(input: PacketInput): Promise<PacketPdf> {
   const sources = await Promise.all(input.datasheets.map((d) => PDFDocument.load(d.bytes, { updateMetadata: false })));
-  const oneLine = await prepareOneLine(input.record, (CONTENT.x1 - CONTENT.x0) / (FLOW_TOP - CONTENT.bottom - 40));
+  const oneLine = await prepareOneLine(input.record, (CONTENT.x1 - CONTENT.x0) / (FLOW_TOP - CONTENT.bottom - 40), failuresOf(input.run.results));
   let coverGuess = 1;
   for (let attempt = 0; attempt < 3; attempt += 1) {
     const result = await renderOnce(input, sources, oneLine, coverGuess);

@@ -104,9 +104,10 @@ export function checkCardItems(ctx: Ctx, r: CheckResult, w: number): Item[] {
     for (const it of paragraphItems(font, SMALL, SMALL_LH, full, inner, color)) items.push(indent(it));
   };
   items.push({ h: 2, draw() {} });
-  add(fonts.condensedBold, r.codeRefs.join("; "), INK);
+  add(fonts.condensedBold, `Check ${r.checkId} · ${r.codeRefs.join("; ")}`, INK);
   if (r.message) add(fonts.condensed, r.message);
   if (r.reason) add(fonts.condensed, r.reason, r.status === "fail" ? SIGNAL : MUTED, "Reason:");
+  if (r.remedy) add(fonts.condensedBold, r.remedy.text, r.status === "fail" ? SIGNAL : INK, "Remedy:");
   if (r.formula) add(fonts.condensed, r.formula, MUTED, "Formula:");
   const pairRows = (title: string, rows: { label: string; value: string }[], bold: boolean) => {
     if (!rows.length) return;

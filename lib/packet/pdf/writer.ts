@@ -5,6 +5,7 @@ import { drawText } from "../text-layer";
 import { wrapText } from "../text";
 import { labelRowItem, sitePlanItem } from "./figures";
 import { checkCardItems, paragraphItems, tableItems } from "./items";
+import { threeLineItem } from "./three-line";
 import { BODY, BODY_LH, CONTENT, FLOW_TOP, GUTTER, HAIR, INK, MIN_TEXT, MUTED, RULE, RULE_PT, WHITE, type Ctx, type Group, type Item } from "./style";
 
 /** Line height of a label :: value row. */
@@ -165,7 +166,9 @@ export class SheetWriter {
           this.place({ items: checkCardItems(this.ctx, block.result, w), box: true, keepTogether: true, gapAfter: 8 });
           break;
         case "figure": {
-          if (block.figure === "site-plan") {
+          if (block.figure === "split-phase") {
+            this.place({ items: [threeLineItem(fonts, block.caption, w)], gapAfter: 10, keepTogether: true });
+          } else if (block.figure === "site-plan") {
             // The drawing takes what the location list below it leaves, so both stay on one sheet where they can.
             const following = blocks[index + 1];
             let listH = 0;

@@ -4,6 +4,9 @@ import type { Block, Cell } from "../markup";
 import type { PacketInput } from "../types";
 import { CIRCUIT_KIND_LABEL, KIND_LABEL, describe, equipmentByTag, findValue, resultsFor, statusCell, table } from "./shared";
 
+/** Checks whose failure on a circuit is also its overcurrent device's. */
+const OCPD_CHECK = /overcurrent|ocpd|ampacity/;
+
 export function conductorBlocks(input: PacketInput): Block[] {
   const { record, run } = input;
   const eq = equipmentByTag(record);
@@ -48,7 +51,11 @@ export function conductorBlocks(input: PacketInput): Block[] {
       dash(d.interruptingRatingA, "A"),
       dash(d.distanceFromBatteryFt, "ft"),
       protectsOrOn.join(", ") || "—",
-      statusCell(resultsFor(run, d.tag)),
+      // A device that does not protect its conductor fails with it, so the row shows the circuit's failing check too.
+      statusCell([
+        ...resultsFor(run, d.tag),
+        ...record.circuits.filter((c) => c.ocpdTag === d.tag).flatMap((c) => resultsFor(run, c.tag).filter((r) => r.status === "fail" && OCPD_CHECK.test(r.checkId))),
+      ]),
     ];
   });
   return [

@@ -15,10 +15,10 @@ export function reviewBlocks(input: PacketInput): Block[] {
   const open = input.run.results.filter((r) => r.status === "fail" || r.status === "needs-input" || r.status === "attest" || r.status === "warning");
   blocks.push(
     table(
-      [["Status", 1.1], ["Check", 3], ["Subject", 0.8], ["Code reference", 2]],
+      [["Status", 1.1], ["Check", 2.4], ["Subject", 0.8], ["Code reference", 1.8], ["Remedy", 3]],
       open.length
-        ? open.map((r) => [{ text: "", status: r.status }, r.title, r.subject ?? "—", r.codeRefs.join("; ")])
-        : [["—", "No open points.", "", ""]],
+        ? open.map((r) => [{ text: "", status: r.status }, r.title, r.subject ?? "—", r.codeRefs.join("; "), r.remedy?.text ?? "—"])
+        : [["—", "No open points.", "", "", ""]],
       "Points for the reviewer (fail, needs input, warning, attest)",
     ),
   );

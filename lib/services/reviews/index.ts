@@ -6,3 +6,6 @@ export { uploadStampImage, STAMP_MIN_PX, UploadRefusedError } from "./stamp";
 export { listRevisionReviews, listProjectReviews, type ReviewEntry, type ReviewNoteView } from "./history";
 export { getReviewWorkspace, type ReviewWorkspace, type ReviewCheck } from "./view";
 export { PACKET_SHEETS, licenceStanding, type LicenceStanding, type StampView } from "./shared";
+export { getOwnCertificate, uploadSigningCertificate, type CertificateView } from "./certificate";
+export { signStampedPacket, type SignedPacket, type SigningSecret } from "./sign";
+export { approveAndSign, type ApprovedAndSigned } from "./approve-signed";

@@ -1,5 +1,5 @@
-import { eq } from "drizzle-orm";
-import { jurisdictions } from "../../../db/schema";
+import { and, eq } from "drizzle-orm";
+import { jurisdictions, packetSignatures, reviews } from "../../../db/schema";
 import { can } from "../../auth/permissions";
 import { canonicalJson, sha256Hex } from "../../canonical-json";
 import { CHECK_STATUSES, type CheckResult, type CheckRun, type CheckStatus } from "../../compliance/types";
@@ -8,6 +8,7 @@ import { ServiceError } from "../errors";
 import { getProjectRecord } from "../projects/get-record";
 import { listRevisionReviews, type ReviewEntry } from "./history";
 import { toLicenceView, type LicenceView } from "./licence";
+import { currentCertificateRow } from "./certificate";
 import { independenceRefusal, licenceCoverageRefusal } from "./independence";
 import { findOwnLicence, findRevisionForReview, PACKET_SHEETS, snapshotIntact, snapshotRun } from "./shared";
 
@@ -53,6 +54,12 @@ export interface ReviewWorkspace {
   /** Why the actor's licence does not cover the project's jurisdiction, or null; it blocks approval only. */
   licenceCoverage: string | null;
   maySend: boolean;
+  /** The digital signature on the revision's current PDF, or null when it is not signed. */
+  signature: { subjectName: string; signedAt: string } | null;
+  /** The actor's stored signing certificate, when they review; approving then asks for its password. */
+  certificate: { subjectName: string; notAfter: string } | null;
+  /** True when the actor stamped this revision, its PDF is ready and not yet signed. */
+  maySign: boolean;
 }
 
 /** Everything the review page shows, read from the revision's snapshots rather than the live design. */
@@ -94,6 +101,17 @@ export function getReviewWorkspace(ctx: ServiceContext, revisionId: string, opti
   const decisionRefusal = reviewer && open ? independenceRefusal(ctx, row, project) : null;
   const ownLicence = reviewer && open ? findOwnLicence(ctx) : undefined;
   const licenceCoverage = ownLicence ? licenceCoverageRefusal(ctx, ownLicence, project) : null;
+  const signature = row.pdfSha256
+    ? (ctx.db
+        .select({ subjectName: packetSignatures.certificateSubject, signedAt: packetSignatures.signedAt })
+        .from(packetSignatures)
+        .where(and(eq(packetSignatures.signedPdfSha256, row.pdfSha256), eq(packetSignatures.orgId, ctx.orgId)))
+        .get() ?? null)
+    : null;
+  const certificateRow = reviewer && can(ctx.roles, "licence:edit-own") ? currentCertificateRow(ctx) : undefined;
+  const stampedByActor =
+    row.reviewState === "approved" &&
+    Boolean(ctx.db.select({ id: reviews.id }).from(reviews).where(and(eq(reviews.revisionId, row.id), eq(reviews.decision, "approved"), eq(reviews.reviewerId, ctx.user.id))).get());
   return {
     revision: {
       id: row.id,
@@ -130,6 +148,9 @@ export function getReviewWorkspace(ctx: ServiceContext, revisionId: string, opti
     mayDecide: reviewer && open && decisionRefusal === null,
     decisionRefusal,
     licenceCoverage,
+    signature,
+    certificate: certificateRow ? { subjectName: certificateRow.subjectName, notAfter: certificateRow.notAfter } : null,
+    maySign: reviewer && stampedByActor && row.state === "ready" && signature === null,
     maySend: can(ctx.roles, "review:send") && row.state === "ready" && (row.reviewState === "draft" || row.reviewState === "returned"),
   };
 }

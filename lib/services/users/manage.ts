@@ -55,7 +55,8 @@ export function setUserRoles(ctx: ServiceContext, input: unknown): void {
   ctx.db.transaction((tx) => {
     const bumped = tx
       .update(users)
-      .set({ version: sql`${users.version} + 1`, updatedAt: new Date().toISOString() })
+      // A new role set ends the user's sessions: they sign in again with exactly the roles they now hold.
+      .set({ version: sql`${users.version} + 1`, sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date().toISOString() })
       .where(and(eq(users.id, user.id), eq(users.version, version)))
       .run();
     if (bumped.changes === 0) throw conflict("This user was changed by someone else. Reload and try again.");
@@ -76,7 +77,7 @@ export function setUserActive(ctx: ServiceContext, input: unknown): void {
   ctx.db.transaction((tx) => {
     const updated = tx
       .update(users)
-      .set({ active, failedSignIns: 0, lockedUntil: null, version: sql`${users.version} + 1`, updatedAt: new Date().toISOString() })
+      .set({ active, failedSignIns: 0, lockedUntil: null, version: sql`${users.version} + 1`, sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date().toISOString() })
       .where(and(eq(users.id, user.id), eq(users.version, version)))
       .run();
     if (updated.changes === 0) throw conflict("This user was changed by someone else. Reload and try again.");

@@ -101,6 +101,24 @@ describe("the seeded hut packet is legible at print scale", () => {
     expect(thin.map((l) => `page ${l.page}: ${l.width} pt`).slice(0, 20)).toEqual([]);
   });
 
+  it("has a grounding and bonding sheet with the three-line detail of the 120 V inverter on the 120/240 V panel", () => {
+    const sheet = pdf.sheetPages.find((s) => s.sheet === "E-007")!;
+    expect(sheet.title).toBe("Grounding and bonding");
+    const text = runs.filter((r) => r.page >= sheet.firstPage && r.page < sheet.firstPage + sheet.pageCount).map((r) => r.str).join(" ");
+    // The hut's record names no electrodes, GEC or bond location: the sheet says which field clears each.
+    expect(text).toContain("NOT GIVEN: record field grounding.electrodes");
+    expect(text).toContain("NOT GIVEN: record field grounding.neutralGroundBondTag");
+    expect(text).toContain("THREE-LINE DETAIL: INV-1 (120 V) FEEDING P-1 (120/240 V)");
+    expect(text).toContain("L1–L2 JUMPER");
+    expect(text).toContain("EQUIPMENT GROUNDING CONDUCTORS");
+  });
+
+  it("keeps a blank AHJ approval stamp box on every sheet", () => {
+    const sheetPageNumbers = new Set(runs.map((r) => r.page).filter((p) => !datasheetPages.has(p)));
+    expect(sheetPageNumbers.size).toBeGreaterThan(10);
+    for (const p of sheetPageNumbers) expect(runs.some((r) => r.page === p && r.str.includes("AHJ APPROVAL STAMP")), `page ${p}`).toBe(true);
+  });
+
   it("flows long content onto added sheets rather than shrinking it", () => {
     const calcs = pdf.sheetPages.find((s) => s.sheet === "E-003")!;
     expect(calcs.pageCount).toBeGreaterThan(1);

@@ -148,10 +148,11 @@ describe("permit packet PDF, approved revision", () => {
     text = await readPdfText(pdf.bytes);
   });
 
-  it("carries the reviewer's name, licence and date and the AHJ footer on every page, and no review marking", () => {
+  it("carries the licensee, licence number, issuing region and date and the AHJ footer on every page, and no review marking", () => {
     text.pages.forEach((page, i) => {
       expect(page, `page ${i + 1}`).toContain("Ines Calloway-Marsh");
       expect(page, `page ${i + 1}`).toContain("PE-E 40417");
+      expect(page, `page ${i + 1}`).toContain("Quillon");
       expect(page, `page ${i + 1}`).toContain("2026-12-01");
       expect(page, `page ${i + 1}`).toContain(AHJ_FOOTER);
       expect(page, `page ${i + 1}`).not.toContain(REVIEW_MARKING);

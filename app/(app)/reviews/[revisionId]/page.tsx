@@ -4,6 +4,7 @@ import { RefreshWhile } from "@/components/reviews/refresh-while";
 import { RestampButton } from "@/components/reviews/restamp-button";
 import { ReviewDesk } from "@/components/reviews/review-desk";
 import { ReviewHistoryList } from "@/components/reviews/review-history";
+import { SignPacketForm } from "@/components/reviews/sign-packet-form";
 import { SendForReviewButton } from "@/components/reviews/send-for-review-button";
 import { Field, PageHeader, Refusal } from "@/components/ui/page-header";
 import { StateTag } from "@/components/ui/status-badge";
@@ -131,6 +132,14 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
         <Notice tone="ok" title={`Approved and stamped by ${approval.reviewerName} on ${approval.createdAt.slice(0, 10)}`}>
           Licence {approval.licence?.licenceNumber} ({approval.licence?.region}, {approval.licence?.discipline}). Bound to record SHA-256{" "}
           <span className="figure break-all">{approval.approvedSha256}</span>.
+          {ws.signature ? (
+            <span className="mt-1 block" data-testid="signature">
+              Digitally signed with {ws.signature.subjectName}&apos;s certificate on <span className="figure">{ws.signature.signedAt.slice(0, 16).replace("T", " ")}</span> UTC.
+            </span>
+          ) : rev.state === "ready" ? (
+            <span className="mt-1 block">Not digitally signed.</span>
+          ) : null}
+          {ws.maySign && ws.certificate ? <SignPacketForm revisionId={rev.id} subjectName={ws.certificate.subjectName} /> : null}
         </Notice>
       ) : null}
       {stampedRendering ? (
@@ -204,6 +213,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
               ...(ws.licenceCoverage ? [ws.licenceCoverage] : []),
               ...(rev.isDraft ? ["this revision is a draft (its cover lists what fails or is missing), so it can only be returned"] : []),
             ]}
+            certificate={ws.certificate}
             reviewerName={ctx.user.name}
             licence={
               ws.licence

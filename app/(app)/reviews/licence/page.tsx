@@ -1,10 +1,11 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { LicenceForm } from "@/components/reviews/licence-form";
+import { CertificateUpload } from "@/components/reviews/certificate-upload";
 import { StampUpload } from "@/components/reviews/stamp-upload";
 import { PageHeader, Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
-import { getOwnLicence, STAMP_MIN_PX } from "@/lib/services/reviews";
+import { getOwnCertificate, getOwnLicence, STAMP_MIN_PX } from "@/lib/services/reviews";
 
 export const metadata: Metadata = { title: "Your licence and stamp" };
 
@@ -19,6 +20,7 @@ export default async function LicencePage() {
   const { ctx, allowed } = await pageContext("licence:edit-own");
   if (!allowed) return <Refusal message="A licence record and stamp are kept by licensed reviewers." />;
   const licence = getOwnLicence(ctx);
+  const certificate = getOwnCertificate(ctx);
   const today = new Date().toISOString().slice(0, 10);
   const standing = licence ? STANDING_WORDS[licence.standing] : null;
 
@@ -79,6 +81,30 @@ export default async function LicencePage() {
               <p className="mb-4 text-sm text-ink-soft">{licence ? "No stamp image on file yet." : "Record your licence first; the stamp belongs to it."}</p>
             )}
             <StampUpload hasStamp={Boolean(licence?.stamp)} disabled={!licence} minPx={STAMP_MIN_PX} />
+          </div>
+        </section>
+        <section aria-labelledby="certificate-heading" className="lg:col-start-2">
+          <h2 id="certificate-heading" className="mb-3 text-base font-semibold tracking-tight">
+            Signing certificate
+          </h2>
+          <div className="sheet px-5 py-5">
+            {certificate ? (
+              <dl className="mb-4 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm" data-testid="certificate-on-file">
+                <dt className="text-ink-soft">Issued to</dt>
+                <dd>{certificate.subjectName}</dd>
+                <dt className="text-ink-soft">Issued by</dt>
+                <dd>{certificate.issuerName}</dd>
+                <dt className="text-ink-soft">Valid until</dt>
+                <dd className="figure">{certificate.notAfter.slice(0, 10)}</dd>
+                <dt className="text-ink-soft">SHA-256</dt>
+                <dd className="figure break-all text-xs">{certificate.fingerprintSha256}</dd>
+              </dl>
+            ) : (
+              <p className="mb-4 text-sm text-ink-soft">
+                No certificate on file. With one, each packet you approve is digitally signed, so any PDF reader shows who sealed it and that nothing changed since.
+              </p>
+            )}
+            <CertificateUpload hasCertificate={Boolean(certificate)} />
           </div>
         </section>
       </div>
