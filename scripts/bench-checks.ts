@@ -21,6 +21,7 @@ function median(xs: number[]): number {
 
 function main(): void {
   const sizes = [20, 200, 2000];
+  const perSize = new Map<number, { med: number; cpu: number }>();
   const rows: string[][] = [["circuits", "results", "runs", "median ms", "µs / circuit", "cpu ms / run", "parse ms"]];
   for (const n of sizes) {
     const parsed = parseProjectFile(generatedProject(n));
@@ -46,6 +47,7 @@ function main(): void {
       parseTimes.push(performance.now() - t0);
     }
     const med = median(times);
+    perSize.set(n, { med, cpu: cpuMsPerRun });
     rows.push([String(record.circuits.length), String(results), String(runs), med.toFixed(2), ((med * 1000) / record.circuits.length).toFixed(1), cpuMsPerRun.toFixed(2), median(parseTimes).toFixed(2)]);
   }
   const widths = rows[0]!.map((_, c) => Math.max(...rows.map((r) => r[c]!.length)));
@@ -53,6 +55,12 @@ function main(): void {
     process.stdout.write(r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]!) : cell.padStart(widths[c]!))).join("  ") + "\n");
     if (i === 0) process.stdout.write(widths.map((w) => "-".repeat(w)).join("  ") + "\n");
   }
+  const small = perSize.get(200)!;
+  const large = perSize.get(2000)!;
+  process.stdout.write(
+    `\n2,000 / 200 circuits: ${(large.med / small.med).toFixed(1)}× wall, ${(large.cpu / small.cpu).toFixed(1)}× CPU (aim ≤ 11×); ` +
+      `200 circuits ${small.med.toFixed(1)} ms (aim ≤ 4 ms), 2,000 circuits ${large.med.toFixed(1)} ms (aim ≤ 40 ms), median wall.\n`,
+  );
   const [load1] = loadavg();
   process.stdout.write(
     `\nmedian wall time of repeated full runChecks calls (after warm-up); cpu = this process's CPU time per run (less sensitive to a busy machine);\nparse = zod validation of the same project. Load average ${load1!.toFixed(1)} on ${cpus().length} cores.\n`,

@@ -6,7 +6,6 @@
  *
  * Drawing units are PDF points at 1:1; renderers scale to fit.
  */
-import ELK from "elkjs/lib/elk.bundled.js";
 import type { ElkExtendedEdge, ElkNode } from "elkjs/lib/elk-api";
 import type { Circuit, Equipment, ProjectRecord, PvArray } from "../schemas/project-record";
 import {
@@ -451,6 +450,8 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
     })),
   };
 
+  // Loaded on first use: ELK is most of a megabyte of script, and the editor page should not wait for it to be interactive.
+  const { default: ELK } = await import("elkjs/lib/elk.bundled.js");
   const elk = new ELK();
   let result: ElkNode = { ...graph, width: 0, height: 0 };
   if (flowNodes.length > 0) {
