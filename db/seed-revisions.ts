@@ -85,6 +85,10 @@ export async function seedDemoRevisions(db: Db, orgId: string): Promise<void> {
             expiresOn: licence.expiresOn,
           },
           approvedSha256: recordSha256,
+          // The reviewer's disposition of each attest item, as the review page asks for before approving.
+          dispositions: run.results
+            .filter((r) => r.status === "attest")
+            .map((r) => ({ resultId: r.id, title: r.title, subject: r.subject ?? null, disposition: "accepted" as const, note: "Confirmed with the installer's site photos before stamping." })),
           createdAt: "2026-10-30T10:05:00.000Z",
         })
         .run();

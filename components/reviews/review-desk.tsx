@@ -6,9 +6,10 @@ import { useEffect, useId, useMemo, useRef, useState, useTransition } from "reac
 import { decideReviewAction } from "@/app/(app)/reviews/actions";
 import { statusWord } from "@/components/ui/status-badge";
 import type { CheckStatus } from "@/lib/compliance/types";
-import { GENERAL_NOTES_MAX_CHARS, NOTE_MAX_CHARS, type NoteTargetKind } from "@/lib/schemas/review";
+import { GENERAL_NOTES_MAX_CHARS, type AttestDisposition, type NoteTargetKind } from "@/lib/schemas/review";
 import type { ReviewCheck } from "@/lib/services/reviews/view";
 import { CheckResultCard } from "./check-result-card";
+import { DispositionControl, NoteBox, type DispositionDraft } from "./desk-fields";
 
 /** Statuses a reviewer reads first are open; passes and not-applicable results wait behind a summary. */
 const OPEN_GROUPS: readonly CheckStatus[] = ["fail", "needs-input", "warning", "attest"];
@@ -46,6 +47,7 @@ function draftKey(revisionId: string) {
 interface Draft {
   notes: Record<string, string>;
   general: string;
+  dispositions?: Record<string, DispositionDraft>;
 }
 
 function readDraft(revisionId: string): Draft | null {
@@ -53,54 +55,10 @@ function readDraft(revisionId: string): Draft | null {
     const raw = window.localStorage.getItem(draftKey(revisionId));
     if (!raw) return null;
     const parsed = JSON.parse(raw) as Draft;
-    return parsed && typeof parsed === "object" ? { notes: parsed.notes ?? {}, general: parsed.general ?? "" } : null;
+    return parsed && typeof parsed === "object" ? { notes: parsed.notes ?? {}, general: parsed.general ?? "", dispositions: parsed.dispositions ?? {} } : null;
   } catch {
     return null;
   }
-}
-
-function NoteBox({ label, value, onChange, disabled, compact }: { label: string; value: string; onChange: (v: string) => void; disabled?: boolean; compact?: boolean }) {
-  const id = useId();
-  const [open, setOpen] = useState(value.length > 0);
-  const ref = useRef<HTMLTextAreaElement>(null);
-  useEffect(() => {
-    if (value) setOpen(true);
-  }, [value]);
-  if (!open) {
-    return (
-      <button
-        type="button"
-        className={`btn-quiet text-sm ${compact ? "" : "mt-3"}`}
-        disabled={disabled}
-        onClick={() => {
-          setOpen(true);
-          requestAnimationFrame(() => ref.current?.focus());
-        }}
-        aria-label={`Add a note on ${label}`}
-      >
-        Add note
-      </button>
-    );
-  }
-  return (
-    <div className={compact ? "mt-2 basis-full" : "mt-3"}>
-      <label htmlFor={id} className="field-label mb-1 block">
-        Note on {label}
-      </label>
-      <textarea
-        id={id}
-        ref={ref}
-        className="input min-h-20 w-full text-sm leading-relaxed"
-        value={value}
-        maxLength={NOTE_MAX_CHARS}
-        disabled={disabled}
-        onChange={(e) => onChange(e.target.value)}
-        onBlur={() => {
-          if (!value.trim()) setOpen(false);
-        }}
-      />
-    </div>
-  );
 }
 
 /**
@@ -114,6 +72,7 @@ export function ReviewDesk(props: ReviewDeskProps) {
   const router = useRouter();
   const [notes, setNotes] = useState<Record<string, string>>({});
   const [general, setGeneral] = useState("");
+  const [dispositions, setDispositions] = useState<Record<string, DispositionDraft>>({});
   const [loaded, setLoaded] = useState(false);
   const [pending, startTransition] = useTransition();
   const [outcome, setOutcome] = useState<{ ok: boolean; text: string; issues?: { path: string; message: string }[] } | null>(null);
@@ -130,6 +89,7 @@ export function ReviewDesk(props: ReviewDeskProps) {
     if (draft) {
       setNotes(draft.notes);
       setGeneral(draft.general);
+      setDispositions(draft.dispositions ?? {});
     }
     setLoaded(true);
   }, [mayDecide, revisionId]);
@@ -137,13 +97,13 @@ export function ReviewDesk(props: ReviewDeskProps) {
   useEffect(() => {
     if (!loaded) return;
     try {
-      const empty = !general.trim() && Object.values(notes).every((v) => !v.trim());
+      const empty = !general.trim() && Object.values(notes).every((v) => !v.trim()) && Object.values(dispositions).every((d) => !d.disposition);
       if (empty) window.localStorage.removeItem(draftKey(revisionId));
-      else window.localStorage.setItem(draftKey(revisionId), JSON.stringify({ notes, general }));
+      else window.localStorage.setItem(draftKey(revisionId), JSON.stringify({ notes, general, dispositions }));
     } catch {
       // Private windows may refuse storage; the notes still go with the decision.
     }
-  }, [general, loaded, notes, revisionId]);
+  }, [dispositions, general, loaded, notes, revisionId]);
 
   useEffect(() => {
     const dialog = dialogRef.current;
@@ -166,7 +126,23 @@ export function ReviewDesk(props: ReviewDeskProps) {
   const labelOf = (r: ReviewCheck) => (r.subject && !r.title.includes(r.subject) ? `${r.title} (${r.subject})` : r.title);
   const canReturn = written.length > 0 || general.trim().length > 0;
   const licence = props.licence;
-  const blockers = [...(licence ? licence.blockers : ["record your licence and stamp image"]), ...(props.approveRefusals ?? [])];
+  const attestResults = props.groups.find((g) => g.status === "attest")?.results ?? [];
+  const needsInput = props.groups.find((g) => g.status === "needs-input")?.results.length ?? 0;
+  const given = Object.entries(dispositions)
+    .filter(([id, d]) => d.disposition && attestResults.some((r) => r.id === id))
+    .map(([resultId, d]) => ({ resultId, disposition: d.disposition as AttestDisposition, note: d.note.trim() }));
+  const undecided = attestResults.filter((r) => {
+    const d = dispositions[r.id];
+    return !d || !d.disposition || (d.disposition === "accepted" && !d.note.trim());
+  }).length;
+  const returnedItems = given.filter((d) => d.disposition === "returned").length;
+  const blockers = [
+    ...(licence ? licence.blockers : ["record your licence and stamp image"]),
+    ...(props.approveRefusals ?? []),
+    ...(needsInput ? [`${needsInput} result${needsInput === 1 ? " needs" : "s need"} input; the record is not complete enough to stamp`] : []),
+    ...(undecided ? [`give each attest item a disposition (${undecided} of ${attestResults.length} without one)`] : []),
+    ...(returnedItems ? [`${returnedItems} attest item${returnedItems === 1 ? " is" : "s are"} returned; return the revision instead`] : []),
+  ];
   const approveBlocked = !licence || blockers.length > 0;
 
   function decide(decision: "returned" | "approved") {
@@ -177,6 +153,7 @@ export function ReviewDesk(props: ReviewDeskProps) {
         decision,
         generalNotes: general,
         notes: written,
+        dispositions: given,
         confirmStamp: decision === "approved" ? confirmed : undefined,
         ...(decision === "approved" && props.certificate ? { certificatePassword } : {}),
       });
@@ -191,6 +168,7 @@ export function ReviewDesk(props: ReviewDeskProps) {
         }
         setNotes({});
         setGeneral("");
+        setDispositions({});
         setOutcome({ ok: true, text: result.data?.message ?? "Decision recorded." });
         router.refresh();
       } else {
@@ -215,6 +193,14 @@ export function ReviewDesk(props: ReviewDeskProps) {
             <div className="sheet">
               {group.results.map((r) => (
                 <CheckResultCard key={r.id} result={r}>
+                  {mayDecide && r.status === "attest" ? (
+                    <DispositionControl
+                      label={labelOf(r)}
+                      value={dispositions[r.id] ?? { disposition: "", note: "" }}
+                      onChange={(v) => setDispositions((prev) => ({ ...prev, [r.id]: v }))}
+                      disabled={pending}
+                    />
+                  ) : null}
                   {mayDecide ? <NoteBox label={labelOf(r)} value={notes[keyOf("check", r.id)] ?? ""} onChange={(v) => setNote(keyOf("check", r.id), v)} disabled={pending} /> : null}
                 </CheckResultCard>
               ))}

@@ -3,10 +3,10 @@
 import { useRouter } from "next/navigation";
 import { startTransition, useActionState, useEffect, useState } from "react";
 import { recordEventAction } from "@/app/(app)/submissions/actions";
-import { EVENT_KINDS, EVENT_LABELS, INSPECTION_EVENT_KINDS, INSPECTION_KINDS, INSPECTION_LABELS, type EventKind } from "@/lib/schemas/submission";
+import { EVENT_LABELS, INSPECTION_EVENT_KINDS, INSPECTION_KINDS, INSPECTION_LABELS, type EventKind } from "@/lib/schemas/submission";
 import { FormField } from "./field";
 
-/** The usual next step after each state, offered first; any kind may still be chosen. */
+/** The usual next step after each state, offered first when the event rules allow it. */
 const USUAL_NEXT: Record<EventKind, EventKind> = {
   submitted: "in-plan-review",
   "in-plan-review": "corrections-requested",
@@ -20,9 +20,13 @@ const USUAL_NEXT: Record<EventKind, EventKind> = {
   "inspection-passed": "inspection-scheduled",
   "inspection-failed": "inspection-scheduled",
   finaled: "finaled",
-  expired: "resubmitted",
+  expired: "expired",
   cancelled: "cancelled",
 };
+
+function firstChoice(status: EventKind, allowed: readonly EventKind[]): EventKind {
+  return allowed.includes(USUAL_NEXT[status]) ? USUAL_NEXT[status] : (allowed[0] ?? USUAL_NEXT[status]);
+}
 
 interface Values {
   kind: EventKind;
@@ -32,18 +36,38 @@ interface Values {
   expiresOn: string;
   amountUsd: string;
   inspectionKind: string;
+  revisionId: string;
 }
 
-/** Records the next event of a submission; the fields each kind needs appear with it, and refusals show beside them. */
-export function EventForm({ submissionId, version, status, today }: { submissionId: string; version: number; status: EventKind; today: string }) {
+/**
+ * Records the next event of a submission. It offers only the kinds the event
+ * rules allow after where the application stands; the fields each kind needs
+ * appear with it, and refusals show beside them.
+ */
+export function EventForm({
+  submissionId,
+  version,
+  status,
+  today,
+  allowedNext,
+  resubmittable,
+}: {
+  submissionId: string;
+  version: number;
+  status: EventKind;
+  today: string;
+  allowedNext: EventKind[];
+  resubmittable: { id: string; number: number }[];
+}) {
   const router = useRouter();
   const [state, action, pending] = useActionState(recordEventAction, null);
-  const blank = (kind: EventKind): Values => ({ kind, occurredOn: today, note: "", permitNumber: "", expiresOn: "", amountUsd: "", inspectionKind: "" });
-  const [values, setValues] = useState<Values>(blank(USUAL_NEXT[status]));
+  const blank = (kind: EventKind): Values => ({ kind, occurredOn: today, note: "", permitNumber: "", expiresOn: "", amountUsd: "", inspectionKind: "", revisionId: resubmittable[0]?.id ?? "" });
+  const [values, setValues] = useState<Values>(blank(firstChoice(status, allowedNext)));
 
   useEffect(() => {
     if (state?.ok) {
       setValues(blank(USUAL_NEXT[state.data?.status ?? status]));
+      // The page reloads with the kinds now allowed; until then the usual next one is shown.
       router.refresh();
     }
     // Only a new result resets the form.
@@ -74,7 +98,7 @@ export function EventForm({ submissionId, version, status, today }: { submission
       <FormField id="event-kind" label="Event" issue={issueFor("kind")}>
         {(d, bad) => (
           <select id="event-kind" {...bind("kind")} className="input w-full" aria-describedby={d} aria-invalid={bad || undefined}>
-            {EVENT_KINDS.map((k) => (
+            {(allowedNext.includes(kind) ? allowedNext : [kind, ...allowedNext]).map((k) => (
               <option key={k} value={k}>
                 {EVENT_LABELS[k]}
               </option>
@@ -113,6 +137,20 @@ export function EventForm({ submissionId, version, status, today }: { submission
             {(d, bad) => <input id="event-expiry" type="date" {...bind("expiresOn")} className="input w-full" aria-describedby={d} aria-invalid={bad || undefined} />}
           </FormField>
         </>
+      ) : null}
+      {kind === "resubmitted" ? (
+        <FormField id="event-revision" label="Revision sent" hint="The approved revision that answers the corrections." issue={issueFor("revisionId")}>
+          {(d, bad) => (
+            <select id="event-revision" {...bind("revisionId")} className="input w-full" required aria-describedby={d} aria-invalid={bad || undefined}>
+              {resubmittable.length === 0 ? <option value="">No approved revision waits to be sent</option> : null}
+              {resubmittable.map((r) => (
+                <option key={r.id} value={r.id}>
+                  Rev {r.number}
+                </option>
+              ))}
+            </select>
+          )}
+        </FormField>
       ) : null}
       {kind === "fee-paid" ? (
         <FormField id="event-amount" label="Amount (USD)" hint="As on the receipt." issue={issueFor("amountUsd")}>

@@ -3,18 +3,9 @@ import { createdAt, id, updatedAt, version } from "./columns";
 import { jurisdictions } from "./jurisdictions";
 import { organisations } from "./organisations";
 import { users } from "./users";
+import { PROJECT_STATUSES } from "../../lib/schemas/project-status";
 
-export const PROJECT_STATUSES = [
-  "design",
-  "in-review",
-  "returned",
-  "approved",
-  "submitted",
-  "permitted",
-  "installed",
-  "closed",
-] as const;
-export type ProjectStatus = (typeof PROJECT_STATUSES)[number];
+export { PROJECT_STATUSES, type ProjectStatus } from "../../lib/schemas/project-status";
 
 /** A project and its site. Site columns mirror `siteSchema` of the project record. */
 export const projects = sqliteTable(

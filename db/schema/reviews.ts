@@ -12,6 +12,15 @@ export interface LicenceSnapshot {
   expiresOn: string | null;
 }
 
+/** The reviewer's disposition of one attest item, as printed in the review record. */
+export interface AttestDispositionRecord {
+  resultId: string;
+  title: string;
+  subject: string | null;
+  disposition: "accepted" | "returned";
+  note: string;
+}
+
 export const reviews = sqliteTable(
   "reviews",
   {
@@ -30,6 +39,8 @@ export const reviews = sqliteTable(
     licenceSnapshot: text("licence_snapshot", { mode: "json" }).$type<LicenceSnapshot>(),
     /** The revision's record hash the approval is bound to. */
     approvedSha256: text("approved_sha256"),
+    /** One per attest item of the revision: accepted with a note, or returned. */
+    dispositions: text("dispositions", { mode: "json" }).$type<AttestDispositionRecord[]>().notNull().default([]),
     createdAt: createdAt(),
   },
   (t) => [index("reviews_revision_idx").on(t.revisionId)],

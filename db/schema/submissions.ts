@@ -8,7 +8,9 @@ import { projects } from "./projects";
 import { users } from "./users";
 
 export const SUBMISSION_EVENT_KINDS = EVENT_KINDS;
-export type SubmissionEventKind = (typeof SUBMISSION_EVENT_KINDS)[number];
+/** A stored row is an event of the application, or the void of one recorded in error (data: voidsEventId, reason). */
+export const STORED_EVENT_KINDS = [...EVENT_KINDS, "voided"] as const;
+export type StoredEventKind = (typeof STORED_EVENT_KINDS)[number];
 
 export const submissions = sqliteTable(
   "submissions",
@@ -28,7 +30,7 @@ export const submissions = sqliteTable(
       .references(() => packetRevisions.id),
     method: text("method", { enum: SUBMISSION_METHODS }).notNull(),
     referenceNumber: text("reference_number").notNull().default(""),
-    /** Kind of the latest event, kept for the queue; the events are the record. */
+    /** Where the application stands (the latest event that is not voided nor a fee), kept for the queue; the events are the record. */
     status: text("status", { enum: SUBMISSION_EVENT_KINDS }).notNull().default("submitted"),
     createdBy: text("created_by").references(() => users.id),
     createdAt: createdAt(),
@@ -42,7 +44,7 @@ export const submissions = sqliteTable(
 );
 export type Submission = typeof submissions.$inferSelect;
 
-/** Append-only: events are never updated or deleted. */
+/** Append-only: events are never updated or deleted; a mistaken one is voided by a later row. */
 export const submissionEvents = sqliteTable(
   "submission_events",
   {
@@ -53,7 +55,7 @@ export const submissionEvents = sqliteTable(
     submissionId: text("submission_id")
       .notNull()
       .references(() => submissions.id),
-    kind: text("kind", { enum: SUBMISSION_EVENT_KINDS }).notNull(),
+    kind: text("kind", { enum: STORED_EVENT_KINDS }).notNull(),
     occurredOn: text("occurred_on").notNull(),
     userId: text("user_id").references(() => users.id),
     note: text("note").notNull().default(""),

@@ -149,8 +149,18 @@ export class Trace {
 
   /** Records a value read but not required (it may be absent). */
   read<T extends number | string | boolean>(path: string, label: string, value: T | undefined | null, unit = ""): T | undefined {
-    this.add({ path, label, value: value ?? null, unit });
+    this.add({ path, label, value: value ?? null, unit, ...(value === undefined || value === null ? { optional: true } : {}) });
     return value ?? undefined;
+  }
+
+  /** Reads an optional value, falling back to a stated default; the result says the default was used. */
+  readOr<T extends number | string | boolean>(path: string, label: string, value: T | undefined | null, fallback: T, unit = ""): T {
+    if (value === undefined || value === null) {
+      this.add({ path, label, value: null, unit, optional: true, defaultValue: fallback });
+      return fallback;
+    }
+    this.add({ path, label, value, unit });
+    return value;
   }
 
   /** Takes over another computation's inputs (shared, not copied: results are read-only) and missing fields. */

@@ -21,6 +21,10 @@ export interface CheckInput {
   label: string;
   value: number | string | boolean | null;
   unit: string;
+  /** The value the computation used because none was given (a default, never a pass for a required field). */
+  defaultValue?: number | string | boolean;
+  /** The field may be left empty; an empty one is not missing. */
+  optional?: boolean;
 }
 
 /** One record field to set, as the remedy's one-click form applies it. */

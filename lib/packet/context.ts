@@ -1,5 +1,5 @@
 import type { ProjectRecord } from "../schemas/project-record";
-import { dash, formatNumber, isoDate } from "./format";
+import { dash, datedTime, formatNumber, isoDate } from "./format";
 import { SHEET_PLAN, type PacketDatasheet } from "./plan";
 import { KIND_LABEL, LOCATION_LABEL, OCCUPANCY_LABEL, SYSTEM_KIND_LABEL, batteryKWh, describe, equipmentByTag } from "./sheets/shared";
 import type { TemplateContext } from "./templates";
@@ -98,7 +98,7 @@ export function templateContext(input: PacketInput, sheet: { code: string; title
       voltageDropLimitPct: formatNumber(record.jurisdiction.voltageDropLimitPct ?? 3),
       requiredDocuments: record.jurisdiction.requiredDocuments,
     },
-    revision: { number: String(revision.number), date: isoDate(revision.createdAt), createdAt: revision.createdAt },
+    revision: { number: String(revision.number), date: isoDate(revision.createdAt), createdAt: datedTime(revision.createdAt) },
     revisions: (input.revisionHistory ?? [{ number: revision.number, date: revision.createdAt, change: "This issue", by: revision.preparedBy }]).map((r) => ({
       number: String(r.number),
       date: isoDate(r.date),
@@ -121,9 +121,9 @@ export function templateContext(input: PacketInput, sheet: { code: string; title
     },
     site: {
       designLowTempC: dash(record.site.designLowTempC),
-      designLowTempSource: record.site.designLowTempSource || "not given",
+      designLowTempSource: record.site.designLowTempSource || "source not given",
       designHighTempC: dash(record.site.designHighTempC),
-      designHighTempSource: record.site.designHighTempSource || "not given",
+      designHighTempSource: record.site.designHighTempSource || "source not given",
       sunHoursPerDay: dash(record.site.sunHoursPerDay),
     },
     counts: {

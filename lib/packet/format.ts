@@ -36,12 +36,34 @@ export function formatValue(value: number | string | boolean | null, unit: strin
   return unit ? `${text} ${unit}` : text;
 }
 
+/**
+ * A value as the packet prints it. An input the engine filled with a default
+ * says so ("default: 30 °C (no value given)"); an optional field left empty
+ * reads "not given"; only a required field without a value reads "missing".
+ */
 export function formatCheckValue(v: CheckValue | CheckInput): string {
+  if (v.value === null && "defaultValue" in v && v.defaultValue !== undefined) return `default: ${formatValue(v.defaultValue, v.unit)} (no value given)`;
+  if (v.value === null && "optional" in v && v.optional) return "not given";
   return formatValue(v.value, v.unit);
 }
 
 export function isoDate(iso: string): string {
   return iso.slice(0, 10);
+}
+
+const MONTHS = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
+
+/**
+ * A timestamp as a reader of the printed set reads it: "2 December 2026,
+ * 14:20 UTC". The packet is rendered without a clock or a locale, so the zone
+ * is stated rather than guessed.
+ */
+export function datedTime(iso: string): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return iso;
+  const hh = String(d.getUTCHours()).padStart(2, "0");
+  const mm = String(d.getUTCMinutes()).padStart(2, "0");
+  return `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}, ${hh}:${mm} UTC`;
 }
 
 export function dash(v: string | number | undefined | null, unit = ""): string {

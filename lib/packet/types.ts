@@ -46,6 +46,8 @@ export interface PacketApproval {
   stampImage?: { bytes: Uint8Array; type: "png" | "jpeg" };
   /** The approval is bound to this hash of the revision's record snapshot. */
   recordSha256: string;
+  /** The reviewer's disposition of each attest item, printed in the review record. */
+  dispositions?: { item: string; disposition: "accepted" | "returned"; note: string }[];
 }
 
 export interface ReviewNote {

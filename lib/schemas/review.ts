@@ -30,6 +30,25 @@ export const reviewNoteInputSchema = z.object({
 });
 export type ReviewNoteInput = z.infer<typeof reviewNoteInputSchema>;
 
+/**
+ * What the reviewer decides on each attest item (a point a person confirms,
+ * which the checks cannot): accepted, with a note saying on what basis, or
+ * returned to the designer. An approval needs every attest item accepted.
+ */
+export const ATTEST_DISPOSITIONS = ["accepted", "returned"] as const;
+export type AttestDisposition = (typeof ATTEST_DISPOSITIONS)[number];
+
+export const dispositionInputSchema = z
+  .object({
+    resultId: z.string({ error: "is required" }).trim().min(1, { message: "is required" }).max(160),
+    disposition: z.enum(ATTEST_DISPOSITIONS, { error: "must be accepted or returned" }),
+    note: z.string().trim().max(NOTE_MAX_CHARS, { message: `must be at most ${NOTE_MAX_CHARS} characters` }).default(""),
+  })
+  .superRefine((d, ctx) => {
+    if (d.disposition === "accepted" && !d.note) ctx.addIssue({ code: "custom", path: ["note"], message: "is required: say on what basis the item is accepted" });
+  });
+export type DispositionInput = z.infer<typeof dispositionInputSchema>;
+
 export const reviewDecisionSchema = z.object({
   revisionId: z.string({ error: "is required" }).trim().min(1, { message: "is required" }).max(64),
   decision: z.enum(REVIEW_DECISIONS, { error: "must be returned or approved" }),
@@ -39,6 +58,7 @@ export const reviewDecisionSchema = z.object({
     .max(GENERAL_NOTES_MAX_CHARS, { message: `must be at most ${GENERAL_NOTES_MAX_CHARS} characters` })
     .default(""),
   notes: z.array(reviewNoteInputSchema).max(NOTES_MAX_COUNT, { message: `must be at most ${NOTES_MAX_COUNT} notes` }).default([]),
+  dispositions: z.array(dispositionInputSchema).max(NOTES_MAX_COUNT, { message: `must be at most ${NOTES_MAX_COUNT} dispositions` }).default([]),
   /** The reviewer confirms the stamp's meaning; an approval without it is refused. */
   confirmStamp: z.boolean().optional(),
 });

@@ -122,6 +122,8 @@ export const recordEventSchema = z
         .optional(),
     ),
     inspectionKind: z.preprocess(emptyToUndefined, z.enum(INSPECTION_KINDS, { error: "must be rough, final or fire-final" }).optional()),
+    /** The approved revision sent again with a resubmission; it must differ from every revision already before the AHJ. */
+    revisionId: z.preprocess(emptyToUndefined, z.string().trim().max(64).optional()),
     /** The version of the submission the form read; a stale form is refused. */
     version: z.coerce.number().int().min(1).optional(),
   })
@@ -131,8 +133,24 @@ export const recordEventSchema = z
       ctx.addIssue({ code: "custom", path: ["expiresOn"], message: "must be after the date the permit was issued" });
     }
     if (v.kind === "fee-paid" && v.amountUsd === undefined) ctx.addIssue({ code: "custom", path: ["amountUsd"], message: "is required when a fee is paid" });
+    if (v.kind === "resubmitted" && !v.revisionId) ctx.addIssue({ code: "custom", path: ["revisionId"], message: "is required: the approved revision sent again" });
     if (INSPECTION_EVENT_KINDS.includes(v.kind) && !v.inspectionKind) {
       ctx.addIssue({ code: "custom", path: ["inspectionKind"], message: "is required: rough, final or fire-final" });
     }
   });
 export type RecordEventInput = z.input<typeof recordEventSchema>;
+
+export const VOID_REASON_MIN_CHARS = 5;
+
+/** Voids an event recorded in error: the void is a new entry with its reason; nothing is deleted. */
+export const voidEventSchema = z.object({
+  submissionId: z.string({ error: "is required" }).trim().min(1, { message: "is required" }).max(64),
+  eventId: z.string({ error: "is required" }).trim().min(1, { message: "is required" }).max(64),
+  reason: z
+    .string({ error: "is required" })
+    .trim()
+    .min(VOID_REASON_MIN_CHARS, { message: "is required: say why the entry is wrong" })
+    .max(NOTE_MAX_CHARS, { message: `must be at most ${NOTE_MAX_CHARS} characters` }),
+  version: z.coerce.number().int().min(1).optional(),
+});
+export type VoidEventInput = z.input<typeof voidEventSchema>;

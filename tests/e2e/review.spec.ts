@@ -54,6 +54,9 @@ test("the reviewer returns the seeded revision with a note on a check; the desig
   // The designer reads the review; deciding is not theirs.
   await expect(designer.getByRole("button", { name: "Approve and stamp" })).toHaveCount(0);
   await designer.getByRole("button", { name: /^Send again unchanged/ }).click();
+  // The hut's checks fail, so sending needs a message saying why it goes as it is.
+  await expect(designer.getByRole("button", { name: "Send it again" })).toBeDisabled();
+  await designer.getByLabel("Message to the reviewer").fill("The terminal limit is already shown on E-004, row C-2; no change to the design.");
   await designer.getByRole("button", { name: "Send it again" }).click();
   await expect(designer.getByRole("status").filter({ hasText: "sent for review" })).toBeVisible({ timeout: 30_000 });
   await expect(designer.getByText("Awaiting review", { exact: true })).toBeVisible({ timeout: 30_000 });

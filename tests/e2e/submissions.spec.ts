@@ -37,6 +37,21 @@ test("the office opens the seeded submission, schedules the final inspection and
   await expect(entry).toContainText("Recorded by Theo Brannigan");
   // The earlier entries stand as they were.
   await expect(page.getByRole("list", { name: "Timeline" })).toContainText("Permit E26-01893");
+
+  // The form offers only what may follow a permit: no second "Submitted", no plan-review steps.
+  const kinds = await page.getByRole("form", { name: "Record an event" }).getByLabel("Event").locator("option").evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value));
+  expect(kinds).toContain("inspection-passed");
+  expect(kinds).not.toContain("submitted");
+  expect(kinds).not.toContain("corrections-requested");
+
+  // An entry recorded in error is voided with a reason: it stays in the log, struck, and a void entry follows.
+  await entry.getByRole("button", { name: /^Void / }).click();
+  const voidForm = entry.getByRole("form", { name: /^Void / });
+  await voidForm.getByLabel("Why is this entry wrong?").fill("Booked on the wrong permit; the portal cancelled it.");
+  await voidForm.getByRole("button", { name: "Void entry" }).click();
+  await expect(entry).toContainText("Booked on the wrong permit");
+  await expect(entry).toHaveAttribute("data-voided", "true");
+  await expect(page.getByRole("list", { name: "Timeline" })).toContainText("Voided: Inspection scheduled");
 });
 
 test("a designer reads the seeded submission but may not record an event on it", async ({ page }) => {

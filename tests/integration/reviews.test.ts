@@ -124,6 +124,15 @@ async function completeRevision(name: string): Promise<{ projectId: string; revi
   return { projectId: id, revisionId };
 }
 
+/** A disposition for every attest item of the revision, accepted with a note, as a reviewer gives them before approving. */
+function acceptAll(id: string) {
+  const run = revisionRow(id).resultsSnapshot as { results: { id: string; status: string }[] };
+  return run.results.filter((r) => r.status === "attest").map((r) => ({ resultId: r.id, disposition: "accepted", note: `Seen on the site photos (${r.id}).` }));
+}
+
+/** What a designer says when sending a set whose checks fail. */
+const HUT_MESSAGE = "The failing breaker is being replaced; please review the rest of the set.";
+
 let projectId = "";
 let revisionId = "";
 
@@ -141,7 +150,9 @@ describe("sending a revision for review", () => {
   });
 
   it("puts the revision and the project in review and e-mails every reviewer through the outbox", async () => {
-    const sent = await sendForReview(designer, revisionId, { deliver: noDelivery });
+    // The hut has failing checks, so sending it needs a message.
+    expect(await codeOf(() => sendForReview(designer, revisionId, { deliver: noDelivery }))).toBe("invalid");
+    const sent = await sendForReview(designer, revisionId, { deliver: noDelivery, message: HUT_MESSAGE });
     expect(sent.reviewState).toBe("in-review");
     expect(revisionRow(revisionId).reviewState).toBe("in-review");
     expect(db.select().from(projects).where(eq(projects.id, projectId)).get()!.status).toBe("in-review");
@@ -158,7 +169,7 @@ describe("sending a revision for review", () => {
   });
 
   it("refuses to send a revision already waiting", async () => {
-    expect(await codeOf(() => sendForReview(designer, revisionId, { deliver: noDelivery }))).toBe("conflict");
+    expect(await codeOf(() => sendForReview(designer, revisionId, { deliver: noDelivery, message: HUT_MESSAGE }))).toBe("conflict");
   });
 });
 
@@ -223,7 +234,7 @@ describe("deciding", () => {
   });
 
   it("lets the designer send a returned revision again unchanged", async () => {
-    await sendForReview(designer, revisionId, { deliver: noDelivery });
+    await sendForReview(designer, revisionId, { deliver: noDelivery, message: HUT_MESSAGE });
     expect(revisionRow(revisionId).reviewState).toBe("in-review");
     expect(mailTo(reviewer.user.email, "sent-for-review")).toHaveLength(2);
   });
@@ -283,6 +294,29 @@ describe("approving", () => {
     expect(revisionRow(approvable).reviewState).toBe("in-review");
   });
 
+  it("refuses an approval until every attest item has a disposition: accepted with a note, not returned", async () => {
+    const all = acceptAll(approvable);
+    expect(all.length, "the stall's checks carry attest items").toBeGreaterThan(0);
+    const attempt = (dispositions: unknown[]) =>
+      decideReview(reviewer, { revisionId: approvable, decision: "approved", confirmStamp: true, dispositions }, { deliver: noDelivery, dispatch: render, now: NOW }).then(
+        () => {
+          throw new Error("expected a refusal");
+        },
+        (e: unknown) => e as ServiceError,
+      );
+    const none = await attempt([]);
+    expect(none.code).toBe("invalid");
+    expect(none.message).toMatch(/Give each attest item a disposition/);
+    expect(none.issues.map((i) => i.path)).toEqual(all.map((d) => `dispositions.${d.resultId}`));
+    const noNote = await attempt(all.map((d) => ({ ...d, note: "" })));
+    expect(noNote.issues[0]).toMatchObject({ path: "dispositions.0.note" });
+    const returned = await attempt(all.map((d, i) => (i === 0 ? { ...d, disposition: "returned" } : d)));
+    expect(returned.message).toMatch(/return the revision instead/);
+    const stray = await attempt([...all, { resultId: "no-such-check:X", disposition: "accepted", note: "n" }]);
+    expect(stray.issues.at(-1)!.message).toMatch(/names no attest item/);
+    expect(revisionRow(approvable).reviewState).toBe("in-review");
+  });
+
   it("refuses to stamp a draft: its cover says it is not complete for submittal", async () => {
     expect(revisionRow(revisionId)).toMatchObject({ isDraft: true, reviewState: "in-review" });
     const error = await decideReview(reviewer, { revisionId, decision: "approved", confirmStamp: true }, { deliver: noDelivery, dispatch: render, now: NOW }).catch((e: unknown) => e);
@@ -315,7 +349,11 @@ describe("approving", () => {
     const unstamped = (await getRevisionFile(designer, approvable, "pdf", { packetsDir })).bytes;
     expect(Buffer.from(unstamped).toString("latin1")).not.toMatch(/\/Subtype\s*\/Image/);
 
-    const decided = await decideReview(reviewer, { revisionId: approvable, decision: "approved", generalNotes: "Reviewed.", confirmStamp: true }, { deliver: noDelivery, dispatch: render, now: NOW });
+    const decided = await decideReview(
+      reviewer,
+      { revisionId: approvable, decision: "approved", generalNotes: "Reviewed.", confirmStamp: true, dispositions: acceptAll(approvable) },
+      { deliver: noDelivery, dispatch: render, now: NOW },
+    );
     const row = revisionRow(approvable);
     expect(decided.approvedSha256).toBe(row.recordSha256);
     expect(row.reviewState).toBe("approved");
@@ -338,6 +376,9 @@ describe("approving", () => {
     // The stamp image is the packet's only raster: none of the sheets or merged test PDFs draw one.
     expect(Buffer.from(stamped).toString("latin1")).toMatch(/\/Subtype\s*\/Image/);
     const text = await readPdfText(stamped);
+    // The review record prints the dispositions given with the approval.
+    expect(text.pages.join("\n")).toMatch(/Dispositions of the attest items/i);
+    expect(text.pages.join("\n")).toMatch(/Accepted Seen on the site photos/);
     text.pages.forEach((page, i) => {
       expect(page, `page ${i + 1}`).toContain(licence.licenceNumber);
       expect(page, `page ${i + 1}`).toContain(reviewer.user.name);

@@ -2,6 +2,7 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { auditLog, outbox, packetRevisions, projects, submissionEvents, submissions } from "../../db/schema";
 import { ServiceError } from "../../lib/services/errors";
+import { getProjectRecord } from "../../lib/services/projects/get-record";
 import { createSubmission, getSubmission, listSubmittableRevisions, recordSubmissionEvent } from "../../lib/services/submissions";
 import { codeOf, makeContext, makeJurisdiction, makeOrg, makeProject, tempDatabase } from "./factories";
 
@@ -28,6 +29,7 @@ let revisionCounter = 0;
 function revision(reviewState: "draft" | "in-review" | "returned" | "approved", isDraft = false) {
   const project = makeProject(db, org.id, jurisdiction.id);
   db.update(projects).set({ status: reviewState === "approved" ? "approved" : "in-review" }).where(eq(projects.id, project.id)).run();
+  const projectId = project.id;
   const row = db
     .insert(packetRevisions)
     .values({
@@ -36,7 +38,8 @@ function revision(reviewState: "draft" | "in-review" | "returned" | "approved", 
       number: ++revisionCounter,
       state: "ready",
       reviewState,
-      recordSnapshot: {},
+      // The live record, so the revision shows the design as it stands.
+      recordSnapshot: getProjectRecord(designer, projectId).record as unknown as Record<string, unknown>,
       resultsSnapshot: {},
       recordSha256: "0".repeat(64),
       isDraft,
@@ -131,17 +134,18 @@ describe("recording events", () => {
     const before = db.select().from(submissionEvents).where(eq(submissionEvents.submissionId, submissionId)).all();
     await recordSubmissionEvent(office, { submissionId, kind: "in-plan-review", occurredOn: "2026-11-26", note: "Assigned." }, opts);
     await recordSubmissionEvent(office, { submissionId, kind: "fee-paid", occurredOn: "2026-11-27", amountUsd: "185.50" }, opts);
+    await recordSubmissionEvent(office, { submissionId, kind: "permit-issued", occurredOn: "2026-11-28", permitNumber: "E26-1" }, opts);
     await recordSubmissionEvent(office, { submissionId, kind: "inspection-scheduled", occurredOn: "2027-01-15", inspectionKind: "rough" }, opts);
     const after = db.select().from(submissionEvents).where(eq(submissionEvents.submissionId, submissionId)).all();
-    expect(after).toHaveLength(4);
+    expect(after).toHaveLength(5);
     expect(after.find((e) => e.id === before[0]!.id)).toEqual(before[0]);
     const view = getSubmission(office, submissionId);
     expect(view.status).toBe("inspection-scheduled");
-    expect(view.version).toBe(4);
-    expect(view.events.map((e) => e.kind)).toEqual(["submitted", "in-plan-review", "fee-paid", "inspection-scheduled"]);
+    expect(view.version).toBe(5);
+    expect(view.events.map((e) => e.kind)).toEqual(["submitted", "in-plan-review", "fee-paid", "permit-issued", "inspection-scheduled"]);
     expect(view.events[2]!.data).toEqual({ amount: 185.5 });
-    expect(view.events[3]!.data).toEqual({ inspectionKind: "rough" });
-    expect(db.select().from(auditLog).where(and(eq(auditLog.action, "submission.event"), eq(auditLog.entityId, submissionId))).all()).toHaveLength(3);
+    expect(view.events[4]!.data).toEqual({ inspectionKind: "rough" });
+    expect(db.select().from(auditLog).where(and(eq(auditLog.action, "submission.event"), eq(auditLog.entityId, submissionId))).all()).toHaveLength(4);
   });
 
   it("refuses permit-issued without a number, fee-paid without an amount, inspections without a kind", async () => {
@@ -169,7 +173,12 @@ describe("recording events", () => {
     const view = getSubmission(office, submissionId);
     expect(view.events.at(-1)!.data).toEqual({ permitNumber: "E26-02001", expiresOn: "2027-05-30" });
     expect(db.select().from(projects).where(eq(projects.id, projectId)).get()!.status).toBe("permitted");
-    const mail = db.select().from(outbox).where(and(eq(outbox.orgId, org.id), eq(outbox.template, "permit-issued"))).all();
+    const mail = db
+      .select()
+      .from(outbox)
+      .where(and(eq(outbox.orgId, org.id), eq(outbox.template, "permit-issued")))
+      .all()
+      .filter((m) => m.bodyText.includes("E26-02001"));
     expect(mail.map((m) => m.toAddress).sort()).toEqual([designer.user.email, installer.user.email].sort());
     expect(mail[0]!.bodyText).toContain("valid until 2027-05-30");
   });
@@ -188,7 +197,7 @@ describe("recording events", () => {
     const { submissionId } = await openSubmission();
     expect(await codeOfAsync(() => recordSubmissionEvent(office, { submissionId, kind: "on-hold", occurredOn: "2026-11-28", version: 7 }, opts))).toBe("conflict");
     await recordSubmissionEvent(office, { submissionId, kind: "cancelled", occurredOn: "2026-11-28", version: 1 }, opts);
-    expect(await codeOfAsync(() => recordSubmissionEvent(office, { submissionId, kind: "resubmitted", occurredOn: "2026-11-29" }, opts))).toBe("conflict");
+    expect(await codeOfAsync(() => recordSubmissionEvent(office, { submissionId, kind: "resubmitted", occurredOn: "2026-11-29", revisionId: "any" }, opts))).toBe("conflict");
   });
 
   it("is for the office only; designers read", async () => {

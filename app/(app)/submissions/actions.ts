@@ -2,7 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { runAction, type ActionResult } from "@/lib/auth/action";
-import { createSubmission, recordSubmissionEvent, type CreatedSubmission, type RecordedEvent } from "@/lib/services/submissions";
+import { createSubmission, recordSubmissionEvent, voidSubmissionEvent, type CreatedSubmission, type RecordedEvent, type VoidedEvent } from "@/lib/services/submissions";
 
 function reader(formData: FormData) {
   return (name: string) => {
@@ -43,8 +43,22 @@ export async function recordEventAction(_prev: ActionResult<RecordedEvent> | nul
       expiresOn: text("expiresOn"),
       amountUsd: text("amountUsd"),
       inspectionKind: text("inspectionKind"),
+      revisionId: text("revisionId"),
       version: text("version") || undefined,
     }),
+  );
+  if (result.ok && submissionId) {
+    revalidatePath(`/submissions/${submissionId}`);
+    revalidatePath("/submissions");
+  }
+  return result.ok ? { ...result, message: result.data?.message } : result;
+}
+
+export async function voidEventAction(_prev: ActionResult<VoidedEvent> | null, formData: FormData): Promise<ActionResult<VoidedEvent>> {
+  const text = reader(formData);
+  const submissionId = text("submissionId");
+  const result = await runAction((ctx) =>
+    voidSubmissionEvent(ctx, { submissionId, eventId: text("eventId"), reason: text("reason"), version: text("version") || undefined }),
   );
   if (result.ok && submissionId) {
     revalidatePath(`/submissions/${submissionId}`);

@@ -22,5 +22,18 @@ export function reviewBlocks(input: PacketInput): Block[] {
       "Points for the reviewer (fail, needs input, warning, attest)",
     ),
   );
+  // What the stamp carries: the reviewer's disposition of each attest item.
+  const dispositions = input.approval?.dispositions ?? [];
+  if (input.approval) {
+    blocks.push(
+      table(
+        [["Attest item", 3], ["Disposition", 1.1], ["Reviewer's note", 3.5]],
+        dispositions.length
+          ? dispositions.map((d) => [d.item, d.disposition === "accepted" ? "Accepted" : "Returned", d.note || "—"])
+          : [["—", "", "No attest items in this revision."]],
+        "Dispositions of the attest items",
+      ),
+    );
+  }
   return blocks;
 }

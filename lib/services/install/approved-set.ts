@@ -4,6 +4,7 @@ import { requiredLabels, type LabelRequirement } from "../../compliance/labels";
 import { projectRecordSchema, type ProjectRecord } from "../../schemas/project-record";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { invalid, notFound } from "../errors";
+import { moveProjectStatus } from "../projects/status";
 
 export interface ApprovedSet {
   revisionId: string;
@@ -115,6 +116,17 @@ export function confirmOnSite(
       insert.onConflictDoNothing().run();
     }
     audit(tx, ctx, "site.confirmed", "revision", input.revisionId, { itemKind: input.itemKind, itemId: input.itemId, photoAttachmentId });
+    // Every label placed and every item matched to its nameplate: the system is installed (a permitted project says so).
+    const done = new Set(
+      tx
+        .select({ itemKind: siteConfirmations.itemKind, itemId: siteConfirmations.itemId })
+        .from(siteConfirmations)
+        .where(and(eq(siteConfirmations.revisionId, input.revisionId), eq(siteConfirmations.orgId, ctx.orgId)))
+        .all()
+        .map((c) => `${c.itemKind}:${c.itemId}`),
+    );
+    const complete = set.labels.every((l) => done.has(`label:${l.id}`)) && set.record.equipment.every((e) => done.has(`equipment:${e.tag}`));
+    if (complete) moveProjectStatus(tx, ctx, set.projectId, "installed", { reason: "site.confirmed", ifAllowed: true });
   });
 }
 

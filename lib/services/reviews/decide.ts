@@ -1,11 +1,13 @@
 import { and, eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
-import { packetRevisions, projects, reviewNotes, reviews, users, type LicenceSnapshot } from "../../../db/schema";
+import { packetRevisions, reviewNotes, reviews, users, type AttestDispositionRecord, type LicenceSnapshot } from "../../../db/schema";
 import { queueEmail } from "../../email/outbox";
 import { formatIssues } from "../../schemas/fields";
 import { reviewDecisionSchema, type ReviewNoteInput } from "../../schemas/review";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid, ServiceError, type FieldIssue } from "../errors";
+import { moveProjectStatus } from "../projects/status";
+import { checkStampable } from "./dispositions";
 import { deliverLater, renderLater } from "../../jobs";
 import { independenceRefusal, licenceCoverageRefusal } from "./independence";
 import {
@@ -60,7 +62,7 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
   requirePermission(ctx, "review:decide", "return or approve packets");
   const parsed = reviewDecisionSchema.safeParse(input);
   if (!parsed.success) throw invalid("The decision was not recorded: some fields are not valid.", formatIssues(parsed.error));
-  const { revisionId, decision, generalNotes, notes, confirmStamp } = parsed.data;
+  const { revisionId, decision, generalNotes, notes, confirmStamp, dispositions } = parsed.data;
   const now = options.now ?? new Date();
 
   const { row, project } = findRevisionForReview(ctx, revisionId);
@@ -75,7 +77,9 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
   checkNoteTargets(notes, run ? new Set(run.results.map((r) => r.id)) : new Set());
 
   let licenceSnapshot: LicenceSnapshot | null = null;
+  let dispositionRecords: AttestDispositionRecord[];
   if (decision === "returned") {
+    dispositionRecords = checkStampable(run, decision, dispositions);
     if (!generalNotes && notes.length === 0) {
       throw invalid("Say why the revision goes back: write a general note or a note on a check or sheet.", [
         { path: "generalNotes", message: "is required when returning without notes on checks or sheets" },
@@ -108,6 +112,7 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
         { path: "revision", message: "is a draft" },
       ]);
     }
+    dispositionRecords = checkStampable(run, decision, dispositions);
     licenceSnapshot = {
       reviewerName: ctx.user.name,
       licenceNumber: licence.licenceNumber,
@@ -153,6 +158,7 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
         generalNotes,
         licenceSnapshot,
         approvedSha256,
+        dispositions: dispositionRecords,
         createdAt,
       })
       .returning({ id: reviews.id })
@@ -162,11 +168,8 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
         .values(notes.map((n) => ({ reviewId: review.id, targetKind: n.targetKind, targetId: n.targetKind === "general" ? "" : n.targetId, text: n.text, createdAt })))
         .run();
     }
-    // Only the project's open review moves its status; a decision on an older revision leaves a later one's state alone.
-    tx.update(projects)
-      .set({ status: decision, updatedAt: createdAt })
-      .where(and(eq(projects.id, project.id), eq(projects.orgId, ctx.orgId), eq(projects.status, "in-review")))
-      .run();
+    // Only a project in review moves (the table allows nothing else); a decision on an older revision leaves a later stage alone.
+    moveProjectStatus(tx, ctx, project.id, decision, { reason: `review.${decision}`, ifAllowed: true, now });
     if (designer?.active) {
       if (decision === "approved") {
         queueEmail(tx, ctx.orgId, designer.email, "approved", {

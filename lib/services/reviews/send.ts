@@ -1,13 +1,19 @@
 import { and, eq, inArray } from "drizzle-orm";
 import type { Db } from "../../../db/client";
-import { packetRevisions, projects } from "../../../db/schema";
+import { packetRevisions } from "../../../db/schema";
 import { queueEmail } from "../../email/outbox";
 import { deliverLater } from "../../jobs";
 import { audit, requirePermission, type ServiceContext } from "../context";
-import { conflict } from "../errors";
+import { conflict, invalid } from "../errors";
+import { moveProjectStatus } from "../projects/status";
 import { activeReviewers, deliverAfterCommit, findRevisionForReview, snapshotRun } from "./shared";
 
+/** Long enough to answer a reviewer's notes point by point. */
+export const SEND_MESSAGE_MAX_CHARS = 4000;
+
 export interface SendOptions {
+  /** What the designer says with the revision; required when checks fail (why it should be reviewed anyway). */
+  message?: string;
   /** Delivers the queued mail after commit; the outbox's SMTP delivery unless given. */
   deliver?: (db: Db, orgId: string) => Promise<unknown>;
 }
@@ -41,6 +47,13 @@ export async function sendForReview(ctx: ServiceContext, revisionId: string, opt
   }
   const run = snapshotRun(row);
   const counts = run?.counts;
+  const message = (options.message ?? "").trim();
+  if (message.length > SEND_MESSAGE_MAX_CHARS) throw invalid(`The message is too long.`, [{ path: "message", message: `must be at most ${SEND_MESSAGE_MAX_CHARS} characters` }]);
+  if ((counts?.fail ?? 0) > 0 && !message) {
+    throw invalid(`Revision ${row.number} has ${counts!.fail} failing check${counts!.fail === 1 ? "" : "s"}; say in a message why it should be reviewed as it is.`, [
+      { path: "message", message: "is required when checks fail" },
+    ]);
+  }
 
   ctx.db.transaction((tx) => {
     const moved = tx
@@ -50,10 +63,8 @@ export async function sendForReview(ctx: ServiceContext, revisionId: string, opt
       .run();
     // Another request sent or decided it between our read and this write.
     if (moved.changes === 0) throw conflict(`Revision ${row.number} changed while it was being sent; reload the page.`);
-    tx.update(projects)
-      .set({ status: "in-review", updatedAt: new Date().toISOString() })
-      .where(and(eq(projects.id, project.id), eq(projects.orgId, ctx.orgId)))
-      .run();
+    // A permitted or installed project keeps its status: a revised set goes to the AHJ as a new submission.
+    moveProjectStatus(tx, ctx, project.id, "in-review", { reason: "review.sent", ifAllowed: true });
     for (const reviewer of reviewers) {
       queueEmail(tx, ctx.orgId, reviewer.email, "sent-for-review", {
         reviewerName: reviewer.name,
@@ -65,6 +76,7 @@ export async function sendForReview(ctx: ServiceContext, revisionId: string, opt
         warningCount: counts?.warning ?? 0,
         needsInputCount: counts?.["needs-input"] ?? 0,
         attestCount: counts?.attest ?? 0,
+        message,
         projectId: project.id,
         revisionId: row.id,
       });
@@ -74,6 +86,7 @@ export async function sendForReview(ctx: ServiceContext, revisionId: string, opt
       number: row.number,
       recordSha256: row.recordSha256,
       resent: row.reviewState === "returned",
+      ...(message ? { message, senderName: ctx.user.name } : {}),
       reviewers: reviewers.map((r) => r.id),
     });
   });

@@ -6,6 +6,7 @@ import { CHECK_STATUSES, type CheckResult, type CheckRun, type CheckStatus } fro
 import { requirePermission, type ServiceContext } from "../context";
 import { ServiceError } from "../errors";
 import { getProjectRecord } from "../projects/get-record";
+import { revisionDelta, sendMessage, type RevisionDelta } from "./delta";
 import { listRevisionReviews, type ReviewEntry } from "./history";
 import { toLicenceView, type LicenceView } from "./licence";
 import { currentCertificateRow } from "./certificate";
@@ -54,6 +55,10 @@ export interface ReviewWorkspace {
   /** Why the actor's licence does not cover the project's jurisdiction, or null; it blocks approval only. */
   licenceCoverage: string | null;
   maySend: boolean;
+  /** What changed since the earlier revision a reviewer decided on; null for a first review. */
+  delta: RevisionDelta | null;
+  /** The designer's message sent with this revision. */
+  sendMessage: { text: string; by: string | null; at: string } | null;
   /** The digital signature on the revision's current PDF, or null when it is not signed. */
   signature: { subjectName: string; signedAt: string } | null;
   /** The actor's stored signing certificate, when they review; approving then asks for its password. */
@@ -152,5 +157,7 @@ export function getReviewWorkspace(ctx: ServiceContext, revisionId: string, opti
     certificate: certificateRow ? { subjectName: certificateRow.subjectName, notAfter: certificateRow.notAfter } : null,
     maySign: reviewer && stampedByActor && row.state === "ready" && signature === null,
     maySend: can(ctx.roles, "review:send") && row.state === "ready" && (row.reviewState === "draft" || row.reviewState === "returned"),
+    delta: revisionDelta(ctx, row),
+    sendMessage: sendMessage(ctx, row.id),
   };
 }

@@ -87,6 +87,11 @@ function approvalFor(db: Db, row: PacketRevision): { approval?: Omit<PacketAppro
       licenceDiscipline: licence.discipline,
       approvedAt: approved.review.createdAt,
       recordSha256: row.recordSha256,
+      dispositions: (approved.review.dispositions ?? []).map((d) => ({
+        item: d.subject && !d.title.includes(d.subject) ? `${d.title} (${d.subject})` : d.title,
+        disposition: d.disposition,
+        note: d.note,
+      })),
     },
     stampAttachmentId: stamp?.stampAttachmentId ?? null,
     notes,

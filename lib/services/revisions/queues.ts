@@ -1,6 +1,7 @@
 import { and, desc, eq, inArray } from "drizzle-orm";
 import { jurisdictions, packetRevisions, projects, submissions } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";
+import { liveRecord, revisionMatchesLive } from "../projects/approval";
 import { afterCursor, pageSize, toPage, type Page, type PageRequest } from "../page";
 
 export interface RevisionQueueRow {
@@ -43,10 +44,29 @@ export function listReviewQueue(ctx: ServiceContext): RevisionQueueRow[] {
   return revisionRows(ctx, ["in-review", "returned", "approved"]);
 }
 
-/** Approved revisions an installer works from. */
+/**
+ * Approved revisions an installer works from: only those whose design is
+ * still the project's live design. When the record changes after approval the
+ * set is withdrawn from installers until a new revision is approved.
+ */
 export function listApprovedForInstall(ctx: ServiceContext): RevisionQueueRow[] {
   requirePermission(ctx, "install:read", "open approved sets");
-  return revisionRows(ctx, ["approved"]);
+  const rows = revisionRows(ctx, ["approved"]);
+  if (rows.length === 0) return rows;
+  const snapshots = new Map(
+    ctx.db
+      .select({ id: packetRevisions.id, recordSnapshot: packetRevisions.recordSnapshot })
+      .from(packetRevisions)
+      .where(and(eq(packetRevisions.orgId, ctx.orgId), inArray(packetRevisions.id, rows.map((r) => r.revisionId))))
+      .all()
+      .map((r) => [r.id, r]),
+  );
+  const lives = new Map<string, unknown>();
+  return rows.filter((r) => {
+    if (!lives.has(r.projectId)) lives.set(r.projectId, liveRecord(ctx, r.projectId));
+    const snapshot = snapshots.get(r.revisionId);
+    return snapshot ? revisionMatchesLive(snapshot, lives.get(r.projectId)) : false;
+  });
 }
 
 export interface SubmissionQueueRow {

@@ -1,4 +1,4 @@
-import { and, eq, inArray } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { jurisdictions, packetRevisions, projects, submissionEvents, submissions } from "../../../db/schema";
 import { queueEmail } from "../../email/outbox";
@@ -7,6 +7,8 @@ import { formatIssues } from "../../schemas/fields";
 import { createSubmissionSchema } from "../../schemas/submission";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid, notFound } from "../errors";
+import { liveRecord, revisionMatchesLive } from "../projects/approval";
+import { moveProjectStatus } from "../projects/status";
 import { deliverAfterCommit, isoDay, METHOD_WORDS, revisionDesigner } from "./shared";
 
 export interface CreateOptions {
@@ -55,6 +57,11 @@ export async function createSubmission(ctx: ServiceContext, input: unknown, opti
   if (revision.state !== "ready") {
     throw conflict(`The stamped packet of revision ${revision.number} is not finished (${revision.state}); submit it once it is ready.`);
   }
+  if (!revisionMatchesLive(revision, liveRecord(ctx, project.id))) {
+    throw conflict(
+      `${project.name} has changed since revision ${revision.number} was approved; the stamped set no longer shows the design. Generate a new revision and have it approved before submitting.`,
+    );
+  }
   if (!project.jurisdictionId) throw invalid(`${project.name} has no jurisdiction; set one on the project first.`, [{ path: "revisionId", message: "project has no jurisdiction" }]);
   const jurisdiction = ctx.db
     .select()
@@ -99,10 +106,7 @@ export async function createSubmission(ctx: ServiceContext, input: unknown, opti
       .values({ orgId: ctx.orgId, submissionId: row.id, kind: "submitted", occurredOn, userId: ctx.user.id, note, data: {}, createdAt: now.toISOString() })
       .run();
     // A later stage (permitted, installed, closed) is not undone by submitting again.
-    tx.update(projects)
-      .set({ status: "submitted", updatedAt: now.toISOString() })
-      .where(and(eq(projects.id, project.id), eq(projects.orgId, ctx.orgId), inArray(projects.status, ["design", "in-review", "returned", "approved", "submitted"])))
-      .run();
+    moveProjectStatus(tx, ctx, project.id, "submitted", { reason: "submission.created", ifAllowed: true, now });
     if (designer) {
       queueEmail(tx, ctx.orgId, designer.email, "submitted", {
         jurisdictionName: jurisdiction.name,

@@ -2,3 +2,4 @@ export { createSubmission, type CreateOptions, type CreatedSubmission } from "./
 export { recordSubmissionEvent, type RecordEventOptions, type RecordedEvent } from "./record-event";
 export { getSubmission, listSubmittableRevisions, type SubmissionView, type SubmissionEventView, type SubmittableRevision } from "./get";
 export { listSubmissionQueue, type SubmissionQueueEntry } from "./list";
+export { voidSubmissionEvent, type VoidedEvent } from "./void-event";

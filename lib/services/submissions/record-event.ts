@@ -1,12 +1,15 @@
-import { and, asc, eq, inArray } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
-import { projects, submissionEvents, submissions } from "../../../db/schema";
+import { packetRevisions, submissionEvents, submissions } from "../../../db/schema";
 import { queueEmail } from "../../email/outbox";
 import { deliverLater } from "../../jobs";
 import { formatIssues } from "../../schemas/fields";
-import { EVENT_LABELS, INSPECTION_EVENT_KINDS, PERMIT_VALID_MAX_DAYS, recordEventSchema, SCHEDULE_AHEAD_MAX_DAYS, type EventKind } from "../../schemas/submission";
+import { EVENT_LABELS, INSPECTION_EVENT_KINDS, PERMIT_VALID_MAX_DAYS, recordEventSchema, SCHEDULE_AHEAD_MAX_DAYS } from "../../schemas/submission";
+import { CLOSED_KINDS, nextEventVerdict, type StandingKind } from "../../schemas/submission-rules";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid } from "../errors";
+import { liveRecord, revisionMatchesLive } from "../projects/approval";
+import { effectiveEvents, loadEventRows, moveProjectForEvents, standingOf, type EffectiveEvent } from "./events";
 import { activeInstallers, addDays, deliverAfterCommit, findSubmissionInOrg, isoDay, revisionDesigner } from "./shared";
 
 export interface RecordEventOptions {
@@ -17,28 +20,29 @@ export interface RecordEventOptions {
 export interface RecordedEvent {
   eventId: string;
   submissionId: string;
-  status: EventKind;
+  /** Where the application now stands. */
+  status: StandingKind;
   version: number;
   message: string;
 }
 
-/** After these the application is closed; a new one starts with a new submission. */
-const TERMINAL: readonly EventKind[] = ["finaled", "cancelled"];
-
 /**
- * Appends one event to a submission. Events are never changed or removed: a
- * mistaken entry is corrected by a later one with a note, as on a paper log.
+ * Appends one event to a submission, in the order the event table allows
+ * (lib/schemas/submission-rules.ts). Events are never changed or removed: a
+ * mistaken entry is voided by a later one (void-event.ts), as on a paper log.
  */
 export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown, options: RecordEventOptions = {}): Promise<RecordedEvent> {
   requirePermission(ctx, "submission:record-event", "record submission events");
   const parsed = recordEventSchema.safeParse(input);
   if (!parsed.success) throw invalid("The event was not recorded: some fields are not valid.", formatIssues(parsed.error));
-  const { submissionId, kind, occurredOn, note, permitNumber, expiresOn, amountUsd, inspectionKind, version } = parsed.data;
+  const { submissionId, kind, occurredOn, note, permitNumber, expiresOn, amountUsd, inspectionKind, revisionId, version } = parsed.data;
   const now = options.now ?? new Date();
   const { submission, project, jurisdiction, revision } = findSubmissionInOrg(ctx, submissionId);
+  const events = effectiveEvents(loadEventRows(ctx.db, ctx.orgId, submission.id));
+  const standing = standingOf(events);
 
-  if (TERMINAL.includes(submission.status)) {
-    throw conflict(`This submission is ${EVENT_LABELS[submission.status].toLowerCase()}; start a new submission to continue.`);
+  if (CLOSED_KINDS.includes(standing)) {
+    throw conflict(`This submission is ${EVENT_LABELS[standing].toLowerCase()}; start a new submission to continue.`);
   }
   if (version !== undefined && version !== submission.version) {
     throw conflict("Another event was recorded on this submission since you opened it; reload the page and check the timeline.");
@@ -50,13 +54,7 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
     const message = kind === "inspection-scheduled" ? `is more than a year ahead (latest ${latestAllowed})` : `is after today (${today}); only a scheduled inspection may lie ahead`;
     throw invalid("The event date is not possible.", [{ path: "occurredOn", message }]);
   }
-  const first = ctx.db
-    .select({ occurredOn: submissionEvents.occurredOn })
-    .from(submissionEvents)
-    .where(and(eq(submissionEvents.submissionId, submission.id), eq(submissionEvents.orgId, ctx.orgId)))
-    .orderBy(asc(submissionEvents.occurredOn))
-    .limit(1)
-    .get();
+  const first = events[0];
   if (first && occurredOn < first.occurredOn) {
     throw invalid("The event date is before the submission.", [{ path: "occurredOn", message: `is before the first event (${first.occurredOn})` }]);
   }
@@ -64,7 +62,11 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
     throw invalid("The permit expiry is too far ahead.", [{ path: "expiresOn", message: "is more than ten years after issue; check the year" }]);
   }
 
+  const verdict = nextEventVerdict(standing, kind);
+  if (!verdict.allowed) throw invalid(verdict.reason, [{ path: "kind", message: verdict.reason }]);
+
   const data: Record<string, unknown> = {};
+  if (kind === "resubmitted") data.revisionId = resubmittedRevision(ctx, project.id, revisionId!, events, revision.id).id;
   if (kind === "permit-issued") {
     data.permitNumber = permitNumber;
     if (expiresOn) data.expiresOn = expiresOn;
@@ -78,7 +80,7 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
   const result = ctx.db.transaction((tx) => {
     const moved = tx
       .update(submissions)
-      .set({ status: kind, version: submission.version + 1 })
+      .set({ status: kind === "fee-paid" ? standing : kind, version: submission.version + 1 })
       .where(and(eq(submissions.id, submission.id), eq(submissions.orgId, ctx.orgId), eq(submissions.version, submission.version)))
       .run();
     if (moved.changes === 0) throw conflict("Another event was recorded on this submission at the same time; reload the page and check the timeline.");
@@ -87,12 +89,8 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
       .values({ orgId: ctx.orgId, submissionId: submission.id, kind, occurredOn, userId: ctx.user.id, note, data, createdAt })
       .returning({ id: submissionEvents.id })
       .get();
-    if (kind === "permit-issued") {
-      tx.update(projects)
-        .set({ status: "permitted", updatedAt: createdAt })
-        .where(and(eq(projects.id, project.id), eq(projects.orgId, ctx.orgId), inArray(projects.status, ["approved", "submitted", "permitted"])))
-        .run();
-    }
+    const stored = tx.select().from(submissionEvents).where(eq(submissionEvents.id, event.id)).get()!;
+    moveProjectForEvents(tx, ctx, project.id, [...events, stored as EffectiveEvent], { reason: `submission.${kind}`, now });
     const reference = submission.referenceNumber || "not yet given";
     if (kind === "corrections-requested" && designer) {
       queueEmail(tx, ctx.orgId, designer.email, "corrections-requested", {
@@ -123,8 +121,35 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
   return {
     eventId: result.eventId,
     submissionId: submission.id,
-    status: kind,
+    status: kind === "fee-paid" ? standing : kind,
     version: result.version,
     message: `${EVENT_LABELS[kind]} recorded on ${occurredOn}.`,
   };
+}
+
+/** The approved revision a resubmission sends: of this project, stamped, finished, and not one already before the AHJ. */
+function resubmittedRevision(ctx: ServiceContext, projectId: string, revisionId: string, events: readonly EffectiveEvent[], firstRevisionId: string) {
+  const row = ctx.db
+    .select()
+    .from(packetRevisions)
+    .where(and(eq(packetRevisions.id, revisionId), eq(packetRevisions.orgId, ctx.orgId), eq(packetRevisions.projectId, projectId)))
+    .get();
+  if (!row) throw invalid("That revision is not a revision of this project.", [{ path: "revisionId", message: "is not a revision of this project" }]);
+  const sent = new Set([firstRevisionId, ...events.filter((e) => e.kind === "resubmitted").map((e) => e.data.revisionId)]);
+  if (sent.has(row.id)) {
+    throw invalid(`Revision ${row.number} is already before the AHJ; a resubmission sends the revision that answers the corrections.`, [
+      { path: "revisionId", message: `revision ${row.number} was already submitted` },
+    ]);
+  }
+  if (row.reviewState !== "approved" || row.isDraft || row.state !== "ready") {
+    throw invalid(`Revision ${row.number} is not an approved, stamped and finished packet; only such a revision goes to the AHJ.`, [
+      { path: "revisionId", message: `revision ${row.number} is not approved and ready` },
+    ]);
+  }
+  if (!revisionMatchesLive(row, liveRecord(ctx, projectId))) {
+    throw invalid(`The project has changed since revision ${row.number} was approved; generate a new revision and have it approved before resubmitting.`, [
+      { path: "revisionId", message: `revision ${row.number} no longer shows the design` },
+    ]);
+  }
+  return row;
 }

@@ -2,6 +2,7 @@ import { ProjectTabs } from "@/components/workspace/project-tabs";
 import { TitleBlock } from "@/components/workspace/title-block";
 import { Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
+import { approvalDrift } from "@/lib/services/projects/approval";
 import { loadProject } from "./load-project";
 
 export default async function ProjectLayout({ children, params }: { children: React.ReactNode; params: Promise<{ id: string }> }) {
@@ -21,6 +22,7 @@ export default async function ProjectLayout({ children, params }: { children: Re
           necEdition={loaded.stored.record.jurisdiction.necEdition}
           status={loaded.stored.status}
           version={loaded.stored.version}
+          drift={approvalDrift(ctx, id)}
         />
       ) : null}
       <ProjectTabs projectId={id} />

@@ -6,6 +6,7 @@ import { ReviewDesk } from "@/components/reviews/review-desk";
 import { ReviewHistoryList } from "@/components/reviews/review-history";
 import { SignPacketForm } from "@/components/reviews/sign-packet-form";
 import { SendForReviewButton } from "@/components/reviews/send-for-review-button";
+import { WhatChanged } from "@/components/reviews/what-changed";
 import { Field, PageHeader, Refusal } from "@/components/ui/page-header";
 import { StateTag } from "@/components/ui/status-badge";
 import { orNotFound, pageContext } from "@/lib/auth/page-context";
@@ -45,7 +46,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
       <PageHeader title={project.name} sheet={`Review · Revision ${rev.number}`}>
         <StateTag>{REVIEW_STATE_LABELS[rev.reviewState] ?? rev.reviewState}</StateTag>
         {/* Kept mounted after sending, so its confirmation stays on screen once the state has moved on. */}
-        {can(ctx.roles, "review:send") && rev.state === "ready" ? <SendForReviewButton revisionId={rev.id} reviewState={rev.reviewState} number={rev.number} /> : null}
+        {can(ctx.roles, "review:send") && rev.state === "ready" ? <SendForReviewButton revisionId={rev.id} reviewState={rev.reviewState} number={rev.number} failCount={ws.counts?.fail ?? 0} /> : null}
         {ws.licence !== null || ws.mayDecide ? (
           <Link href="/reviews/licence" className="btn-quiet">
             Your licence and stamp
@@ -185,6 +186,12 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
         </section>
 
         <div>
+          {ws.delta ? <WhatChanged delta={ws.delta} message={ws.sendMessage} /> : null}
+          {!ws.delta && ws.sendMessage ? (
+            <Notice tone="query" title={`Message from ${ws.sendMessage.by ?? "the designer"}`}>
+              <p className="whitespace-pre-line">{ws.sendMessage.text}</p>
+            </Notice>
+          ) : null}
           {ws.history.length ? (
             // Earlier decisions come first: the notes a returned revision was sent back with are what a second reading checks.
             <section aria-labelledby="history-heading" className="mb-8">

@@ -7,13 +7,13 @@ import { Field, PageHeader, Refusal } from "@/components/ui/page-header";
 import { StateTag } from "@/components/ui/status-badge";
 import { orNotFound, pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
+import { isProjectStatus, PROJECT_STATUS_LABELS } from "@/lib/schemas/project-status";
 import { EVENT_LABELS } from "@/lib/schemas/submission";
 import { getSubmission } from "@/lib/services/submissions";
 
 export const metadata: Metadata = { title: "Submission" };
 
 const METHOD_LABELS = { portal: "Portal", email: "E-mail", counter: "Counter" } as const;
-const CLOSED = ["finaled", "cancelled"];
 
 export default async function SubmissionPage({ params }: { params: Promise<{ submissionId: string }> }) {
   const { ctx, allowed } = await pageContext("submission:read");
@@ -37,7 +37,7 @@ export default async function SubmissionPage({ params }: { params: Promise<{ sub
         <Field label="Project">
           <p className="font-medium">{s.projectName}</p>
           <p className="text-ink-soft">{s.address || "—"}</p>
-          <p className="text-ink-soft">Project status: {s.projectStatus}</p>
+          <p className="text-ink-soft">Project status: {isProjectStatus(s.projectStatus) ? PROJECT_STATUS_LABELS[s.projectStatus] : s.projectStatus}</p>
         </Field>
         <Field label="Jurisdiction">
           <p>{s.jurisdictionName}</p>
@@ -57,15 +57,15 @@ export default async function SubmissionPage({ params }: { params: Promise<{ sub
       </section>
 
       <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-soft">Timeline</h2>
-      <SubmissionTimeline events={s.events} />
+      <SubmissionTimeline events={s.events} submissionId={s.id} version={s.version} mayVoid={mayRecord} revisionNumbers={s.revisionNumbers} />
 
       {mayRecord ? (
         <section aria-label="Next event" className="no-print mt-6">
           <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-soft">Record the next event</h2>
-          {CLOSED.includes(s.status) ? (
+          {s.allowedNext.length === 0 ? (
             <p className="sheet px-4 py-4 text-sm text-ink-soft">This submission is {EVENT_LABELS[s.status].toLowerCase()}; a new application starts with a new submission.</p>
           ) : (
-            <EventForm submissionId={s.id} version={s.version} status={s.status} today={today} />
+            <EventForm submissionId={s.id} version={s.version} status={s.status} today={today} allowedNext={s.allowedNext} resubmittable={s.resubmittable} />
           )}
         </section>
       ) : null}

@@ -3,7 +3,7 @@ import { requireContext } from "@/lib/auth/session";
 import { handle, readJson } from "@/lib/http";
 import { recordSubmissionEvent } from "@/lib/services/submissions";
 
-/** Appends one event: { kind, occurredOn, note?, permitNumber?, expiresOn?, amountUsd?, inspectionKind?, version? }. */
+/** Appends one event, in the order the event rules allow: { kind, occurredOn, note?, permitNumber?, expiresOn?, amountUsd?, inspectionKind?, revisionId? (resubmitted), version? }. */
 export const POST = handle(async (request: Request, { params }: { params: Promise<{ id: string }> }) => {
   const ctx = await requireContext();
   const { id } = await params;

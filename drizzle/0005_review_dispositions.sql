@@ -1,0 +1,1 @@
+ALTER TABLE `reviews` ADD `dispositions` text DEFAULT '[]' NOT NULL;
