@@ -26,6 +26,8 @@ import { buildPacketModel, type PacketModel } from "./model";
 import type { PacketInput, SheetPages } from "./types";
 
 const FONT = "DejaVu Sans";
+/** Printed on every page of the editable copy. */
+export const DOCX_UNSEALED = "UNSEALED COPY — THE SEALED PDF GOVERNS";
 const SIGNAL_HEX = "BF121F";
 const BORDER = { style: BorderStyle.SINGLE, size: 4, color: "777777" } as const;
 const CELL_BORDERS = { top: BORDER, bottom: BORDER, left: BORDER, right: BORDER };
@@ -276,9 +278,11 @@ export async function renderPacketDocx(input: PacketInput, options: DocxOptions 
           default: new Header({
             children: [
               new Paragraph({ alignment: AlignmentType.CENTER, children: [run(headerText, { bold: true, size: 16 })] }),
+              // An editable copy can be changed after sealing; every page says which document governs.
+              new Paragraph({ alignment: AlignmentType.CENTER, children: [run(DOCX_UNSEALED, { bold: true, size: 16 })] }),
               new Paragraph({
                 alignment: AlignmentType.CENTER,
-                children: [run(`${t.project} · ${t.address} · ${t.firm} · Rev ${t.revision} · ${t.date}`, { size: 14 })],
+                children: [run(`${t.project} · ${t.address} · ${t.firm} · Rev ${t.revision} · ${t.date}`, { size: 16 })],
               }),
             ],
           }),
@@ -289,8 +293,8 @@ export async function renderPacketDocx(input: PacketInput, options: DocxOptions 
               new Paragraph({
                 alignment: AlignmentType.CENTER,
                 children: [
-                  run(model.marking.approved ? model.marking.footer : model.marking.reviewText, { bold: true, size: 14 }),
-                  new TextRun({ font: FONT, size: 14, children: ["   Page ", PageNumber.CURRENT, " of ", PageNumber.TOTAL_PAGES] }),
+                  run(model.marking.approved ? model.marking.footer : model.marking.reviewText, { bold: true, size: 16 }),
+                  new TextRun({ font: FONT, size: 16, children: ["   Page ", PageNumber.CURRENT, " of ", PageNumber.TOTAL_PAGES] }),
                 ],
               }),
             ],

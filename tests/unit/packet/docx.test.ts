@@ -67,6 +67,8 @@ describe("permit packet DOCX", () => {
     const footer = wordText(part(zip, /^word\/footer\d*\.xml$/));
     expect(header).toContain(REVIEW_MARKING);
     expect(footer).toContain(REVIEW_MARKING);
+    // The page header repeats on every page: the editable copy says the sealed PDF governs.
+    expect(header).toContain("UNSEALED COPY — THE SEALED PDF GOVERNS");
   });
 
   it("carries the reviewer and the AHJ footer once approved, and no review marking", async () => {
