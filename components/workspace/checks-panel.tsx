@@ -57,22 +57,23 @@ function ResultItem({
           <span className="block text-xs leading-snug text-ink-soft">{humaniseText(record, result.message)}</span>
         </span>
       </button>
+      {/* The fix stands under the result, open or not: it is what a designer looks for first. */}
+      {result.remedy ? (
+        <div className="mx-3 mb-2 border-l-2 border-query pl-2 text-xs" data-testid="remedy">
+          <p>
+            <span className="field-label">Fix </span>
+            {humaniseText(record, result.remedy.text)}
+          </p>
+          {result.remedy.changes.length && onApply ? (
+            <button type="button" className="btn-quiet mt-1 px-2 py-0.5 text-xs" onClick={() => onApply(result.remedy!.changes)}>
+              Apply: {result.remedy.changes.map((c) => `${describePath(record, c.path)} → ${String(c.value)}`).join("; ")}
+            </button>
+          ) : null}
+        </div>
+      ) : null}
       {open ? (
         <div className="space-y-2 px-3 pb-3 text-xs">
           {result.reason ? <p className="text-ink-soft">{humaniseText(record, result.reason)}</p> : null}
-          {result.remedy ? (
-            <div className="border-l-2 border-query pl-2">
-              <p>
-                <span className="field-label">Fix </span>
-                {humaniseText(record, result.remedy.text)}
-              </p>
-              {result.remedy.changes.length && onApply ? (
-                <button type="button" className="btn-quiet mt-1 px-2 py-0.5 text-xs" onClick={() => onApply(result.remedy!.changes)}>
-                  Apply: {result.remedy.changes.map((c) => `${describePath(record, c.path)} → ${String(c.value)}`).join("; ")}
-                </button>
-              ) : null}
-            </div>
-          ) : null}
           {result.values.length ? (
             <table className="w-full" aria-label={`Values of ${result.title}`}>
               <tbody>
@@ -142,7 +143,7 @@ function ResultItem({
   );
 }
 
-export function ChecksPanel({ projectId }: { projectId: string }) {
+export function ChecksPanel({ projectId, canEdit }: { projectId: string; canEdit: boolean }) {
   const live = useLive();
   const [openId, setOpenId] = useState<string | null>(null);
   const groups = new Map<CheckStatus, CheckResult[]>();
@@ -150,7 +151,7 @@ export function ChecksPanel({ projectId }: { projectId: string }) {
   const stale = live.record === null && live.issues.length > 0;
   const { getValues, setValue } = useFormContext();
   const apply =
-    live.omitted.length === 0
+    canEdit && live.omitted.length === 0
       ? (changes: RemedyChange[]) => {
           for (const c of changes) setValue(c.path, c.value, { shouldDirty: true, shouldValidate: true });
           focusRecordPaths(changes.map((c) => c.path));

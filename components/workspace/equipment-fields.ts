@@ -52,6 +52,7 @@ const inverterFields: RatingField[] = [
   { key: "listedMode", label: "Listed for", type: "select", options: opts("stand-alone", "multimode", "interactive") },
   { key: "hasPvDisconnect", label: "PV disconnect built in", type: "checkbox" },
   { key: "hasOvercurrentProtection", label: "Overcurrent devices built in", type: "checkbox" },
+  { key: "providesPvArcFaultProtection", label: "PV arc-fault protection (UL 1699B)", type: "tri-state" },
 ];
 
 const protectiveFields: RatingField[] = [
@@ -92,6 +93,7 @@ export const RATING_FIELDS: Record<EquipmentKind, RatingField[]> = {
     { key: "batteryVoltagesV", label: "Battery voltages", unit: "V", type: "numbers", help: "Comma-separated, e.g. 12, 24, 48." },
     { key: "hasPvDisconnect", label: "PV disconnect built in", type: "checkbox" },
     { key: "hasOvercurrentProtection", label: "Overcurrent devices built in", type: "checkbox" },
+    { key: "providesPvArcFaultProtection", label: "PV arc-fault protection (UL 1699B)", type: "tri-state" },
   ],
   inverter: inverterFields,
   "inverter-charger": inverterFields,

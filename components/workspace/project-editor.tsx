@@ -206,7 +206,7 @@ export function ProjectEditor({
               <DiagramSection />
             </fieldset>
             <aside className="w-full shrink-0 xl:sticky xl:top-14 xl:w-[18rem] 2xl:w-[24rem]" aria-label="Live checks">
-              <ChecksPanel projectId={projectId} />
+              <ChecksPanel projectId={projectId} canEdit={canEdit} />
             </aside>
           </div>
         </form>

@@ -15,6 +15,7 @@ import { maxPvVoltage } from "./checks/max-pv-voltage";
 import { mpptWindow } from "./checks/mppt-window";
 import { overcurrentProtection } from "./checks/overcurrent-protection";
 import { panelBusbar } from "./checks/panel-busbar";
+import { pvArcFault } from "./checks/pv-arc-fault";
 import { rapidShutdown } from "./checks/rapid-shutdown";
 import { standAloneSizing } from "./checks/stand-alone-sizing";
 import { standAloneSupply } from "./checks/stand-alone-supply";
@@ -39,6 +40,7 @@ export const CHECKS: readonly CheckDefinition[] = [
   storageSiting,
   standAloneSupply,
   rapidShutdown,
+  pvArcFault,
   deviceRatings,
   panelBusbar,
   submittalCompleteness,

@@ -14,9 +14,14 @@ export interface CheckDefinition {
   run(ctx: import("./context").CheckContext): CheckResult[];
 }
 
-export interface ResultParts {
+/**
+ * A remedy, or a function that computes it: searches (conductor sizes, string lengths) run only when the result
+ * fails or warns. The function may find nothing to offer for a warning; every fail gets one (a test walks them).
+ */
+export type RemedySource = Remedy | (() => Remedy | undefined);
+
+interface CommonParts {
   subject?: string;
-  status: CheckStatus;
   message: string;
   reason?: string;
   values?: CheckValue[];
@@ -24,8 +29,14 @@ export interface ResultParts {
   inputs?: CheckInput[];
   missing?: string[];
   codeRefs: string[];
-  remedy?: Remedy;
 }
+
+/**
+ * A fail must say how to make it pass, so the type asks for a remedy whenever the status may be "fail"; warnings
+ * may offer one too (a larger conductor for voltage drop). Other statuses drop it.
+ */
+export type ResultParts = CommonParts &
+  ({ status: "fail"; remedy: RemedySource } | { status: Exclude<CheckStatus, "fail">; remedy?: RemedySource });
 
 function unique(list: string[]): string[] {
   const out: string[] = [];
@@ -49,14 +60,17 @@ export function makeResult(def: Pick<CheckDefinition, "id" | "title">, parts: Re
   };
   if (subject !== undefined) r.subject = subject;
   if (parts.reason !== undefined) r.reason = parts.reason;
-  if (parts.remedy !== undefined && parts.status === "fail") r.remedy = parts.remedy;
+  if (parts.remedy !== undefined && (parts.status === "fail" || parts.status === "warning")) {
+    const found = typeof parts.remedy === "function" ? parts.remedy() : parts.remedy;
+    if (found !== undefined) r.remedy = found;
+  }
   return r;
 }
 
 /** A needs-input result that names every missing field. */
 export function needsInput(
   def: Pick<CheckDefinition, "id" | "title">,
-  parts: Omit<ResultParts, "status" | "message"> & { message?: string; missing: string[] },
+  parts: Omit<CommonParts, "message"> & { message?: string; missing: string[] },
 ): CheckResult {
   const list = unique(parts.missing);
   return makeResult(def, {

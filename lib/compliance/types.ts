@@ -67,7 +67,7 @@ export interface CheckResult {
   missing: string[];
   /** Code references in the jurisdiction's edition, e.g. "NEC 2023 690.7(A)". At least one. */
   codeRefs: string[];
-  /** On a fail: the change that makes it pass. */
+  /** On every fail (and on some warnings): the change that makes it pass. */
   remedy?: Remedy;
 }
 

@@ -190,6 +190,7 @@ const FIELD_TEXT: Record<string, { label: string; help: string }> = {
   batteryVoltagesV: { label: "Battery voltages supported", help: "Nominal battery voltages the controller works with, e.g. 12, 24, 48." },
   hasPvDisconnect: { label: "PV disconnect built in", help: "The equipment carries a listed PV disconnect that counts for 690.13/690.15." },
   hasOvercurrentProtection: { label: "Overcurrent protection built in", help: "The equipment carries listed overcurrent protection for its PV or DC input." },
+  providesPvArcFaultProtection: { label: "PV arc-fault protection", help: "Listed to detect and interrupt DC arc faults on its PV input (UL 1699B), which meets 690.11." },
   // Inverter
   continuousW: { label: "Continuous power", help: "Continuous AC output power at the rated temperature." },
   surgeW: { label: "Surge power", help: "Short-time surge output for motor starts; the datasheet names the duration." },

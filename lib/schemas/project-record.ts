@@ -122,6 +122,8 @@ export const chargeControllerSchema = z.object({
   batteryVoltagesV: z.array(numberIn(6, 1000, "V")).default([]),
   hasPvDisconnect: z.boolean().default(false),
   hasOvercurrentProtection: z.boolean().default(false),
+  /** Listed to detect and interrupt DC arc faults on the PV input (UL 1699B), so it meets 690.11; unset when not known. */
+  providesPvArcFaultProtection: z.boolean().optional(),
 });
 
 export const mpptInputSchema = z.object({
@@ -153,6 +155,8 @@ export const inverterSchema = z.object({
   mpptInputs: z.array(mpptInputSchema).default([]),
   hasPvDisconnect: z.boolean().default(false),
   hasOvercurrentProtection: z.boolean().default(false),
+  /** Listed to detect and interrupt DC arc faults on the PV input (UL 1699B), so it meets 690.11; unset when not known. */
+  providesPvArcFaultProtection: z.boolean().optional(),
   listedMode: z.enum(["stand-alone", "multimode", "interactive"]).optional(),
 });
 

@@ -107,8 +107,11 @@ test("a new designer enters a stand-alone system with a generator and sees the m
   await expect(fail.getByRole("table", { name: /Values of Maximum PV system voltage/ })).toBeVisible();
   await expect(page.locator(":focus")).toHaveAttribute("name", /^(arrays|equipment|site)\./);
 
-  // Two in series passes.
-  await page.getByLabel("Modules in series, array row 1").fill("2");
+  // The failing result offers the longest string that fits (150 V ÷ 54.26 V per module → 2); Apply sets the field.
+  const remedy = fail.locator('[data-check-id="max-pv-voltage:PV-1"]').getByTestId("remedy");
+  await expect(remedy).toContainText("at most 2 modules in series");
+  await remedy.getByRole("button", { name: "Apply" }).click();
+  await expect(page.getByLabel("Modules in series, array row 1")).toHaveValue("2");
   await expect(checksGroup(page, "pass").getByText(/PV-1: 108\.5 V at -20 °C, within/)).toBeVisible();
   await expect(fail.getByText(/PV-1: .* exceeds/)).toHaveCount(0);
 

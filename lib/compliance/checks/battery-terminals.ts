@@ -4,6 +4,7 @@
  * (110.14(A): terminals take the number of conductors they are identified for).
  */
 import { equipmentOfKind, Trace, v, type CheckContext } from "../context";
+import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
@@ -48,6 +49,9 @@ export const batteryTerminals: CheckDefinition = {
           ? `${b.item.tag}: ${count} conductors on each terminal, more than the ${limit} allowed; land them on a bus bar${toBus ? " and run one circuit from it to the battery" : ""}.`
           : `${b.item.tag}: ${count} conductor${count === 1 ? "" : "s"} on each terminal, within ${limit}.`,
         ...(over ? { reason: `${count} > ${limit} connections per terminal` } : {}),
+        remedy: remedy(
+          `Land the ${count} conductors on a bus bar rated for the bank's current and run one conductor set from it to each terminal of ${b.item.tag} (${limit} allowed per terminal).`,
+        ),
         values,
         formula: `Σ conductors of ${circuits.map((c) => c.item.tag).join(", ")} = ${count} ≤ ${limit}`,
         inputs: t.inputs,

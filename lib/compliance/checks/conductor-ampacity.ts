@@ -1,9 +1,11 @@
 /** 4. Conductor ampacity with conditions of use (690.8(B), 310.15, Table 310.16, 110.14(C)). */
-import { isPvCircuit, sizeLabel, type CheckContext } from "../context";
-import { conductorAmpacity } from "../derive/conductor";
+import { isPvCircuit, sizeLabel, type CheckContext, type Indexed } from "../context";
+import type { Circuit } from "../../schemas/project-record";
+import { ampacityShortfalls, conductorAmpacity, type ConductorAmpacity } from "../derive/conductor";
+import { conductorRemedy, remedy, smallestConductor } from "../derive/remedy";
 import { localRef, refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
-import type { CheckResult } from "../types";
+import type { CheckResult, Remedy } from "../types";
 
 export const conductorAmpacityCheck: CheckDefinition = {
   id: "conductor-ampacity",
@@ -30,24 +32,7 @@ export const conductorAmpacityCheck: CheckDefinition = {
         continue;
       }
       const a = d.value;
-      const problems: string[] = [];
-      if (a.tableAtTerminalA === undefined || a.tableAtInsulationA === undefined) {
-        problems.push(`Table 310.16 gives no ${a.terminalRatingC} °C ampacity for ${sizeLabel(c.size!, c.material)}`);
-      } else {
-        if (a.correction === undefined) problems.push(`${a.insulationRatingC} °C insulation may not be used at ${a.ambientC} °C`);
-        if (a.tableAtTerminalA * a.sets < a.requiredUnadjustedA) {
-          problems.push(
-            `${sizeLabel(c.size!, c.material)} at the ${a.terminalRatingC} °C terminal column carries ${a.tableAtTerminalA * a.sets} A, less than the ${a.requiredUnadjustedA.toFixed(1)} A required`,
-          );
-        }
-        const corrected = a.correction !== undefined ? a.tableAtInsulationA * a.correction * a.adjustment * a.sets : 0;
-        if (a.correction !== undefined && corrected < a.requiredAdjustedA) {
-          problems.push(`under conditions of use it carries ${corrected.toFixed(1)} A, less than the ${a.requiredAdjustedA.toFixed(1)} A required`);
-        }
-      }
-      if (c.parallelSets > 1 && c.size !== undefined && ["18", "16", "14", "12", "10", "8", "6", "4", "3", "2", "1"].includes(c.size)) {
-        problems.push(`conductors in parallel must be 1/0 or larger`);
-      }
+      const problems = ampacityShortfalls(a, c, c.size!);
       const status = problems.length ? "fail" : "pass";
       out.push(
         makeResult(this, {
@@ -58,6 +43,7 @@ export const conductorAmpacityCheck: CheckDefinition = {
               ? `${c.tag}: ${sizeLabel(c.size!, c.material)} allows ${a.allowedA!.toFixed(1)} A for a ${a.current.currentA.toFixed(1)} A circuit${a.terminalAssumed ? ` (terminals taken as ${a.terminalRatingC} °C per 110.14(C)(1); record the rating)` : ""}.`
               : `${c.tag}: ${problems.join("; ")}.`,
           ...(status === "fail" ? { reason: problems.join("; ") } : a.terminalAssumed ? { reason: "terminal temperature rating not recorded; the 110.14(C)(1) default was used" } : {}),
+          remedy: () => ampacityRemedy(ctx, ci, a),
           values: d.values,
           formula: d.formula,
           inputs: d.inputs,
@@ -68,3 +54,14 @@ export const conductorAmpacityCheck: CheckDefinition = {
     return out;
   },
 };
+
+function ampacityRemedy(ctx: CheckContext, ci: Indexed<Circuit>, a: ConductorAmpacity): Remedy {
+  const need = `${Math.max(a.requiredUnadjustedA, a.requiredAdjustedA).toFixed(1)} A`;
+  const choice = smallestConductor(ctx, ci);
+  if (choice) return conductorRemedy(ci, choice, `for the ${need} required`);
+  return remedy(
+    a.correction === undefined
+      ? `${a.insulationRatingC} °C insulation cannot be used at ${a.ambientC} °C: choose insulation rated 90 °C, or route the run where it is cooler.`
+      : `No single conductor size carries ${need} here: run conductors in parallel (1/0 and larger), or change the conditions of use (fewer conductors in the raceway, a cooler route).`,
+  );
+}

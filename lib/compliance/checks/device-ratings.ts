@@ -9,6 +9,7 @@ import { circuitArrayTag, isDcCircuit, isInverter, isPvCircuit, Trace, v, type C
 import { arrayMaxVoltage } from "../derive/pv";
 import { batteries } from "../derive/battery";
 import { circuitCurrent } from "../derive/circuit-current";
+import { remedy } from "../derive/remedy";
 import { localRef, refs, storageRefs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
 import type { CheckResult, CheckStatus } from "../types";
@@ -43,6 +44,8 @@ export const deviceRatings: CheckDefinition = {
       const t = new Trace();
       const statuses: CheckStatus[] = ["pass"];
       const problems: string[] = [];
+      /** What replaces the device, one line per problem, with the figure the replacement must reach. */
+      const fixes: string[] = [];
       const values = [];
       const codeRefs = refs(ed, "listing-use", "interrupting-rating");
       const type = t.need(`${dev.path}.currentType`, `AC/DC rating of ${tag}`, e.currentType);
@@ -69,16 +72,19 @@ export const deviceRatings: CheckDefinition = {
         statuses.push("fail");
         problems.push(`${tag} is rated for AC only but sits on DC circuit${circuits.length > 1 ? "s" : ""} ${circuits.filter((c) => isDcCircuit(c.item)).map((c) => c.item.tag).join(", ")}; DC arcs need a DC-rated device`);
         if (circuits.some((c) => c.item.kind === "pv-source" || c.item.kind === "pv-output")) codeRefs.push(...refs(ed, "pv-listing"));
+        fixes.push(`a DC rating at ${maxV > 0 ? `${Math.ceil(maxV)} V` : "the circuit's voltage"} or more`);
       }
       if (type === "dc" && anyAc) {
         statuses.push("fail");
         problems.push(`${tag} is rated for DC only but sits on an AC circuit`);
+        fixes.push("an AC rating");
       }
       if (rating !== undefined && maxV > 0) {
         values.push(v("voltageRatingV", `Voltage rating of ${tag}`, rating, "V"), v("circuitMaxV", "Highest circuit voltage", maxV, "V"));
         if (rating < maxV) {
           statuses.push("fail");
           problems.push(`${tag} is rated ${rating} V, below the circuit's ${maxV.toFixed(1)} V`);
+          fixes.push(`a voltage rating of at least ${Math.ceil(maxV)} V`);
         }
       }
       const protectsBattery = (e.kind === "fuse" || e.kind === "breaker") && onBattery.length > 0;
@@ -91,6 +97,7 @@ export const deviceRatings: CheckDefinition = {
           if (ir < faultA) {
             statuses.push("fail");
             problems.push(`${tag} interrupts ${ir} A, below the battery bank's ${faultA} A available fault current (110.9)`);
+            fixes.push(`an interrupting rating of at least ${faultA} A (for instance a class T fuse)`);
           }
         }
         if (onBattery.some((c) => touchesBattery(c.item)) || circuits.some((c) => touchesBattery(c.item))) {
@@ -100,6 +107,7 @@ export const deviceRatings: CheckDefinition = {
             if (dist > BATTERY_OCPD_NEAR_FT) {
               statuses.push("warning");
               problems.push(`${tag} stands ${dist} ft from the battery; battery protection belongs as close as practicable to the terminals`);
+              fixes.push(`a place within ${BATTERY_OCPD_NEAR_FT} ft of the battery terminals`);
             }
           }
         }
@@ -116,6 +124,7 @@ export const deviceRatings: CheckDefinition = {
           status,
           message: status === "pass" ? `${tag}: ${e.currentType?.toUpperCase()}-rated ${rating} V${protectsBattery ? `, interrupts ${e.interruptingRatingA} A` : ""} — suits ${circuits.map((c) => c.item.tag).join(", ")}.` : `${tag}: ${problems.join("; ")}.`,
           ...(status === "pass" ? {} : { reason: problems.join("; ") || `missing ${t.missing.join(", ")}` }),
+          remedy: () => (fixes.length ? remedy(`Replace ${tag} with a device that has ${fixes.join(", ")}.`) : undefined),
           values,
           formula: `${anyDc ? "DC-rated, " : ""}voltage rating ≥ ${maxV ? maxV.toFixed(1) : "—"} V${protectsBattery ? `, interrupting rating ≥ ${faultA ?? "—"} A` : ""}`,
           inputs: t.inputs,
@@ -147,6 +156,7 @@ export const deviceRatings: CheckDefinition = {
               ? `${e.tag}: listed (${listing}) for ${mode} operation, which suits a ${ctx.record.systemKind} system.`
               : `${e.tag}: listed for ${mode} operation, but a ${ctx.record.systemKind} system needs ${okModes.join(" or ")}.`,
             ...(ok ? {} : { reason: `an inverter listed ${mode} may not run ${standAlone ? "without the grid" : "interconnected"}` }),
+            remedy: remedy(`Use an inverter listed for ${okModes.join(" or ")} operation (UL 1741), and record its listed mode.`),
             values: [v("listedMode", "Listed mode", mode, "")],
             inputs: t.inputs,
             codeRefs,
@@ -166,6 +176,7 @@ export const deviceRatings: CheckDefinition = {
             status: ok ? "pass" : "fail",
             message: ok ? `${e.tag}: storage listed (${listing}).` : `${e.tag}: storage is not recorded as listed as an energy storage system (UL 9540); recorded: ${listing}.`,
             ...(ok ? {} : { reason: "energy storage systems must be listed" }),
+            remedy: remedy(`Use storage listed as an energy storage system to UL 9540, and record the listing.`),
             inputs: t.inputs,
             codeRefs,
           }),

@@ -4,10 +4,11 @@
  * the equipment counts when the equipment record says so.
  */
 import type { Circuit } from "../../schemas/project-record";
-import { equipmentOfKind, isInverter, Trace, type CheckContext, type Indexed } from "../context";
+import { equipmentOfKind, isDcCircuit, isInverter, Trace, type CheckContext, type Indexed } from "../context";
+import { remedy } from "../derive/remedy";
 import { refs, storageRefs } from "../refs";
 import { makeResult, type CheckDefinition } from "../result";
-import type { CheckResult } from "../types";
+import type { CheckResult, Remedy } from "../types";
 
 const SWITCHING = new Set(["disconnect", "breaker"]);
 
@@ -43,7 +44,7 @@ export const disconnects: CheckDefinition = {
   run(ctx: CheckContext): CheckResult[] {
     const ed = ctx.edition;
     const out: CheckResult[] = [];
-    const report = (subject: string, found: string[], builtIn: string | undefined, what: string, codeRefs: string[], t: Trace, noCircuits: boolean) => {
+    const report = (subject: string, found: string[], builtIn: string | undefined, what: string, codeRefs: string[], t: Trace, noCircuits: boolean, circuits: Indexed<Circuit>[] = []) => {
       if (found.length || builtIn) {
         out.push(
           makeResult(this, {
@@ -73,6 +74,7 @@ export const disconnects: CheckDefinition = {
             status: "fail",
             message: `${subject}: no disconnecting means — ${what.replace(/^isolated/, "it must be isolated")}.`,
             reason: `no disconnect or breaker on the circuits of ${subject}, and none built in`,
+            remedy: addDisconnectRemedy(subject, circuits),
             inputs: t.inputs,
             codeRefs,
           }),
@@ -88,14 +90,14 @@ export const disconnects: CheckDefinition = {
       const builtIn = fed && "hasPvDisconnect" in fed.item && fed.item.hasPvDisconnect ? `the PV disconnect built into ${fed.item.tag}` : undefined;
       if (fed && "hasPvDisconnect" in fed.item) t.read(`${fed.path}.hasPvDisconnect`, `PV disconnect built into ${fed.item.tag}`, fed.item.hasPvDisconnect);
       t.read(`${path}.feedsTag`, "Equipment fed", array.feedsTag);
-      report(array.tag, [...new Set(found)], builtIn, "isolated from the equipment it feeds", refs(ed, "pv-disconnect", "pv-equipment-disconnect"), t, circuits.length === 0 && !builtIn);
+      report(array.tag, [...new Set(found)], builtIn, "isolated from the equipment it feeds", refs(ed, "pv-disconnect", "pv-equipment-disconnect"), t, circuits.length === 0 && !builtIn, circuits);
     }
 
     for (const b of equipmentOfKind(ctx, "battery")) {
       const t = new Trace();
       const near = circuitsNear(ctx, b.item.tag);
       const found = near.flatMap((c) => switchingDevicesOn(ctx, c.item));
-      report(b.item.tag, [...new Set(found)], undefined, "isolated from every circuit it feeds", storageRefs(ctx, "ess-disconnect"), t, near.length === 0);
+      report(b.item.tag, [...new Set(found)], undefined, "isolated from every circuit it feeds", storageRefs(ctx, "ess-disconnect"), t, near.length === 0, near);
     }
 
     for (const g of equipmentOfKind(ctx, "generator")) {
@@ -103,7 +105,7 @@ export const disconnects: CheckDefinition = {
       const near = ctx.circuitsByEndpoint.get(g.item.tag) ?? [];
       t.read(`${g.path}.hasOutputDisconnect`, "Output disconnect built in", g.item.hasOutputDisconnect);
       const found = near.flatMap((c) => switchingDevicesOn(ctx, c.item));
-      report(g.item.tag, [...new Set(found)], g.item.hasOutputDisconnect ? `the output disconnect built into ${g.item.tag}` : undefined, "isolated from the system", refs(ed, "generator-disconnect"), t, near.length === 0 && !g.item.hasOutputDisconnect);
+      report(g.item.tag, [...new Set(found)], g.item.hasOutputDisconnect ? `the output disconnect built into ${g.item.tag}` : undefined, "isolated from the system", refs(ed, "generator-disconnect"), t, near.length === 0 && !g.item.hasOutputDisconnect, near);
     }
 
     for (const inv of ctx.record.equipment.map((item, index) => ({ item, index, path: `equipment.${index}` })).filter((e) => isInverter(e.item))) {
@@ -129,6 +131,10 @@ export const disconnects: CheckDefinition = {
             status: "fail",
             message: `${inv.item.tag}: no disconnecting means on its ${missingSides.join(" and ")} side.`,
             reason: `the ${missingSides.join(" and ")} circuits of ${inv.item.tag} carry no disconnect or breaker`,
+            remedy: addDisconnectRemedy(
+              inv.item.tag,
+              [...(missingSides.includes("DC input") ? dc : []), ...(missingSides.includes("AC output") ? ac : [])],
+            ),
             inputs: t.inputs,
             codeRefs,
           }),
@@ -140,3 +146,12 @@ export const disconnects: CheckDefinition = {
     return out;
   },
 };
+
+/** The missing device: where it goes and what it must be rated for. */
+function addDisconnectRemedy(subject: string, circuits: Indexed<Circuit>[]): Remedy {
+  const on = circuits.length ? ` on ${circuits.map((c) => c.item.tag).join(" or ")}` : "";
+  const dc = circuits.some((c) => isDcCircuit(c.item));
+  return remedy(
+    `Add a ${dc ? "DC-rated " : ""}disconnect or breaker${on}, rated for the circuit's voltage and current, and record it among the circuit's disconnects (or use equipment with one built in) so ${subject} can be isolated.`,
+  );
+}

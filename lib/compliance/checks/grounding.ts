@@ -6,6 +6,7 @@
 import { compareConductorSize, minimumEgcSize, nextStandardOcpdRatingA } from "../tables";
 import { isDcCircuit, isPvCircuit, sizeLabel, Trace, v, type CheckContext, isProtective } from "../context";
 import { circuitCurrent } from "../derive/circuit-current";
+import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
@@ -55,6 +56,7 @@ export const grounding: CheckDefinition = {
             status: "fail",
             message: `${c.tag}: Table 250.122 has no EGC size for a ${ocpdA} A device.`,
             reason: "device rating outside Table 250.122",
+            remedy: remedy(`Table 250.122 stops at 6000 A: size the EGC by engineering supervision, or divide the circuit so each device is within the table.`),
             inputs: t.inputs,
             codeRefs,
           }),
@@ -73,6 +75,7 @@ export const grounding: CheckDefinition = {
             ? `${c.tag}: ${sizeLabel(egc, c.egcMaterial)} EGC meets the ${sizeLabel(required)} minimum for ${basis}.`
             : `${c.tag}: ${sizeLabel(egc, c.egcMaterial)} EGC is smaller than the ${sizeLabel(required)} that Table 250.122 requires for ${basis}.`,
           ...(ok ? {} : { reason: `EGC ${egc} below ${required}` }),
+          remedy: remedy(`Use a ${sizeLabel(required, c.egcMaterial)} EGC, the Table 250.122 size for ${basis}.`, { path: `${ci.path}.egcSize`, value: required }),
           values,
           formula: `Table 250.122 at ${ocpdA} A, ${c.egcMaterial} → ${table}${required !== table ? `, limited to the circuit conductor ${required} (250.122(A))` : ""}`,
           inputs: t.inputs,

@@ -6,6 +6,7 @@
  */
 import { isInverter, Trace, v, type CheckContext } from "../context";
 import { loadSummary } from "../load-summary";
+import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
 import type { CheckResult, CheckStatus } from "../types";
@@ -74,6 +75,12 @@ export const inverterCapacity: CheckDefinition = {
             ? `${continuousW} W continuous carries ${s.peakSimultaneousW} W of simultaneous loads; ${surgeW} W surge covers ${surgeNeedW} W.`
             : `${problems.join("; ")}.`,
         ...(status === "pass" ? {} : { reason: problems.join("; ") }),
+        remedy: () =>
+          continuousW < s.peakSimultaneousW || surgeW < surgeNeedW
+            ? remedy(
+                `Use inverter capacity of at least ${Math.max(continuousW, s.peakSimultaneousW)} W continuous and ${Math.max(surgeW, surgeNeedW)} W surge, or keep fewer loads running together (${continuousW} W continuous and ${surgeW} W surge are available now).`,
+              )
+            : undefined,
         values: [
           v("continuousW", "Inverter continuous output", continuousW, "W"),
           v("peakSimultaneousW", "Loads running together", s.peakSimultaneousW, "W"),

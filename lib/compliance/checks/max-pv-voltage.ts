@@ -3,7 +3,8 @@ import { Trace, v, type CheckContext, isProtective } from "../context";
 import { arrayMaxVoltage, arrayParts, pvInputOf } from "../derive/pv";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
-import type { CheckResult } from "../types";
+import type { CheckResult, Remedy } from "../types";
+import { remedy } from "../derive/remedy";
 
 /**
  * A ground-mounted array whose PV circuits are all recorded as staying outside buildings. An empty
@@ -72,6 +73,7 @@ export const maxPvVoltage: CheckDefinition = {
             status: "fail",
             message: `${array.tag}: ${vmax.toFixed(1)} V at ${d.value.lowTempC} °C exceeds the ${exceeded.map((l) => `${l.label} (${l.limitV} V)`).join(", ")}.`,
             reason: `maximum string voltage ${vmax.toFixed(1)} V is above ${exceeded.map((l) => `${l.limitV} V`).join(", ")}; fewer modules in series or equipment rated higher`,
+            remedy: () => seriesRemedy(parts.array.path, array.modulesInSeries, vmax, limits),
             values,
             formula: d.formula,
             inputs: t.inputs,
@@ -98,3 +100,15 @@ export const maxPvVoltage: CheckDefinition = {
     return out;
   },
 };
+
+/** 690.7: the longest string whose cold Voc stays within the lowest limit on the circuit (voltage scales with the count). */
+function seriesRemedy(arrayPath: string, n: number, vmaxV: number, limits: { label: string; limitV: number }[]): Remedy {
+  const tightest = limits.reduce((a, b) => (b.limitV < a.limitV ? b : a));
+  const perModuleV = vmaxV / n;
+  const fit = Math.floor(tightest.limitV / perModuleV + 1e-9);
+  if (fit < 1) return remedy(`One module alone reaches ${perModuleV.toFixed(1)} V at the design low temperature, above the ${tightest.label} (${tightest.limitV} V): choose equipment rated higher.`);
+  return remedy(
+    `Put at most ${fit} modules in series: ${fit} × ${perModuleV.toFixed(2)} V = ${(fit * perModuleV).toFixed(1)} V ≤ the ${tightest.label} (${tightest.limitV} V). Or choose equipment rated higher.`,
+    { path: `${arrayPath}.modulesInSeries`, value: fit },
+  );
+}

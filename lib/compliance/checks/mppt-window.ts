@@ -8,7 +8,10 @@ import { batteryMaxVoltage, systemBattery } from "../derive/battery";
 import { arrayParts, pvInputOf } from "../derive/pv";
 import { refs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
-import type { CheckResult, CheckStatus } from "../types";
+import type { PvArray } from "../../schemas/project-record";
+import type { Indexed } from "../context";
+import { arrayMaxVoltage } from "../derive/pv";
+import type { CheckResult, CheckStatus, Remedy, RemedyChange } from "../types";
 
 /** Module temperature above ambient at full sun, °C (common practice for rack and roof mounts). */
 export const DEFAULT_MODULE_TEMP_RISE_C = 30;
@@ -70,6 +73,7 @@ export const mpptWindow: CheckDefinition = {
       const statuses: CheckStatus[] = ["pass"];
       const problems: string[] = [];
       const low = floors.filter((f) => hotVmp < f.v);
+      let tooManyStrings: { isc: number; maxI: number } | undefined;
       if (low.length) {
         statuses.push("fail");
         problems.push(`hot Vmp ${hotVmp.toFixed(1)} V is below the ${low.map((f) => `${f.label} (${f.v.toFixed(1)} V)`).join(", ")}`);
@@ -81,6 +85,7 @@ export const mpptWindow: CheckDefinition = {
         if (arrI > maxI) {
           statuses.push("fail");
           problems.push(`array Isc ${arrI.toFixed(2)} A exceeds the input's ${maxI} A`);
+          tooManyStrings = { isc, maxI };
         }
       }
       const lowAmb = ctx.record.site.designLowTempC;
@@ -103,6 +108,7 @@ export const mpptWindow: CheckDefinition = {
               ? `${array.tag}: ${hotVmp.toFixed(1)} V at ${cellC} °C cell temperature stays inside the window of ${input.label}.`
               : `${array.tag}: ${problems.join("; ")}.`,
           ...(status === "pass" ? {} : { reason: problems.join("; ") }),
+          remedy: () => windowRemedy(ctx, parts.array, hotVmp, low, tooManyStrings, input.label, input.maxVoltageV),
           values,
           formula,
           inputs: t.inputs,
@@ -113,3 +119,43 @@ export const mpptWindow: CheckDefinition = {
     return out;
   },
 };
+
+/**
+ * The string length that keeps the hot Vmp above the window's floor without the cold Voc passing the input's
+ * maximum (690.7), and the number of strings whose Isc the input takes.
+ */
+function windowRemedy(
+  ctx: CheckContext,
+  array: Indexed<PvArray>,
+  hotVmpV: number,
+  low: { label: string; v: number }[],
+  tooManyStrings: { isc: number; maxI: number } | undefined,
+  inputLabel: string,
+  inputMaxV: number | undefined,
+): Remedy | undefined {
+  const n = array.item.modulesInSeries;
+  const lines: string[] = [];
+  const changes: RemedyChange[] = [];
+  if (low.length) {
+    const floor = Math.max(...low.map((f) => f.v));
+    const need = Math.ceil(floor / (hotVmpV / n) - 1e-9);
+    const cold = arrayMaxVoltage(ctx, array.item.tag);
+    const coldAtNeed = cold.ok ? (cold.value.maxVoltageV / n) * need : undefined;
+    const ceiling = Math.min(inputMaxV ?? Infinity, ctx.record.site.occupancy === "one-two-family-dwelling" ? 600 : 1000);
+    if (coldAtNeed !== undefined && coldAtNeed > ceiling) {
+      lines.push(`No string length fits: ${need} modules clear ${floor.toFixed(1)} V when hot but reach ${coldAtNeed.toFixed(1)} V when cold, above ${ceiling} V; choose an input with a lower tracking voltage.`);
+    } else {
+      lines.push(`Put at least ${need} modules in series: ${need} × ${(hotVmpV / n).toFixed(2)} V = ${((hotVmpV / n) * need).toFixed(1)} V when hot, above ${floor.toFixed(1)} V${coldAtNeed !== undefined ? `, and ${coldAtNeed.toFixed(1)} V when cold` : ""}.`);
+      changes.push({ path: `${array.path}.modulesInSeries`, value: need });
+    }
+  }
+  if (tooManyStrings) {
+    const strings = Math.floor(tooManyStrings.maxI / tooManyStrings.isc + 1e-9);
+    if (strings < 1) lines.push(`One string's Isc (${tooManyStrings.isc} A) is above ${inputLabel}'s ${tooManyStrings.maxI} A: choose an input rated for it.`);
+    else {
+      lines.push(`Land at most ${strings} string${strings === 1 ? "" : "s"} on ${inputLabel}: ${strings} × ${tooManyStrings.isc} A ≤ ${tooManyStrings.maxI} A; put the rest on another input.`);
+      changes.push({ path: `${array.path}.stringsInParallel`, value: strings });
+    }
+  }
+  return lines.length ? { text: lines.join(" "), changes } : undefined;
+}

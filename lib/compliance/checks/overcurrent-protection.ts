@@ -4,23 +4,18 @@
  * and parallel strings that could back-feed a faulted string beyond the
  * module's series fuse rating are fused.
  */
-import { nextStandardOcpdRatingA, smallConductorMaxOcpdA, STANDARD_OCPD_RATINGS_A, standardOcpdRatingsA } from "../tables";
+import { nextStandardOcpdRatingA, smallConductorMaxOcpdA, standardOcpdRatingsA } from "../tables";
 import type { Circuit } from "../../schemas/project-record";
 import { circuitArrayTag, isPvCircuit, sizeLabel, Trace, v, type CheckContext, type Indexed } from "../context";
 import { circuitCurrent } from "../derive/circuit-current";
 import { conductorAmpacity } from "../derive/conductor";
 import { arrayIsc, arrayParts } from "../derive/pv";
+import { maxProtectiveRatingA } from "../derive/remedy";
+import { missingDeviceRemedy, ocpdRemedy, stringFuseRemedy } from "../derive/ocpd-remedy";
 import { localRef, refs, storageRefs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
 import { CIRCUIT_KIND_WORDS, withArticle } from "../../schemas/vocabulary";
-
-/** Largest device that protects a conductor of `allowedA`: the ampacity, or the next standard rating up to 800 A (240.4(B)). */
-export function maxProtectiveRatingA(allowedA: number): number {
-  if (STANDARD_OCPD_RATINGS_A.includes(allowedA)) return allowedA;
-  if (allowedA <= 800) return nextStandardOcpdRatingA(allowedA) ?? allowedA;
-  return allowedA;
-}
 
 /**
  * The module's maximum series fuse rating where the circuit's device protects a string: every PV source circuit,
@@ -96,6 +91,7 @@ export const overcurrentProtection: CheckDefinition = {
                   status: "fail",
                   message: `${c.tag}: ${strings} strings of ${arrayTag} are paralleled and can feed ${faultFromOthersA.toFixed(1)} A into a faulted string, above the module's ${fuse} A series fuse rating; fuse each string${sources.length === 0 ? " (record the PV source circuits with their fuses)" : ""}.`,
                   reason: "string fuses required on the source circuits",
+                  remedy: () => stringFuseRemedy(ctx, arrayTag, isc.value.iscA, fuse),
                   values,
                   formula: `1.25 × Isc × (${strings} − 1) = ${faultFromOthersA.toFixed(1)} A vs ${fuse} A`,
                   inputs: t.inputs,
@@ -151,6 +147,7 @@ export const overcurrentProtection: CheckDefinition = {
                 ? `${c.tag}: no string fuse needed — ${faultFromOthersA.toFixed(1)} A from the other strings is within the module's ${fuse} A series fuse rating.`
                 : `${c.tag}: string fuses required — ${strings} strings in parallel can feed ${faultFromOthersA.toFixed(1)} A into a faulted string, above the module's ${fuse} A series fuse rating.`,
               ...(ok ? {} : { reason: `no overcurrent device on a string that parallel strings can back-feed beyond ${fuse} A` }),
+              remedy: () => stringFuseRemedy(ctx, arrayTag, isc.ok ? isc.value.iscA : 0, fuse),
               values,
               formula: `1.25 × Isc × (${strings} − 1) = ${faultFromOthersA.toFixed(1)} A vs ${fuse} A`,
               inputs: t.inputs,
@@ -183,6 +180,7 @@ export const overcurrentProtection: CheckDefinition = {
             status: "fail",
             message: `${c.tag}: no overcurrent device named; ${withArticle(CIRCUIT_KIND_WORDS[c.kind])} circuit needs one (at least ${minStandardA ?? minA.toFixed(0)} A).`,
             reason: `no overcurrent device recorded in ${ci.path}.ocpdTag`,
+            remedy: () => missingDeviceRemedy(ctx, ci, minA),
             values: [v("minimumA", "Minimum device rating", minA, "A")],
             formula: `${factor} × ${I.toFixed(2)} A = ${minA.toFixed(2)} A → next standard rating ${minStandardA ?? "—"} A`,
             inputs: t.inputs,
@@ -246,6 +244,7 @@ export const overcurrentProtection: CheckDefinition = {
               ? `${c.tag}: ${e.tag} ${rating} A covers ${minA.toFixed(1)} A and protects the conductor (up to ${maxByAmpacity} A).`
               : `${c.tag}: ${[...problems, ...warnings].join("; ")}.`,
           ...(status === "pass" ? {} : { reason: [...problems, ...warnings].join("; ") }),
+          remedy: () => ocpdRemedy(ctx, ci, dev, kind, rating, minA, typeof seriesFuse === "number" ? seriesFuse : undefined),
           values,
           formula: `${minA.toFixed(2)} A ≤ ${rating} A ≤ min(240.4(B) ${maxByAmpacity ?? "—"} A${small !== undefined ? `, 240.4(D) ${small} A` : ""}${typeof seriesFuse === "number" ? `, module series fuse ${seriesFuse} A` : ""})`,
           inputs: t.inputs,

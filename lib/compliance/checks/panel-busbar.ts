@@ -5,6 +5,7 @@
  */
 import { equipmentOfKind, isInverter, Trace, v, type CheckContext, isProtective } from "../context";
 import { circuitCurrent } from "../derive/circuit-current";
+import { largestStandardRatingA, nextStandardRatingA, remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
@@ -63,6 +64,16 @@ export const panelBusbar: CheckDefinition = {
                 : `${p.item.tag}: breakers other than the main total ${sum! - main} A ≤ the ${bus} A bus (sum-of-breakers rule).`
               : `${p.item.tag}: 125 % of ${sourceA.toFixed(1)} A + ${main} A main = ${lhs.toFixed(1)} A exceeds 120 % of the ${bus} A bus (${rhs.toFixed(0)} A); downsize the main, upsize the bus or connect on the supply side.`,
             ...(ok ? {} : { reason: "neither the 120 % rule nor the sum-of-breakers rule is met" }),
+            remedy: () => {
+              const mainFit = largestStandardRatingA(ctx.edition, "breaker", rhs - 1.25 * sourceA);
+              const busNeed = Math.ceil(lhs / 1.2);
+              return remedy(
+                mainFit !== undefined
+                  ? `Lower the main of ${p.item.tag} to ${mainFit} A where the load calculation allows (1.25 × ${sourceA.toFixed(1)} A + ${mainFit} A ≤ ${rhs.toFixed(0)} A); or use a bus of at least ${busNeed} A, or connect on the supply side.`
+                  : `Use a bus of at least ${busNeed} A, or connect on the supply side.`,
+                ...(mainFit !== undefined ? [{ path: `${p.path}.mainBreakerA`, value: mainFit }] : []),
+              );
+            },
             values: [
               v("sourceA", "Inverter output current", sourceA, "A"),
               v("mainA", "Main breaker", main, "A"),
@@ -92,6 +103,13 @@ export const panelBusbar: CheckDefinition = {
             status: problems.length ? "fail" : "pass",
             message: problems.length ? `${p.item.tag}: ${problems.join("; ")}.` : `${p.item.tag}: ${bus} A bus${main !== undefined ? ` and ${main} A main` : ""} rated for the ${deviceSumA} A inverter output device.`,
             ...(problems.length ? { reason: problems.join("; ") } : {}),
+            remedy: () => {
+              if (deviceSumA > bus) return remedy(`Use a panel whose bus is rated at least ${deviceSumA} A, the inverter output device${feeds.length > 1 ? "s" : ""} it carries.`);
+              const mainFit = nextStandardRatingA(ctx.edition, "breaker", deviceSumA);
+              return mainFit !== undefined && mainFit <= bus
+                ? remedy(`Use a ${mainFit} A main: at least the ${deviceSumA} A output device and within the ${bus} A bus.`, { path: `${p.path}.mainBreakerA`, value: mainFit })
+                : remedy(`Use a main rated between ${deviceSumA} A and ${bus} A.`);
+            },
             values: [v("busA", "Bus rating", bus, "A"), v("outputDeviceA", "Inverter output device", deviceSumA, "A"), ...(main !== undefined ? [v("mainA", "Main breaker", main, "A")] : [])],
             formula: `output device ${deviceSumA} A ≤ bus ${bus} A${main !== undefined ? ` and ≤ main ${main} A` : ""}`,
             inputs: t.inputs,

@@ -8,6 +8,7 @@
  */
 import type { Circuit } from "../../schemas/project-record";
 import { equipmentOfKind, isPvCircuit, Trace, v, type CheckContext, type Indexed } from "../context";
+import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
@@ -105,6 +106,9 @@ export const rapidShutdown: CheckDefinition = {
           reason: method === "none" ? "the record states no rapid-shutdown method" : "rapidShutdownMethod is empty",
           inputs: t.inputs,
           missing: method === undefined ? ["rapidShutdownMethod"] : [],
+          remedy: remedy(
+            "Name the rapid-shutdown method (module-level shutdown devices, or a listed PV hazard control system) and record its devices with their quantity and the initiator.",
+          ),
           codeRefs,
         }),
       ];
@@ -115,6 +119,7 @@ export const rapidShutdown: CheckDefinition = {
           status: "fail",
           message: `Method "${method}" is named but no rapid-shutdown device is recorded.`,
           reason: "no equipment of kind rapid-shutdown",
+          remedy: remedy(`Record the ${method} rapid-shutdown devices (kind rapid-shutdown, with their quantity: one per module or pair of modules for module-level shutdown) and the initiator.`),
           inputs: t.inputs,
           codeRefs,
         }),
@@ -146,6 +151,9 @@ export const rapidShutdown: CheckDefinition = {
             status: "fail",
             message: `Shutdown by ${method} devices does not by itself meet 690.12(B)(2) inside the array boundary; use a listed PV hazard control system, 80 V or less within 30 s, or no exposed wiring or conductive parts.`,
             reason: "the record meets none of the inside-the-boundary requirements",
+            remedy: remedy(
+              "Use module-level shutdown devices listed to bring the conductors inside the array boundary to 80 V or less within 30 s, or a listed PV hazard control system, and record which one meets 690.12(B)(2).",
+            ),
             values,
             inputs: t.inputs,
             codeRefs: refsOut,

@@ -10,7 +10,9 @@ import { equipmentOfKind, Trace, v, type CheckContext } from "../context";
 import { loadSummary } from "../load-summary";
 import { refs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
-import type { CheckResult, CheckStatus } from "../types";
+import type { Equipment } from "../../schemas/project-record";
+import type { Indexed } from "../context";
+import type { CheckResult, CheckStatus, Remedy, RemedyChange } from "../types";
 
 /** Days of autonomy when the record names none (common practice: two to three). */
 export const DEFAULT_AUTONOMY_DAYS = 2;
@@ -85,6 +87,7 @@ export const standAloneSizing: CheckDefinition = {
             ? `Daily need ${Math.round(s.dailyTotalWh)} Wh; storage carries ${Number.isFinite(autonomy) ? `${autonomy.toFixed(1)} days` : "the loads indefinitely (no daily energy recorded)"} (target ${days}); the array yields about ${Math.round(arrayWhPerDay)} Wh a day.`
             : `${notes.join("; ")}.`,
         ...(status === "pass" ? {} : { reason: notes.join("; ") }),
+        remedy: () => sizingRemedy(ctx, bats, autonomy, days, arrayWhPerDay, s.dailyTotalWh),
         values: [
           v("dailyLoadWh", "AC loads per day", s.dailyLoadWh, "Wh"),
           v("inverterEfficiencyPct", "Inverter efficiency", s.inverterEfficiencyPct ?? "none", s.inverterEfficiencyPct === null ? "" : "%"),
@@ -104,3 +107,37 @@ export const standAloneSizing: CheckDefinition = {
     ];
   },
 };
+
+/**
+ * Storage and array scale with the number of units and strings, so the count that meets the target is the present
+ * count × target ÷ present figure, rounded up. Offered as a field change where one battery or one array is recorded.
+ */
+function sizingRemedy(
+  ctx: CheckContext,
+  bats: Indexed<Equipment & { quantity: number }>[],
+  autonomyDays: number,
+  targetDays: number,
+  arrayWhPerDay: number,
+  dailyWh: number,
+): Remedy | undefined {
+  const lines: string[] = [];
+  const changes: RemedyChange[] = [];
+  if (autonomyDays < targetDays && autonomyDays > 0) {
+    const total = bats.reduce((n, b) => n + b.item.quantity, 0);
+    const need = Math.ceil((total * targetDays) / autonomyDays - 1e-9);
+    if (bats.length === 1) {
+      lines.push(`Use ${need} × ${bats[0]!.item.tag} to carry ${targetDays} days (${total} carry ${autonomyDays.toFixed(1)}).`);
+      changes.push({ path: `${bats[0]!.path}.quantity`, value: need });
+    } else lines.push(`Add storage: about ${need} units of the present size carry ${targetDays} days (${total} carry ${autonomyDays.toFixed(1)}).`);
+  }
+  if (arrayWhPerDay < dailyWh && arrayWhPerDay > 0 && ctx.record.systemKind !== "stand-alone-generator") {
+    const arrays = [...ctx.arrays.values()];
+    if (arrays.length === 1) {
+      const a = arrays[0]!;
+      const need = Math.ceil((a.item.stringsInParallel * dailyWh) / arrayWhPerDay - 1e-9);
+      lines.push(`Use ${need} strings in ${a.item.tag} to yield the ${Math.round(dailyWh)} Wh a day (then check the input's current).`);
+      changes.push({ path: `${a.path}.stringsInParallel`, value: need });
+    } else lines.push(`Add about ${Math.round(((dailyWh - arrayWhPerDay) / arrayWhPerDay) * 100)} % more array to yield the ${Math.round(dailyWh)} Wh a day.`);
+  }
+  return lines.length ? { text: lines.join(" "), changes } : undefined;
+}

@@ -8,6 +8,7 @@
 import type { Circuit } from "../../schemas/project-record";
 import { equipmentOfKind, isInverter, round, Trace, v, type CheckContext, type EquipmentOf, type Indexed } from "../context";
 import { loadSummary } from "../load-summary";
+import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
 import type { CheckResult, CheckStatus } from "../types";
@@ -107,10 +108,13 @@ export const standAloneSupply: CheckDefinition = {
     const statuses: CheckStatus[] = ["pass"];
     const notes: string[] = [];
     const formulas: string[] = [];
+    /** What makes each failing point pass, with its figure. */
+    const fixes: string[] = [];
     const values = [v("continuousW", "Inverter continuous output", continuousW, "W"), v("largestSingleLoadW", "Largest single load", s.largestSingleLoadW, "W")];
     if (continuousW < s.largestSingleLoadW) {
       statuses.push("fail");
       notes.push(`${continuousW} W cannot carry the largest single load of ${s.largestSingleLoadW} W (710.15(A))`);
+      fixes.push(`Use inverter output of at least ${s.largestSingleLoadW} W continuous, the largest single load.`);
     }
     const refsOut = [...codeRefs];
     for (const inv of inverters) {
@@ -126,6 +130,7 @@ export const standAloneSupply: CheckDefinition = {
       else if (mwbc) {
         statuses.push("fail");
         notes.push(`${panel.item.tag} is fed by 120 V-only ${inverter.item.tag} and has multiwire branch circuits, which would overload the neutral (710.15(C))`);
+        fixes.push(`Replace the multiwire branch circuits in ${panel.item.tag} with two-wire circuits, or supply it at 120/240 V.`);
       }
       const outlets240 = ctx.record.loads.filter((l) => l.voltageV === 240);
       if (outlets240.length) {
@@ -147,6 +152,7 @@ export const standAloneSupply: CheckDefinition = {
         if (!(sumA < neutral)) {
           statuses.push("fail");
           notes.push(`the sources into ${panel.item.tag} sum to ${round(sumA, 1)} A, not less than its ${neutral} A neutral bus (710.15(C))`);
+          fixes.push(`Use a panel whose neutral bus is rated above ${round(sumA, 1)} A, the sum of the sources into it, or supply it at 120/240 V.`);
         }
       }
       notes.push(`the "single 120-volt supply" warning is required on ${panel.item.tag}`);
@@ -162,6 +168,7 @@ export const standAloneSupply: CheckDefinition = {
               ? `${notes.join("; ")}.`
               : `${continuousW} W carries the largest single load (${s.largestSingleLoadW} W)${notes.length ? `; ${notes.join("; ")}` : ""}.`,
             ...(failing ? { reason: notes.join("; ") } : {}),
+            remedy: () => (fixes.length ? remedy(fixes.join(" ")) : undefined),
             values,
             formula: [`inverter ${continuousW} W ≥ largest single load ${s.largestSingleLoadW} W`, ...formulas].join("; "),
             inputs: t.inputs,

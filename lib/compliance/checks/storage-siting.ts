@@ -9,7 +9,7 @@ import type { NecEdition } from "../../schemas/project-record";
 import { Trace, v, type CheckContext } from "../context";
 import { batteries, unitKWh } from "../derive/battery";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
-import type { CheckResult, CheckStatus } from "../types";
+import type { CheckResult, CheckStatus, RemedyChange } from "../types";
 
 /**
  * The fire code a jurisdiction usually adopts beside its NEC edition: NEC 2017 with the 2018 IFC (storage in
@@ -52,6 +52,8 @@ export const storageSiting: CheckDefinition = {
     const statuses: CheckStatus[] = ["pass"];
     const problems: string[] = [];
     const notes: string[] = [];
+    const fixes: string[] = [];
+    const changes: RemedyChange[] = [];
     const values = [];
     for (const b of bats) {
       const kwh = unitKWh(b, t);
@@ -64,6 +66,7 @@ export const storageSiting: CheckDefinition = {
         if (kwh > rules.maxUnitKWh) {
           statuses.push("fail");
           problems.push(`${b.item.tag} holds ${kwh} kWh per unit, above the ${rules.maxUnitKWh} kWh limit (${rules.sections.energyRatings})`);
+          fixes.push(`Use storage units of at most ${rules.maxUnitKWh} kWh each.`);
         }
       }
       const listing = t.read(`${b.path}.listing`, `Listing of ${b.item.tag}`, b.item.listing || undefined);
@@ -72,6 +75,7 @@ export const storageSiting: CheckDefinition = {
       } else if (!/9540(?!A)/i.test(listing)) {
         statuses.push("fail");
         problems.push(`${b.item.tag} is not recorded as listed to UL 9540`);
+        fixes.push(`Use storage listed to UL 9540 for ${b.item.tag}.`);
       }
     }
     if (location === undefined || t.missing.length) {
@@ -80,6 +84,7 @@ export const storageSiting: CheckDefinition = {
     if (location === "habitable-room") {
       statuses.push("fail");
       problems.push(`storage may not stand in a habitable room, sleeping room or a closet opening into one (${rules.sections.locations})`);
+      fixes.push(`Move the storage to ${Object.keys(rules.aggregateKWhByLocation).filter((k) => k !== "habitable-room" && rules.aggregateKWhByLocation[k as keyof typeof rules.aggregateKWhByLocation] !== undefined).join(", ")}.`);
     }
     const local = r.jurisdiction.storageAggregateLimitKWh;
     const tableLimit = rules.aggregateKWhByLocation[location];
@@ -91,6 +96,13 @@ export const storageSiting: CheckDefinition = {
       if (totalKWh > limit) {
         statuses.push("fail");
         problems.push(`${totalKWh.toFixed(2)} kWh in the ${location} exceeds the ${limit} kWh allowed (${local !== undefined ? "local amendment" : rules.sections.energyRatings})`);
+        const only = bats.length === 1 ? bats[0]! : undefined;
+        const perUnit = only ? totalKWh / only.item.quantity : undefined;
+        const fit = perUnit ? Math.floor(limit / perUnit + 1e-9) : 0;
+        if (only && fit >= 1) {
+          fixes.push(`Keep at most ${fit} × ${only.item.tag} (${(fit * perUnit!).toFixed(1)} kWh) in the ${location}, and site the rest elsewhere.`);
+          changes.push({ path: `${only.path}.quantity`, value: fit });
+        } else fixes.push(`Keep at most ${limit} kWh in the ${location}, and site the rest elsewhere.`);
       }
     }
     if (units > 1 && !allFireTested) {
@@ -101,6 +113,8 @@ export const storageSiting: CheckDefinition = {
         if (spacing < rules.minSpacingIn) {
           statuses.push("fail");
           problems.push(`units stand ${spacing} in apart, less than ${rules.minSpacingIn} in, and not every unit is backed by large-scale fire testing (${rules.sections.spacing})`);
+          fixes.push(`Space the units at least ${rules.minSpacingIn} in apart (or use units backed by large-scale fire testing).`);
+          changes.push({ path: "site.batterySpacingIn", value: rules.minSpacingIn });
         }
       }
     }
@@ -110,6 +124,7 @@ export const storageSiting: CheckDefinition = {
       else if (!det) {
         statuses.push("fail");
         problems.push(`no smoke alarm or heat detector where the storage stands (${rules.sections.detection})`);
+        fixes.push(`Install a heat detector (or smoke alarm) interconnected with the dwelling's alarms where the storage stands, and record it.`);
       }
     }
     if (rules.requiresImpactProtectionIn.includes(location)) {
@@ -118,6 +133,7 @@ export const storageSiting: CheckDefinition = {
       else if (!imp) {
         statuses.push("fail");
         problems.push(`no vehicle-impact protection in the ${location} (${rules.sections.impactProtection})`);
+        fixes.push(`Protect the units from vehicle impact (bollards or a barrier), and record it.`);
       }
     }
     if (location === "accessory-building") notes.push("where vehicles can reach the units, protect them from impact");
@@ -136,6 +152,7 @@ export const storageSiting: CheckDefinition = {
             ? `${problems.join("; ")}.`
             : `${totalKWh.toFixed(2)} kWh in the ${location}${limit !== undefined ? ` (limit ${limit} kWh)` : ""}, units within ${rules.maxUnitKWh} kWh${notes.length ? `; confirm on site: ${notes.join("; ")}` : ""}.`,
         ...(status === "pass" ? {} : { reason: [...problems, ...notes].join("; ") }),
+        remedy: () => (fixes.length ? { text: fixes.join(" "), changes } : undefined),
         values,
         formula: `Σ unit kWh × quantity = ${totalKWh.toFixed(2)} kWh ≤ ${limit ?? "—"} kWh; each unit ≤ ${rules.maxUnitKWh} kWh`,
         inputs: t.inputs,

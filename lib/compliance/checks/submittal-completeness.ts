@@ -5,6 +5,7 @@
  */
 import { missingDocuments } from "../documents";
 import { Trace, v, type CheckContext } from "../context";
+import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
@@ -29,6 +30,7 @@ export const submittalCompleteness: CheckDefinition = {
         status: ok ? "pass" : "fail",
         message: ok ? `Every document ${r.jurisdiction.name} requires is attached (${r.attachments.length} attachments).` : `Incomplete submittal: ${missing.join("; ")}.`,
         ...(ok ? {} : { reason: missing.join("; ") }),
+        remedy: remedy(`Attach ${missing.join("; ")} on the project's attachments page.`),
         values: [v("attachments", "Attachments", r.attachments.length, ""), v("missingDocuments", "Missing documents", missing.length, "")],
         formula: `required: ${r.jurisdiction.requiredDocuments.join(", ") || "none"}`,
         inputs: t.inputs,

@@ -3,14 +3,15 @@
  * recommends a limit (informational notes), so a breach warns; 3 % by common
  * practice unless the jurisdiction sets its own.
  */
-import { dcResistanceOhmPerKft } from "../tables";
-import type { Circuit } from "../../schemas/project-record";
-import { circuitArrayTag, isPvCircuit, Trace, v, type CheckContext } from "../context";
+import { CONDUCTOR_SIZES_ASCENDING, compareConductorSize, dcResistanceOhmPerKft } from "../tables";
+import type { Circuit, ConductorSize } from "../../schemas/project-record";
+import { circuitArrayTag, isPvCircuit, sizeLabel, Trace, v, type CheckContext, type Indexed } from "../context";
 import { arrayParts } from "../derive/pv";
 import { circuitCurrent } from "../derive/circuit-current";
+import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
-import type { CheckResult } from "../types";
+import type { CheckResult, Remedy } from "../types";
 
 export const DEFAULT_VOLTAGE_DROP_LIMIT_PCT = 3;
 
@@ -89,6 +90,7 @@ export const voltageDrop: CheckDefinition = {
             ? `${c.tag}: ${pct.toFixed(2)} % drop exceeds ${limitNote}; a larger conductor or shorter run is recommended.`
             : `${c.tag}: ${pct.toFixed(2)} % drop, within ${limitNote}.`,
           ...(over ? { reason: `${pct.toFixed(2)} % is above ${limit} %; the NEC recommends, it does not require, a limit` } : {}),
+          remedy: () => dropRemedy(ci, size, r, pct, limit),
           values: [
             v("resistanceOhmPerKft", `Resistance of ${size} ${c.material}`, r, "Ω/kft"),
             v("currentA", "Operating current", I, "A"),
@@ -135,3 +137,20 @@ export const voltageDrop: CheckDefinition = {
     return out;
   },
 };
+
+/** The drop scales with the conductor's resistance, so the smallest size whose resistance brings it within the limit. */
+function dropRemedy(ci: Indexed<Circuit>, size: ConductorSize, ohmPerKft: number, pct: number, limitPct: number): Remedy | undefined {
+  for (const candidate of CONDUCTOR_SIZES_ASCENDING) {
+    if (compareConductorSize(candidate, size) <= 0) continue;
+    const r = dcResistanceOhmPerKft(ci.item.material, candidate);
+    if (r === undefined) continue;
+    const newPct = (pct * r) / ohmPerKft;
+    if (newPct <= limitPct) {
+      return remedy(`Use ${sizeLabel(candidate, ci.item.material)}: the drop falls to ${newPct.toFixed(2)} %, within ${limitPct} %.`, {
+        path: `${ci.path}.size`,
+        value: candidate,
+      });
+    }
+  }
+  return undefined;
+}

@@ -1,5 +1,5 @@
 /** Ampacity of a circuit's conductors under its conditions of use (310.15, 690.8(B), 110.14(C)). */
-import type { Circuit } from "../../schemas/project-record";
+import type { Circuit, ConductorSize } from "../../schemas/project-record";
 import {
   ampacityA,
   ambientCorrectionFactor,
@@ -8,7 +8,7 @@ import {
   rooftopTemperatureAdderC,
   type TempRatingC,
 } from "../tables";
-import { memo, Trace, v, type CheckContext, type Derived, type Indexed } from "../context";
+import { memo, sizeLabel, Trace, v, type CheckContext, type Derived, type Indexed } from "../context";
 import type { CheckValue } from "../types";
 import { circuitCurrent, type CircuitCurrent } from "./circuit-current";
 
@@ -34,6 +34,37 @@ export interface ConductorAmpacity {
 
 export function conductorAmpacity(ctx: CheckContext, ci: Indexed<Circuit>): Derived<ConductorAmpacity> {
   return memo(ctx, `conductor-ampacity:${ci.item.tag}`, () => compute(ctx, ci));
+}
+
+/** The ampacity the circuit would have with another conductor size (uncached: the remedy search tries several). */
+export function conductorAmpacityWithSize(ctx: CheckContext, ci: Indexed<Circuit>, size: ConductorSize): Derived<ConductorAmpacity> {
+  return compute(ctx, { ...ci, item: { ...ci.item, size } });
+}
+
+/** 310.10(G) (310.10(H) in 2017): conductors in parallel are 1/0 AWG and larger. */
+export function parallelSizeAllowed(c: Pick<Circuit, "parallelSets">, size: ConductorSize): boolean {
+  return c.parallelSets <= 1 || compareConductorSize(size, "1/0") >= 0;
+}
+
+/** Why a conductor of `size` does not carry its circuit; empty when it does. */
+export function ampacityShortfalls(a: ConductorAmpacity, c: Pick<Circuit, "parallelSets" | "material">, size: ConductorSize): string[] {
+  const problems: string[] = [];
+  if (a.tableAtTerminalA === undefined || a.tableAtInsulationA === undefined) {
+    problems.push(`Table 310.16 gives no ${a.terminalRatingC} °C ampacity for ${sizeLabel(size, c.material)}`);
+  } else {
+    if (a.correction === undefined) problems.push(`${a.insulationRatingC} °C insulation may not be used at ${a.ambientC} °C`);
+    if (a.tableAtTerminalA * a.sets < a.requiredUnadjustedA) {
+      problems.push(
+        `${sizeLabel(size, c.material)} at the ${a.terminalRatingC} °C terminal column carries ${a.tableAtTerminalA * a.sets} A, less than the ${a.requiredUnadjustedA.toFixed(1)} A required`,
+      );
+    }
+    const corrected = a.correction !== undefined ? a.tableAtInsulationA * a.correction * a.adjustment * a.sets : 0;
+    if (a.correction !== undefined && corrected < a.requiredAdjustedA) {
+      problems.push(`under conditions of use it carries ${corrected.toFixed(1)} A, less than the ${a.requiredAdjustedA.toFixed(1)} A required`);
+    }
+  }
+  if (!parallelSizeAllowed(c, size)) problems.push(`conductors in parallel must be 1/0 or larger`);
+  return problems;
 }
 
 function compute(ctx: CheckContext, ci: Indexed<Circuit>): Derived<ConductorAmpacity> {

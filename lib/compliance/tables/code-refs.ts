@@ -61,7 +61,8 @@ export type CodeTopic =
   | "voltage-drop"
   | "building-voltage-limit"
   | "string-fuse"
-  | "ess-ocpd";
+  | "ess-ocpd"
+  | "pv-arc-fault";
 
 type ByEdition = Readonly<Record<NecEdition, string>>;
 
@@ -149,6 +150,8 @@ export const CODE_REFS: Readonly<Record<CodeTopic, ByEdition>> = {
   "string-fuse": same("690.9(A)"),
   // Battery overcurrent protection near the battery: 706.31 in 2020/2023, 706.21 in 2017 (from memory).
   "ess-ocpd": { "2017": "706.21", "2020": "706.31", "2023": "706.31" },
+  // 690.11 DC arc-fault circuit protection: the same number since 2011 (from memory).
+  "pv-arc-fault": same("690.11"),
 };
 
 export const CODE_TOPICS = Object.keys(CODE_REFS) as readonly CodeTopic[];

@@ -43,7 +43,8 @@ describe("npm run check", () => {
     expect(check(notJson).code).toBe(2);
     expect(check(path.join(dir, "does-not-exist.json")).code).toBe(2);
     expect(check().code).toBe(2);
-  });
+    // Five command runs, each starting tsx: on a busy machine that takes well over the default per-test time.
+  }, 90_000);
 });
 
 describe("npm run check through a pipe", () => {
