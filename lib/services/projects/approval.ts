@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { packetRevisions, type PacketRevision } from "../../../db/schema";
 import { canonicalJson } from "../../canonical-json";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq, inArray, or } from "drizzle-orm";
 import { attachments, auditLog, packetRevisions, submissions, users } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";

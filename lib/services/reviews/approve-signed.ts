@@ -1,3 +1,4 @@
+import "server-only";
 import { eq } from "drizzle-orm";
 import { packetRevisions } from "../../../db/schema";
 import type { ServiceContext } from "../context";

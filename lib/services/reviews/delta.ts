@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq, inArray, lt } from "drizzle-orm";
 import { auditLog, packetRevisions, reviews, type PacketRevision } from "../../../db/schema";
 import { designOf, diffResults, diffValues, groupChanges, type ChangeGroup, type ResultChange } from "../../record-diff";

@@ -1,3 +1,4 @@
+import "server-only";
 import type { AttestDispositionRecord } from "../../../db/schema";
 import type { CheckRun } from "../../compliance/types";
 import type { DispositionInput, ReviewDecision } from "../../schemas/review";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { packetRevisions, packetSignatures, reviews } from "../../../db/schema";
 import { CertificateRefusedError, readP12, type CertificateSummary } from "../../signing/p12";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Db } from "../../../db/client";
 import { submissionEvents, type SubmissionEvent } from "../../../db/schema";

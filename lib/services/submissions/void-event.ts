@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import { submissionEvents, submissions } from "../../../db/schema";
 import { formatIssues } from "../../schemas/fields";

@@ -1,3 +1,4 @@
+import "server-only";
 import bcrypt from "bcryptjs";
 import { and, eq, sql } from "drizzle-orm";
 import { z } from "zod";
