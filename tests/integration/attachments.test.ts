@@ -139,7 +139,10 @@ describe("roles", () => {
     expect(datasheet.code).toBe("forbidden");
     const del = await caught(deleteAttachment(installer, photo.attachment.id));
     expect(del.code).toBe("forbidden");
-    expect(getAttachment(installer, photo.attachment.id).id).toBe(photo.attachment.id);
+    // An installer reads approved sets only: until the project has an approved revision, not even their own photo.
+    const read = await caught(() => getAttachment(installer, photo.attachment.id));
+    expect(read.code).toBe("not-found");
+    expect(getAttachment(designer, photo.attachment.id).id).toBe(photo.attachment.id);
   });
 
   it("refuses the permit office an upload, and lets it read the list", async () => {

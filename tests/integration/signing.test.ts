@@ -130,7 +130,10 @@ describe("approving with a signature", () => {
   });
 
   it("stamps and signs: the signature covers the whole file, pdfsig accepts it, and changing one byte breaks it", async () => {
-    const done = await approveAndSign(reviewer, { revisionId, confirmStamp: true, generalNotes: "Reviewed." }, { password: cert.password }, options);
+    // Every attest item of the stall's checks needs the reviewer's disposition before a stamp.
+    const attest = (revision(revisionId).resultsSnapshot as { results: { id: string; status: string }[] }).results.filter((r) => r.status === "attest");
+    const dispositions = attest.map((r) => ({ resultId: r.id, disposition: "accepted", note: `Confirmed on the site photos (${r.id}).` }));
+    const done = await approveAndSign(reviewer, { revisionId, confirmStamp: true, generalNotes: "Reviewed.", dispositions }, { password: cert.password }, options);
     expect(done.signed).toBe(true);
     const row = revision(revisionId);
     expect(row).toMatchObject({ reviewState: "approved", state: "ready" });
