@@ -2,7 +2,8 @@
 
 /**
  * Undo and redo over the whole record (Ctrl+Z, Ctrl+Shift+Z or Ctrl+Y): a
- * step is whatever the designer changed before pausing, in any cell, so
+ * step is whatever the designer changed before pausing or moving to another
+ * control, in any cell, so
  * undo puts back the last change to the design rather than the last
  * character typed in whichever cell has focus.
  */
@@ -39,8 +40,17 @@ export function useRecordHistory<T extends FieldValues>(form: UseFormReturn<T, u
       if (timer.current) clearTimeout(timer.current);
       timer.current = setTimeout(record, STEP_PAUSE_MS);
     });
+    // Moving to another control or pressing a button also closes the step, so a quick rename followed by a delete
+    // are two steps to undo, however fast the designer works.
+    const closeStep = () => {
+      if (timer.current) record();
+    };
+    window.addEventListener("pointerdown", closeStep, true);
+    window.addEventListener("focusin", closeStep, true);
     return () => {
       sub.unsubscribe();
+      window.removeEventListener("pointerdown", closeStep, true);
+      window.removeEventListener("focusin", closeStep, true);
       if (timer.current) clearTimeout(timer.current);
     };
   }, [form, record]);
