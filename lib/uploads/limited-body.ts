@@ -20,12 +20,14 @@ export function declaresMoreThan(request: Request, limitBytes: number): boolean 
   return Number.isFinite(declared) && declared > limitBytes;
 }
 
-/** The whole body, or BodyTooLargeError as soon as more than `limitBytes` have arrived. */
-export async function readBodyLimited(request: Request, limitBytes: number): Promise<Uint8Array> {
+/**
+ * Hands each chunk of the body to `onChunk` as it arrives, and throws BodyTooLargeError as soon as more than
+ * `limitBytes` have arrived (the stream is cancelled then). Returns the byte count.
+ */
+export async function forEachChunkLimited(request: Request, limitBytes: number, onChunk: (chunk: Uint8Array) => void): Promise<number> {
   if (declaresMoreThan(request, limitBytes)) throw new BodyTooLargeError(limitBytes);
-  if (!request.body) return new Uint8Array(0);
+  if (!request.body) return 0;
   const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
   let total = 0;
   for (;;) {
     const { done, value } = await reader.read();
@@ -35,8 +37,15 @@ export async function readBodyLimited(request: Request, limitBytes: number): Pro
       await reader.cancel().catch(() => undefined);
       throw new BodyTooLargeError(limitBytes);
     }
-    chunks.push(value);
+    onChunk(value);
   }
+  return total;
+}
+
+/** The whole body, or BodyTooLargeError as soon as more than `limitBytes` have arrived. */
+export async function readBodyLimited(request: Request, limitBytes: number): Promise<Uint8Array> {
+  const chunks: Uint8Array[] = [];
+  const total = await forEachChunkLimited(request, limitBytes, (chunk) => chunks.push(chunk));
   const out = new Uint8Array(total);
   let at = 0;
   for (const chunk of chunks) {

@@ -3,7 +3,7 @@ import { NextResponse } from "next/server";
 import { env } from "@/lib/env";
 import { checkStampedFile, SHA256_HEX } from "@/lib/services/verify/stamped-file";
 import { clientAddress, takeVerifyPoint } from "@/lib/services/verify/rate-limit";
-import { BodyTooLargeError, declaresMoreThan, readFormDataLimited } from "@/lib/uploads/limited-body";
+import { BodyTooLargeError, forEachChunkLimited, readFormDataLimited } from "@/lib/uploads/limited-body";
 
 /**
  * Public: checks whether a file is a stamped packet, by its SHA-256 or by the
@@ -29,22 +29,8 @@ function answer(sha256: string) {
 }
 
 async function hashStream(request: Request, limitBytes: number): Promise<string> {
-  if (declaresMoreThan(request, limitBytes)) throw new BodyTooLargeError(limitBytes);
   const hash = createHash("sha256");
-  if (request.body) {
-    const reader = request.body.getReader();
-    let total = 0;
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) break;
-      total += value.byteLength;
-      if (total > limitBytes) {
-        await reader.cancel().catch(() => undefined);
-        throw new BodyTooLargeError(limitBytes);
-      }
-      hash.update(value);
-    }
-  }
+  await forEachChunkLimited(request, limitBytes, (chunk) => hash.update(chunk));
   return hash.digest("hex");
 }
 
