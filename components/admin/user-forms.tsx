@@ -1,11 +1,11 @@
 "use client";
 
 import { useActionState } from "react";
-import { addUserAction, setActiveAction, setRolesAction } from "@/app/(app)/admin/users/actions";
+import { addUserAction, inviteUserAction, setActiveAction, setPasswordAction, setRolesAction } from "@/app/(app)/admin/users/actions";
 import type { ActionResult } from "@/lib/auth/action";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/auth/roles";
 
-function ResultLine({ state }: { state: ActionResult | null }) {
+function ResultLine({ state }: { state: ActionResult<unknown> | null }) {
   if (!state) return null;
   if (state.ok) return <p role="status" className="text-xs text-ok">{state.message}</p>;
   return (
@@ -21,6 +21,67 @@ function ResultLine({ state }: { state: ActionResult | null }) {
         </ul>
       ) : null}
     </div>
+  );
+}
+
+function RoleBoxes() {
+  return (
+    <fieldset>
+      <legend className="field-label">Roles</legend>
+      <div className="mt-1 flex flex-wrap gap-3 text-sm">
+        {ROLES.map((role) => (
+          <label key={role} className="inline-flex items-center gap-1">
+            <input type="checkbox" name={`role-${role}`} /> {ROLE_LABELS[role]}
+          </label>
+        ))}
+      </div>
+    </fieldset>
+  );
+}
+
+/** The usual way in: the person chooses their own first password from an e-mailed link. */
+export function InviteUserForm() {
+  const [state, action, pending] = useActionState(inviteUserAction, null);
+  return (
+    <form action={action} className="sheet grid gap-3 p-4 sm:grid-cols-2" aria-label="Invite a user">
+      <div>
+        <label htmlFor="invite-name" className="field-label">Name</label>
+        <input id="invite-name" name="name" className="input mt-1" required />
+      </div>
+      <div>
+        <label htmlFor="invite-email" className="field-label">E-mail</label>
+        <input id="invite-email" name="email" type="email" className="input mt-1" required />
+      </div>
+      <RoleBoxes />
+      <div className="flex items-center gap-3 sm:col-span-2">
+        <button className="btn" type="submit" disabled={pending}>
+          {pending ? "Sending…" : "Send invitation"}
+        </button>
+        <ResultLine state={state} />
+      </div>
+    </form>
+  );
+}
+
+/** For a person who forgot their password and cannot receive e-mail: they replace this one at their next sign-in. */
+export function SetPasswordForm({ userId, version, name }: { userId: string; version: number; name: string }) {
+  const [state, action, pending] = useActionState(setPasswordAction, null);
+  return (
+    <details className="text-sm">
+      <summary className="cursor-pointer text-ink-soft">Set a password</summary>
+      <form action={action} aria-label={`Set a password for ${name}`} className="mt-2 flex flex-wrap items-center gap-2">
+        <input type="hidden" name="userId" value={userId} />
+        <input type="hidden" name="version" value={version} />
+        <label htmlFor={`set-password-${userId}`} className="sr-only">
+          New password for {name} (12+ characters)
+        </label>
+        <input id={`set-password-${userId}`} name="password" type="text" minLength={12} className="input w-48" autoComplete="off" required placeholder="12+ characters" />
+        <button className="btn-quiet" type="submit" disabled={pending}>
+          Set password
+        </button>
+        <ResultLine state={state} />
+      </form>
+    </details>
   );
 }
 
@@ -40,16 +101,7 @@ export function AddUserForm() {
         <label htmlFor="new-password" className="field-label">First password (12+ characters)</label>
         <input id="new-password" name="password" type="text" minLength={12} className="input mt-1" required autoComplete="off" />
       </div>
-      <fieldset>
-        <legend className="field-label">Roles</legend>
-        <div className="mt-1 flex flex-wrap gap-3 text-sm">
-          {ROLES.map((role) => (
-            <label key={role} className="inline-flex items-center gap-1">
-              <input type="checkbox" name={`role-${role}`} /> {ROLE_LABELS[role]}
-            </label>
-          ))}
-        </div>
-      </fieldset>
+      <RoleBoxes />
       <div className="flex items-center gap-3 sm:col-span-2">
         <button className="btn" type="submit" disabled={pending}>
           {pending ? "Adding…" : "Add user"}

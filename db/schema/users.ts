@@ -23,6 +23,11 @@ export const users = sqliteTable(
      * request whose token carries an older one is signed out.
      */
     sessionVersion: integer("session_version").notNull().default(0),
+    /**
+     * Set when someone other than the person chose the password (an admin, at
+     * adding or resetting): every page asks for a new one until it is changed.
+     */
+    mustChangePassword: integer("must_change_password", { mode: "boolean" }).notNull().default(false),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),

@@ -28,8 +28,16 @@ export const currentContext = cache(async function currentContext(): Promise<Ser
   }
 });
 
-/** As currentContext, but throws the typed 401 for route handlers and actions. */
-export async function requireContext(): Promise<ServiceContext> {
+/**
+ * As currentContext, but throws the typed 401 for route handlers and actions.
+ * A person still holding a password an admin chose gets 403 from everything
+ * but the password change itself (pages are sent there by the proxy).
+ */
+export async function requireContext(options: { passwordChange?: boolean } = {}): Promise<ServiceContext> {
   const session = await auth();
-  return contextForUser(getDb(), session?.user?.id, tokenSessionVersion(session));
+  const ctx = contextForUser(getDb(), session?.user?.id, tokenSessionVersion(session));
+  if (ctx.mustChangePassword && !options.passwordChange) {
+    throw new ServiceError("forbidden", "Choose your own password first, on the Password page: an administrator set the one you signed in with.");
+  }
+  return ctx;
 }

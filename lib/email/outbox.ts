@@ -2,7 +2,7 @@ import { and, eq } from "drizzle-orm";
 import type { Db } from "../../db/client";
 import { outbox } from "../../db/schema";
 import { env } from "../env";
-import { oneLineSubject, renderEmail, type EmailTemplate } from "./render";
+import { oneLineSubject, renderEmail, withheldLinks, type EmailTemplate } from "./render";
 import { mailTransport } from "./transport";
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
@@ -31,7 +31,9 @@ export async function deliverQueued(db: Db, orgId: string): Promise<{ sent: numb
   for (const message of queued) {
     try {
       const info = await mailTransport().sendMail({ from: env().MAIL_FROM, to: message.toAddress, subject: oneLineSubject(message.subject), text: message.bodyText });
-      db.update(outbox).set({ status: "sent", messageId: info.messageId, sentAt: new Date().toISOString(), error: null }).where(eq(outbox.id, message.id)).run();
+      // Once sent, the kept copy no longer holds a working one-time link.
+      const bodyText = withheldLinks(message.template, message.bodyText);
+      db.update(outbox).set({ status: "sent", messageId: info.messageId, sentAt: new Date().toISOString(), error: null, bodyText }).where(eq(outbox.id, message.id)).run();
       sent += 1;
     } catch (error) {
       db.update(outbox).set({ status: "failed", error: (error as Error).message.slice(0, 500) }).where(eq(outbox.id, message.id)).run();

@@ -9,8 +9,18 @@ export const EMAIL_TEMPLATES = [
   "submitted",
   "corrections-requested",
   "permit-issued",
+  "invitation",
+  "password-reset",
 ] as const;
 export type EmailTemplate = (typeof EMAIL_TEMPLATES)[number];
+
+/** Messages carrying a one-time sign-in link: whoever reads the outbox must not be able to use it. */
+export const LINK_TEMPLATES: readonly string[] = ["invitation", "password-reset"];
+
+/** The body with its one-time link's token replaced, for the outbox list and for the copy kept after sending. */
+export function withheldLinks(template: string, body: string): string {
+  return LINK_TEMPLATES.includes(template) ? body.replace(/token=[A-Za-z0-9_-]+/g, "token=[withheld]") : body;
+}
 
 const compiled = new Map<string, { subject: Handlebars.TemplateDelegate; body: Handlebars.TemplateDelegate }>();
 

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
-import type { Db } from "../../db/client";
+import { getDb, type Db } from "../../db/client";
 import { auditLog, userRoles, users } from "../../db/schema";
 import { can, type Permission } from "../auth/permissions";
 import { isRole, type Role } from "../auth/roles";
@@ -12,6 +12,8 @@ export interface ServiceContext {
   user: { id: string; name: string; email: string };
   orgId: string;
   roles: Role[];
+  /** An admin chose this person's password; until they choose their own, only the password change is open to them. */
+  mustChangePassword?: boolean;
 }
 
 export function requirePermission(ctx: ServiceContext, permission: Permission, what?: string): void {
@@ -38,7 +40,18 @@ export function contextForUser(db: Db, userId: string | undefined | null, sessio
     .all()
     .map((r) => r.role)
     .filter(isRole);
-  return { db, user: { id: user.id, name: user.name, email: user.email }, orgId: user.orgId, roles };
+  return { db, user: { id: user.id, name: user.name, email: user.email }, orgId: user.orgId, roles, mustChangePassword: user.mustChangePassword };
+}
+
+/** What an action open to anyone (asking for a reset link, choosing a password from one) works with: no user, no organisation. */
+export interface PublicContext {
+  db: Db;
+  /** The caller's network address as the proxy in front reports it, for throttling. */
+  client: string;
+}
+
+export function publicContext(client: string): PublicContext {
+  return { db: getDb(), client };
 }
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];

@@ -136,7 +136,14 @@ test("a role change by an admin ends the person's open session: their next page 
   await expect(page.getByRole("table", { name: "Users" }).getByText(email)).toBeVisible();
 
   const other = await browser.newPage();
+  // A first password from an admin is replaced at the first sign-in, which ends that session.
   await signIn(other, email, "first-password-rue");
+  await expect(other).toHaveURL(/\/account\/password$/);
+  await other.getByLabel("Current password").fill("first-password-rue");
+  await other.getByLabel("New password (12 to 72 characters)").fill("rue-chose-this-one");
+  await other.getByRole("button", { name: "Change password" }).click();
+  await expect(other.getByRole("status")).toContainText("Password changed");
+  await signIn(other, email, "rue-chose-this-one");
   await expect(other.getByRole("button", { name: "Sign out" })).toBeVisible();
   await other.goto("/projects");
   await expect(other).toHaveURL(/\/projects$/);

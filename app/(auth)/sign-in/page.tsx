@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
-import { BrandMark } from "@/components/ui/brand-mark";
+import Link from "next/link";
+import { AuthSheet } from "@/components/account/auth-sheet";
 import { currentContext } from "@/lib/auth/session";
 import { homeFor } from "@/lib/auth/roles";
 import { SignInForm } from "./sign-in-form";
@@ -21,30 +22,13 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
     }
   }
   return (
-    <main className="drafting-grid flex min-h-screen items-center justify-center p-6">
-      <div className="w-full max-w-sm">
-        <div className="sheet">
-          <div className="flex items-center gap-3 border-b-2 border-ink px-6 py-4 text-slate">
-            <BrandMark size={34} />
-            <div>
-              <p className="text-lg font-semibold tracking-tight text-ink">Sundocket</p>
-              <p className="text-xs text-ink-soft">Code checks and permit packets for solar + storage</p>
-            </div>
-          </div>
-          <div className="px-6 py-6">
-            <h1 className="mb-4 text-base font-semibold">Sign in</h1>
-            <SignInForm next={next} />
-          </div>
-          <div className="grid grid-cols-3 border-t border-rule text-[10px] uppercase tracking-wider text-ink-faint">
-            <span className="border-r border-rule px-3 py-1.5">Sheet G-000</span>
-            <span className="border-r border-rule px-3 py-1.5">Access</span>
-            <span className="px-3 py-1.5">Rev —</span>
-          </div>
-        </div>
-        <p className="mt-4 text-center text-xs text-ink-soft">
-          Checks assist the licensed professional; the AHJ and local codes govern.
-        </p>
-      </div>
-    </main>
+    <AuthSheet title="Sign in" sheet="G-000">
+      <SignInForm next={next} />
+      <p className="mt-4 text-sm">
+        <Link href="/forgot-password" className="underline">
+          Forgot your password?
+        </Link>
+      </p>
+    </AuthSheet>
   );
 }

@@ -8,7 +8,7 @@ import { PASSWORD_MAX_BYTES } from "../../schemas/password";
 import { memoryThrottle, type SignInThrottle } from "./throttle";
 
 export type SignInOutcome =
-  | { ok: true; user: { id: string; name: string; email: string; orgId: string; roles: Role[]; sessionVersion: number } }
+  | { ok: true; user: { id: string; name: string; email: string; orgId: string; roles: Role[]; sessionVersion: number; mustChangePassword: boolean } }
   | { ok: false; reason: "invalid" | "locked" | "inactive" | "throttled"; retryAfterSeconds?: number };
 
 export interface LockoutPolicy {
@@ -105,7 +105,7 @@ export async function verifyCredentials(db: Db, emailInput: string, password: st
     .all()
     .map((r) => r.role)
     .filter(isRole);
-  return { ok: true, user: { id: user.id, name: user.name, email: user.email, orgId: user.orgId, roles, sessionVersion: user.sessionVersion } };
+  return { ok: true, user: { id: user.id, name: user.name, email: user.email, orgId: user.orgId, roles, sessionVersion: user.sessionVersion, mustChangePassword: user.mustChangePassword } };
 }
 
 export function hashPassword(password: string): Promise<string> {

@@ -1,18 +1,13 @@
 import "server-only";
 import bcrypt from "bcryptjs";
 import { and, eq, sql } from "drizzle-orm";
-import { z } from "zod";
 import { users } from "../../../db/schema";
 import { formatIssues } from "../../schemas/fields";
-import { passwordSchema } from "../../schemas/password";
+import { changePasswordSchema } from "../../schemas/account-links";
 import { hashPassword } from "../auth/verify-credentials";
 import { audit, type ServiceContext } from "../context";
 import { invalid, notFound } from "../errors";
 
-const changePasswordSchema = z.object({
-  currentPassword: z.string({ error: "is required" }).min(1, { message: "is required" }).max(200),
-  newPassword: passwordSchema,
-});
 
 /**
  * A signed-in person changes their own password. The current one is asked
@@ -33,7 +28,7 @@ export async function changeOwnPassword(ctx: ServiceContext, input: unknown): Pr
   const passwordHash = await hashPassword(newPassword);
   ctx.db.transaction((tx) => {
     tx.update(users)
-      .set({ passwordHash, sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date().toISOString() })
+      .set({ passwordHash, mustChangePassword: false, sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date().toISOString() })
       .where(and(eq(users.id, user.id), eq(users.orgId, ctx.orgId)))
       .run();
     audit(tx, ctx, "user.password-changed", "user", user.id);

@@ -2,6 +2,7 @@ import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { userRoles, users } from "../../../db/schema";
 import { formatIssues } from "../../schemas/fields";
+import { adminSetPasswordSchema } from "../../schemas/account-links";
 import { newUserSchema, setActiveSchema, setRolesSchema } from "../../schemas/users";
 import type { Role } from "../../auth/roles";
 import { hashPassword } from "../auth/verify-credentials";
@@ -36,7 +37,8 @@ export async function addUser(ctx: ServiceContext, input: unknown): Promise<{ id
   if (taken) throw invalid("The user was not added.", [{ path: "email", message: "is already in use" }]);
   const passwordHash = await hashPassword(password);
   return ctx.db.transaction((tx) => {
-    const row = tx.insert(users).values({ orgId: ctx.orgId, name, email, passwordHash }).returning({ id: users.id }).get();
+    // The admin knows this password, so the person replaces it at their first sign-in.
+    const row = tx.insert(users).values({ orgId: ctx.orgId, name, email, passwordHash, mustChangePassword: true }).returning({ id: users.id }).get();
     tx.insert(userRoles).values(roles.map((role) => ({ userId: row.id, role }))).run();
     audit(tx, ctx, "user.added", "user", row.id, { email, roles, ...roleChange([], roles, ctx) });
     return row;
@@ -83,5 +85,37 @@ export function setUserActive(ctx: ServiceContext, input: unknown): void {
       .run();
     if (updated.changes === 0) throw conflict("This user was changed by someone else. Reload and try again.");
     audit(tx, ctx, active ? "user.reactivated" : "user.deactivated", "user", user.id);
+  });
+}
+
+/**
+ * An admin sets a person's password (they forgot it and have no mailbox at
+ * hand). The admin now knows it, so the person must choose their own at the
+ * next sign-in; sessions signed in with the old one end, and a lockout is lifted.
+ */
+export async function setPasswordByAdmin(ctx: ServiceContext, input: unknown): Promise<void> {
+  requirePermission(ctx, "users:manage", "manage users");
+  const parsed = adminSetPasswordSchema.safeParse(input);
+  if (!parsed.success) throw invalid("The password was not set: some fields are not valid.", formatIssues(parsed.error));
+  const { userId, version, password } = parsed.data;
+  const user = findUserInOrg(ctx, userId);
+  if (user.id === ctx.user.id) throw invalid("Change your own password on the Password page, where your current one is asked for.");
+  const passwordHash = await hashPassword(password);
+  ctx.db.transaction((tx) => {
+    const updated = tx
+      .update(users)
+      .set({
+        passwordHash,
+        mustChangePassword: true,
+        failedSignIns: 0,
+        lockedUntil: null,
+        version: sql`${users.version} + 1`,
+        sessionVersion: sql`${users.sessionVersion} + 1`,
+        updatedAt: new Date().toISOString(),
+      })
+      .where(and(eq(users.id, user.id), eq(users.version, version)))
+      .run();
+    if (updated.changes === 0) throw conflict("This user was changed by someone else. Reload and try again.");
+    audit(tx, ctx, "user.password-set-by-admin", "user", user.id);
   });
 }

@@ -1,9 +1,18 @@
 "use server";
 
-import { runAction, type ActionResult } from "@/lib/auth/action";
+import { defineAction, formText } from "@/lib/auth/action";
+import { changePasswordSchema } from "@/lib/schemas/account-links";
 import { changeOwnPassword } from "@/lib/services/users/change-password";
 
-export async function changePasswordAction(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
-  const result = await runAction((ctx) => changeOwnPassword(ctx, { currentPassword: formData.get("currentPassword"), newPassword: formData.get("newPassword") }));
-  return result.ok ? { ok: true, message: result.data?.message } : result;
-}
+/** Open to a person who must first replace an admin-set password: this is where they do it. */
+export const changePasswordAction = defineAction({
+  access: "password-change",
+  read: (_prev: unknown, formData: FormData) => {
+    const text = formText(formData);
+    return { currentPassword: text("currentPassword"), newPassword: text("newPassword") };
+  },
+  schema: changePasswordSchema,
+  invalidMessage: "The password was not changed: some fields are not valid.",
+  run: (ctx, input) => changeOwnPassword(ctx, input),
+  message: (data) => data.message,
+});

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { ActiveForm, AddUserForm, RolesForm } from "@/components/admin/user-forms";
+import { ActiveForm, AddUserForm, InviteUserForm, RolesForm, SetPasswordForm } from "@/components/admin/user-forms";
 import { PageHeader, Refusal } from "@/components/ui/page-header";
 import { StateTag } from "@/components/ui/status-badge";
 import { pageContext } from "@/lib/auth/page-context";
@@ -41,13 +41,20 @@ export default async function UsersPage() {
                 <td className="figure text-xs text-ink-soft">{u.lastSignInAt?.slice(0, 16).replace("T", " ") ?? "never"}</td>
                 <td>
                   <ActiveForm userId={u.id} version={u.version} active={u.active} name={u.name} />
+                  {u.active ? <SetPasswordForm userId={u.id} version={u.version} name={u.name} /> : null}
                 </td>
               </tr>
             ))}
           </tbody>
         </table>
       </div>
-      <h2 className="field-label mb-2">Add a user</h2>
+      <h2 className="field-label mb-2">Invite a user</h2>
+      <p className="mb-2 max-w-prose text-sm text-ink-soft">They get an e-mail with a link to choose their own password; the link works once, for 72 hours.</p>
+      <div className="mb-6">
+        <InviteUserForm />
+      </div>
+      <h2 className="field-label mb-2">Add a user with a first password</h2>
+      <p className="mb-2 max-w-prose text-sm text-ink-soft">For someone without e-mail at hand: hand them the password in person; they choose their own at first sign-in.</p>
       <AddUserForm />
     </>
   );
