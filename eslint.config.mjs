@@ -45,8 +45,20 @@ export default tseslint.config(
     rules: {
       "no-restricted-imports": [
         "error",
-        { patterns: [{ group: ["@/db/schema", "@/db/schema/*", "drizzle-orm", "drizzle-orm/*"], message: "Pages and routes go through lib/services, which scope every query to the organisation." }] },
+        {
+          patterns: [{ group: ["@/db/schema", "@/db/schema/*", "drizzle-orm", "drizzle-orm/*"], message: "Pages and routes go through lib/services, which scope every query to the organisation." }],
+          // Route handlers and actions get their context from defineRoute / defineAction, which also check the origin, the body and the input.
+          paths: [{ name: "@/lib/auth/session", importNames: ["requireContext"], message: "Use defineRoute (lib/http.ts) or defineAction (lib/auth/action.ts)." }],
+        },
       ],
+    },
+  },
+  {
+    // A route handler is `export const METHOD = defineRoute({...})`; a bare exported function would skip the wrapper
+    // (tests/unit/edges/one-way.test.ts checks the same for actions).
+    files: ["app/**/route.ts"],
+    rules: {
+      "no-restricted-syntax": ["error", { selector: "ExportNamedDeclaration > FunctionDeclaration", message: "Export the handler as `export const GET = defineRoute({...})`." }],
     },
   },
   {

@@ -5,10 +5,20 @@ import { formatIssues } from "./schemas/fields";
 import { env } from "./env";
 import { API_CONTENT_SECURITY_POLICY } from "./security-headers";
 import { HTTP_STATUS, ServiceError } from "./services/errors";
-import { BodyTooLargeError, readTextLimited } from "./uploads/limited-body";
+import { BodyTooLargeError, declaresMoreThan, readTextLimited } from "./uploads/limited-body";
+import { UploadRefusedError } from "./uploads/refusal";
+import { requireContext } from "./auth/session";
+import type { Permission } from "./auth/permissions";
+import { requirePermission, type ServiceContext } from "./services/context";
 
 /** Maps any error thrown below a route handler to a JSON answer; never a stack trace. */
 export function errorResponse(error: unknown): NextResponse {
+  if (error instanceof UploadRefusedError) {
+    return NextResponse.json({ error: error.message, code: "upload-refused", reason: error.reason, issues: [] }, { status: error.httpStatus });
+  }
+  if (error instanceof BodyTooLargeError) {
+    return NextResponse.json({ error: "The request body is larger than this route accepts; nothing was changed.", code: "too-large", issues: [] }, { status: 413 });
+  }
   if (error instanceof ServiceError) {
     return NextResponse.json({ error: error.message, code: error.code, issues: error.issues }, { status: HTTP_STATUS[error.code] });
   }
@@ -103,18 +113,80 @@ export function withApiHeaders(response: Response): Response {
   return response;
 }
 
-/** Wraps a route handler body so the origin is checked, typed errors map once, and the API headers are set, here. */
-export function handle<A extends unknown[]>(fn: (...args: A) => Promise<Response>) {
-  return async (...args: A): Promise<Response> => {
+type RouteParams = Record<string, string | string[] | undefined>;
+
+/** What a route's `run` receives, once the wrapper has let the request through. */
+export interface RouteCall<A extends "user" | "public", B> {
+  request: Request;
+  /** The signed-in person's context; null on a public route. */
+  ctx: A extends "public" ? null : ServiceContext;
+  /** The path's dynamic segments; catch-all segments are left out. */
+  params: Record<string, string>;
+  /** The parsed JSON body, when the route declares `json`. */
+  body: B;
+  /** The byte bound a route that reads its own body (`stream`) must read it within. */
+  maxBytes: number;
+}
+
+export interface RouteSpec<A extends "user" | "public", S extends z.ZodType | undefined> {
+  access: A;
+  /** Checked before a byte of the body is read; the service checks it again on its first line. */
+  permission?: A extends "public" ? never : Permission;
+  /** A JSON body, parsed with this schema from lib/schemas: 415 for another content type, 413 past `maxBytes`, 400 with the fields otherwise. */
+  json?: S;
+  /** The JSON body may be left out (no Content-Type, no bytes): the schema then parses `{}`. */
+  optional?: true;
+  /**
+   * The route reads its body itself (a file upload, a CSV, a raw PDF), within
+   * `maxBytes`: a declared length past it is refused here, and the readers in
+   * lib/uploads/limited-body count the bytes that actually arrive.
+   */
+  stream?: true;
+  maxBytes?: number;
+  run: (call: RouteCall<A, S extends z.ZodType ? z.output<S> : undefined>) => Response | Promise<Response>;
+}
+
+/** Marks a handler made by defineRoute, so a test can tell every exported handler went through it. */
+export const ROUTE_WRAPPED = Symbol.for("sundocket.defineRoute");
+
+/**
+ * The one wrapper for route handlers. In this order: the origin of a
+ * data-changing request, the session (unless the route is public), the
+ * permission, the body (content type, byte bound, schema), then `run`; every
+ * error below is mapped to JSON once (errorResponse) and every answer carries
+ * the API headers. A route states what it needs and holds only its own work.
+ */
+export function defineRoute<A extends "user" | "public", S extends z.ZodType | undefined = undefined>(spec: RouteSpec<A, S>) {
+  const handler = async (request: Request, context?: { params?: Promise<RouteParams> }): Promise<Response> => {
     try {
-      const request = args[0];
-      if (request instanceof Request) {
-        const refused = originRefusal(request);
-        if (refused) return withApiHeaders(refused);
+      const refused = originRefusal(request);
+      if (refused) return withApiHeaders(refused);
+      const ctx = spec.access === "public" ? null : await requireContext();
+      if (ctx && spec.permission) requirePermission(ctx, spec.permission);
+      const maxBytes = spec.maxBytes ?? JSON_MAX_BYTES;
+      let body: unknown = undefined;
+      // An optional body with no Content-Type is taken as left out, whatever bytes came with it.
+      const empty = spec.optional && !request.headers.has("content-type");
+      if (spec.json && empty) {
+        const parsed = spec.json.safeParse({});
+        if (!parsed.success) return withApiHeaders(zodErrorResponse(parsed.error));
+        body = parsed.data;
+      } else if (spec.json) {
+        const read = await readJson(request, { maxBytes });
+        if (!read.ok) return withApiHeaders(read.response);
+        const parsed = spec.json.safeParse(read.body);
+        if (!parsed.success) return withApiHeaders(zodErrorResponse(parsed.error));
+        body = parsed.data;
+      } else if (spec.stream && declaresMoreThan(request, maxBytes)) {
+        return withApiHeaders(errorResponse(new BodyTooLargeError(maxBytes)));
       }
-      return withApiHeaders(await fn(...args));
+      const raw = (await context?.params) ?? {};
+      const params = Object.fromEntries(Object.entries(raw).filter((e): e is [string, string] => typeof e[1] === "string"));
+      const call = { request, ctx, params, body, maxBytes } as RouteCall<A, S extends z.ZodType ? z.output<S> : undefined>;
+      return withApiHeaders(await spec.run(call));
     } catch (error) {
       return withApiHeaders(errorResponse(error));
     }
   };
+  return Object.assign(handler, { [ROUTE_WRAPPED]: true });
 }

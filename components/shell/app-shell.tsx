@@ -1,10 +1,10 @@
 import Link from "next/link";
-import { signOut } from "@/auth";
 import { BrandMark } from "@/components/ui/brand-mark";
 import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
 import { CautionBar } from "./caution-bar";
 import { linksFor } from "./nav-links";
 import { SideNav } from "./side-nav";
+import { SignOutButton } from "./sign-out-button";
 
 export function AppShell({
   user,
@@ -17,10 +17,6 @@ export function AppShell({
   roles: Role[];
   children: React.ReactNode;
 }) {
-  async function signOutAction() {
-    "use server";
-    await signOut({ redirectTo: "/sign-in" });
-  }
   return (
     <div className="flex min-h-screen flex-col">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-sheet focus:px-3 focus:py-1">
@@ -40,11 +36,7 @@ export function AppShell({
           <Link href="/account/password" className="btn-quiet">
             Password
           </Link>
-          <form action={signOutAction}>
-            <button type="submit" className="btn-quiet">
-              Sign out
-            </button>
-          </form>
+          <SignOutButton />
         </div>
       </header>
       <div className="flex flex-1">

@@ -1,5 +1,6 @@
 import "server-only";
 import { headers } from "next/headers";
+import { unstable_rethrow } from "next/navigation";
 import type { z } from "zod";
 import { formatIssues } from "../schemas/fields";
 import { publicContext, requirePermission, type PublicContext, type ServiceContext } from "../services/context";
@@ -91,6 +92,8 @@ export function defineAction<A extends ActionAccess, Args extends unknown[], S e
       const message = typeof spec.message === "function" ? spec.message(data) : spec.message;
       return { ok: true, data, message };
     } catch (error) {
+      // A redirect (after signing in or out) is the framework's way of answering, not a failure.
+      unstable_rethrow(error);
       return mapError(error);
     }
   };
@@ -102,18 +105,4 @@ export function formText(formData: FormData) {
     const v = formData?.get?.(name);
     return typeof v === "string" ? v : undefined;
   };
-}
-
-/**
- * The older wrapper, kept for the actions not yet moved to defineAction:
- * resolves the signed-in context and maps typed service errors.
- */
-export async function runAction<T>(fn: (ctx: ServiceContext) => T | Promise<T>, message?: string): Promise<ActionResult<T>> {
-  try {
-    const ctx = await requireContext();
-    const data = await fn(ctx);
-    return { ok: true, data, message };
-  } catch (error) {
-    return mapError(error);
-  }
 }

@@ -33,6 +33,33 @@ export const PERMISSIONS = {
 
 export type Permission = keyof typeof PERMISSIONS;
 
+/** Each permission as the end of "Your role does not allow you to …", for a refusal made before a service names it itself. */
+export const PERMISSION_WORDS: Record<Permission, string> = {
+  "project:read": "read projects",
+  "project:create": "create projects",
+  "project:edit": "edit projects",
+  "library:read": "read the equipment library",
+  "library:edit": "edit the equipment library",
+  "attachment:upload": "attach files",
+  "attachment:delete": "delete attachments",
+  "packet:generate": "generate packets",
+  "packet:read": "read packets",
+  "review:send": "send revisions for review",
+  "review:read": "read reviews",
+  "review:decide": "decide reviews",
+  "licence:edit-own": "keep a licence record",
+  "jurisdiction:read": "read jurisdictions",
+  "jurisdiction:edit": "edit jurisdictions",
+  "submission:read": "read submissions",
+  "submission:create": "submit packets to a jurisdiction",
+  "submission:record-event": "record submission events",
+  "install:read": "read approved sets",
+  "install:confirm": "confirm installed items",
+  "users:manage": "manage users",
+  "outbox:read": "read the outbox",
+  "audit:read": "read the audit log",
+};
+
 export function can(roles: readonly Role[], permission: Permission): boolean {
   const allowed: readonly Role[] = PERMISSIONS[permission];
   return roles.some((role) => allowed.includes(role));

@@ -2,7 +2,7 @@ import "server-only";
 import { and, eq } from "drizzle-orm";
 import { getDb, type Db } from "../../db/client";
 import { auditLog, userRoles, users } from "../../db/schema";
-import { can, type Permission } from "../auth/permissions";
+import { can, PERMISSION_WORDS, type Permission } from "../auth/permissions";
 import { isRole, type Role } from "../auth/roles";
 import { forbidden, unauthenticated } from "./errors";
 
@@ -17,7 +17,7 @@ export interface ServiceContext {
 }
 
 export function requirePermission(ctx: ServiceContext, permission: Permission, what?: string): void {
-  if (!can(ctx.roles, permission)) throw forbidden(what ?? permission.replace(":", " "));
+  if (!can(ctx.roles, permission)) throw forbidden(what ?? PERMISSION_WORDS[permission]);
 }
 
 /**

@@ -23,6 +23,12 @@ import { makeThrowawayCertificate } from "../unit/signing/throwaway-ca";
 import { makeContext, makeJurisdiction, makeOrg, tempDatabase } from "./factories";
 
 vi.mock("server-only", () => ({}));
+// The counter check is public: the route wrapper never asks for a session here.
+vi.mock("@/lib/auth/session", () => ({
+  requireContext: async () => {
+    throw new Error("a public route asked for a session");
+  },
+}));
 const { lookUpStampedFile } = await import("../../lib/services/verify/stamped-file");
 const { resetVerifyLimiter } = await import("../../lib/services/verify/rate-limit");
 const verifyRoute = await import("../../app/api/verify/route");

@@ -1,81 +1,90 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { runAction, type ActionResult } from "@/lib/auth/action";
+import { z } from "zod";
+import { defineAction, formText } from "@/lib/auth/action";
+import { decisionEdgeSchema, formFieldsSchema, idSchema, signPacketEdgeSchema } from "@/lib/schemas/edges";
 import type { ReviewDecisionInput } from "@/lib/schemas/review";
-import {
-  approveAndSign,
-  decideReview,
-  renderStampedPacketAgain,
-  saveOwnLicence,
-  signStampedPacket,
-  uploadSigningCertificate,
-  type CertificateView,
-  type Decided,
-  type LicenceView,
-} from "@/lib/services/reviews";
+import { approveAndSign, decideReview, renderStampedPacketAgain, saveOwnLicence, signStampedPacket, uploadSigningCertificate } from "@/lib/services/reviews";
+
+function refreshReview(revisionId: string) {
+  revalidatePath(`/reviews/${revisionId}`);
+  revalidatePath("/reviews");
+}
 
 /**
  * The decision with its notes, as the review page collects them; the service parses and authorises.
  * With the certificate's password, an approval also signs the stamped packet.
  */
-export async function decideReviewAction(input: ReviewDecisionInput & { certificatePassword?: string }): Promise<ActionResult<Decided>> {
-  const { certificatePassword, ...decision } = input ?? {};
-  const result = await runAction((ctx) =>
-    decision.decision === "approved" && typeof certificatePassword === "string" && certificatePassword
+export const decideReviewAction = defineAction({
+  access: "user",
+  permission: "review:decide",
+  read: (input: ReviewDecisionInput & { certificatePassword?: string }) => input,
+  schema: decisionEdgeSchema,
+  run: (ctx, input) => {
+    const { certificatePassword, ...decision } = input;
+    return decision.decision === "approved" && certificatePassword
       ? approveAndSign(ctx, decision, { password: certificatePassword })
-      : decideReview(ctx, decision),
-  );
-  if (result.ok && typeof input?.revisionId === "string") {
-    revalidatePath(`/reviews/${input.revisionId}`);
-    revalidatePath("/reviews");
-  }
-  return result;
-}
+      : decideReview(ctx, decision);
+  },
+  after: (input) => refreshReview(input.revisionId),
+});
 
-export async function renderStampedPacketAgainAction(revisionId: string): Promise<ActionResult> {
-  const result = await runAction((ctx) => renderStampedPacketAgain(ctx, revisionId));
-  if (result.ok) revalidatePath(`/reviews/${revisionId}`);
-  return result.ok ? { ok: true, message: result.data?.message } : result;
-}
+/** A reviewer or a designer may render a failed stamped packet again; the service says which. */
+export const renderStampedPacketAgainAction = defineAction({
+  access: "user",
+  read: (revisionId: string) => ({ revisionId }),
+  schema: z.object({ revisionId: idSchema }),
+  run: (ctx, input) => renderStampedPacketAgain(ctx, input.revisionId),
+  message: (data) => data?.message,
+  after: (input) => revalidatePath(`/reviews/${input.revisionId}`),
+});
 
-export async function saveLicenceAction(_prev: ActionResult<LicenceView> | null, formData: FormData): Promise<ActionResult<LicenceView>> {
-  const text = (name: string) => {
-    const v = formData.get(name);
-    return typeof v === "string" ? v : undefined;
-  };
-  const result = await runAction(
-    (ctx) =>
-      saveOwnLicence(ctx, {
-        licenceNumber: text("licenceNumber"),
-        region: text("region"),
-        discipline: text("discipline"),
-        expiresOn: text("expiresOn"),
-        version: text("version") || undefined,
-      }),
-    "Licence record saved.",
-  );
-  if (result.ok) {
+const LICENCE_FIELDS = ["licenceNumber", "region", "discipline", "expiresOn", "version"] as const;
+
+export const saveLicenceAction = defineAction({
+  access: "user",
+  permission: "licence:edit-own",
+  read: (_prev: unknown, formData: FormData) => {
+    const text = formText(formData);
+    return Object.fromEntries(LICENCE_FIELDS.map((n) => [n, text(n)]));
+  },
+  schema: formFieldsSchema(LICENCE_FIELDS, 200),
+  run: (ctx, input) => saveOwnLicence(ctx, { ...input, version: input.version || undefined }),
+  message: "Licence record saved.",
+  after: () => {
     revalidatePath("/reviews/licence");
     revalidatePath("/reviews");
-  }
-  return result;
-}
+  },
+});
 
 /** Signs an approved revision's stamped packet with the reviewer's stored certificate; the password is used once and dropped. */
-export async function signPacketAction(revisionId: string, certificatePassword: string): Promise<ActionResult> {
-  const result = await runAction((ctx) => signStampedPacket(ctx, String(revisionId), { password: String(certificatePassword ?? "") }));
-  if (result.ok) revalidatePath(`/reviews/${revisionId}`);
-  return result.ok ? { ok: true, message: result.data?.message } : result;
-}
+export const signPacketAction = defineAction({
+  access: "user",
+  permission: "review:decide",
+  read: (revisionId: string, certificatePassword: string) => ({ revisionId, certificatePassword: certificatePassword ?? "" }),
+  schema: signPacketEdgeSchema,
+  run: (ctx, input) => signStampedPacket(ctx, input.revisionId, { password: input.certificatePassword }),
+  message: (data) => data?.message,
+  after: (input) => revalidatePath(`/reviews/${input.revisionId}`),
+});
 
-export async function uploadCertificateAction(_prev: ActionResult<CertificateView> | null, formData: FormData): Promise<ActionResult<CertificateView>> {
-  const file = formData.get("certificate");
-  const password = formData.get("certificatePassword");
-  const result = await runAction(async (ctx) => {
-    const bytes = file instanceof File ? new Uint8Array(await file.arrayBuffer()) : new Uint8Array();
-    return uploadSigningCertificate(ctx, { fileName: file instanceof File ? file.name : "certificate.p12", bytes, password: typeof password === "string" ? password : "" });
-  }, "Signing certificate saved. Its password is not kept: you type it each time you sign.");
-  if (result.ok) revalidatePath("/reviews/licence");
-  return result;
-}
+/** A PKCS#12 file is a few kilobytes; the framework's 1 MB action body bound holds it with room. */
+const certificateSchema = z.object({
+  file: z.instanceof(File, { message: "choose your .p12 or .pfx file" }),
+  password: z.string().max(200),
+});
+
+export const uploadCertificateAction = defineAction({
+  access: "user",
+  permission: "licence:edit-own",
+  read: (_prev: unknown, formData: FormData) => {
+    const file = formData?.get?.("certificate");
+    const password = formData?.get?.("certificatePassword");
+    return { file: file instanceof File ? file : undefined, password: typeof password === "string" ? password : "" };
+  },
+  schema: certificateSchema,
+  run: async (ctx, { file, password }) => uploadSigningCertificate(ctx, { fileName: file.name || "certificate.p12", bytes: new Uint8Array(await file.arrayBuffer()), password }),
+  message: "Signing certificate saved. Its password is not kept: you type it each time you sign.",
+  after: () => revalidatePath("/reviews/licence"),
+});

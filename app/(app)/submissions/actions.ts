@@ -1,68 +1,58 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { runAction, type ActionResult } from "@/lib/auth/action";
-import { createSubmission, recordSubmissionEvent, voidSubmissionEvent, type CreatedSubmission, type RecordedEvent, type VoidedEvent } from "@/lib/services/submissions";
+import { defineAction, formText } from "@/lib/auth/action";
+import { formFieldsSchema } from "@/lib/schemas/edges";
+import { createSubmission, recordSubmissionEvent, voidSubmissionEvent } from "@/lib/services/submissions";
 
-function reader(formData: FormData) {
-  return (name: string) => {
-    const v = formData.get(name);
-    return typeof v === "string" ? v : undefined;
-  };
+/**
+ * The one write path for submissions and their events: the office's forms.
+ * (The route handlers under /api/submissions only read.)
+ */
+const CREATE_FIELDS = ["revisionId", "method", "referenceNumber", "occurredOn", "note"] as const;
+const EVENT_FIELDS = ["submissionId", "kind", "occurredOn", "note", "permitNumber", "expiresOn", "amountUsd", "inspectionKind", "revisionId", "version"] as const;
+const VOID_FIELDS = ["submissionId", "eventId", "reason", "version"] as const;
+
+function fields<K extends string>(names: readonly K[], formData: FormData): Partial<Record<K, string>> {
+  const text = formText(formData);
+  return Object.fromEntries(names.map((n) => [n, text(n)])) as Partial<Record<K, string>>;
+}
+
+function refreshSubmission(submissionId: string | undefined) {
+  if (submissionId) revalidatePath(`/submissions/${submissionId}`);
+  revalidatePath("/submissions");
 }
 
 /** A new submission of an approved revision, as the office's form sends it; the service parses and authorises. */
-export async function createSubmissionAction(_prev: ActionResult<CreatedSubmission> | null, formData: FormData): Promise<ActionResult<CreatedSubmission>> {
-  const text = reader(formData);
-  const result = await runAction((ctx) =>
-    createSubmission(ctx, {
-      revisionId: text("revisionId"),
-      method: text("method"),
-      referenceNumber: text("referenceNumber"),
-      occurredOn: text("occurredOn"),
-      note: text("note"),
-    }),
-  );
-  if (result.ok) {
+export const createSubmissionAction = defineAction({
+  access: "user",
+  permission: "submission:create",
+  read: (_prev: unknown, formData: FormData) => fields(CREATE_FIELDS, formData),
+  schema: formFieldsSchema(CREATE_FIELDS),
+  run: (ctx, input) => createSubmission(ctx, input),
+  message: (data) => data.message,
+  after: () => {
     revalidatePath("/submissions");
     revalidatePath("/submissions/new");
-  }
-  return result.ok ? { ...result, message: result.data?.message } : result;
-}
+  },
+});
 
-export async function recordEventAction(_prev: ActionResult<RecordedEvent> | null, formData: FormData): Promise<ActionResult<RecordedEvent>> {
-  const text = reader(formData);
-  const submissionId = text("submissionId");
-  const result = await runAction((ctx) =>
-    recordSubmissionEvent(ctx, {
-      submissionId,
-      kind: text("kind"),
-      occurredOn: text("occurredOn"),
-      note: text("note"),
-      permitNumber: text("permitNumber"),
-      expiresOn: text("expiresOn"),
-      amountUsd: text("amountUsd"),
-      inspectionKind: text("inspectionKind"),
-      revisionId: text("revisionId"),
-      version: text("version") || undefined,
-    }),
-  );
-  if (result.ok && submissionId) {
-    revalidatePath(`/submissions/${submissionId}`);
-    revalidatePath("/submissions");
-  }
-  return result.ok ? { ...result, message: result.data?.message } : result;
-}
+export const recordEventAction = defineAction({
+  access: "user",
+  permission: "submission:record-event",
+  read: (_prev: unknown, formData: FormData) => fields(EVENT_FIELDS, formData),
+  schema: formFieldsSchema(EVENT_FIELDS),
+  run: (ctx, input) => recordSubmissionEvent(ctx, { ...input, version: input.version || undefined }),
+  message: (data) => data.message,
+  after: (input) => refreshSubmission(input.submissionId),
+});
 
-export async function voidEventAction(_prev: ActionResult<VoidedEvent> | null, formData: FormData): Promise<ActionResult<VoidedEvent>> {
-  const text = reader(formData);
-  const submissionId = text("submissionId");
-  const result = await runAction((ctx) =>
-    voidSubmissionEvent(ctx, { submissionId, eventId: text("eventId"), reason: text("reason"), version: text("version") || undefined }),
-  );
-  if (result.ok && submissionId) {
-    revalidatePath(`/submissions/${submissionId}`);
-    revalidatePath("/submissions");
-  }
-  return result.ok ? { ...result, message: result.data?.message } : result;
-}
+export const voidEventAction = defineAction({
+  access: "user",
+  permission: "submission:record-event",
+  read: (_prev: unknown, formData: FormData) => fields(VOID_FIELDS, formData),
+  schema: formFieldsSchema(VOID_FIELDS),
+  run: (ctx, input) => voidSubmissionEvent(ctx, { ...input, version: input.version || undefined }),
+  message: (data) => data.message,
+  after: (input) => refreshSubmission(input.submissionId),
+});

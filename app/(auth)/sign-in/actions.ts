@@ -2,8 +2,11 @@
 
 import { AuthError, CredentialsSignin } from "next-auth";
 import { signIn } from "@/auth";
+import { defineAction, formText } from "@/lib/auth/action";
 import { env } from "@/lib/env";
+import { signInFormSchema } from "@/lib/schemas/edges";
 
+/** What the form shows after a refused sign-in: the message, and the e-mail typed, to keep in the field. */
 export interface SignInState {
   error?: string;
   email?: string;
@@ -22,19 +25,24 @@ function messageFor(code: string | undefined): string {
   }
 }
 
-export async function signInAction(_prev: SignInState, formData: FormData): Promise<SignInState> {
-  const email = String(formData.get("email") ?? "");
-  const password = String(formData.get("password") ?? "");
-  const next = String(formData.get("next") ?? "/");
-  if (!email.trim() || !password) return { error: "Enter your e-mail and password.", email };
-  // Only same-site paths, so the sign-in page cannot be used to send people elsewhere.
-  const redirectTo = next.startsWith("/") && !next.startsWith("//") ? next : "/";
-  try {
-    await signIn("credentials", { email, password, redirectTo });
-    return {};
-  } catch (error) {
-    if (error instanceof CredentialsSignin) return { error: messageFor(error.code), email };
-    if (error instanceof AuthError) return { error: messageFor(undefined), email };
-    throw error; // the redirect after a successful sign-in
-  }
-}
+export const signInAction = defineAction({
+  access: "public",
+  read: (_prev: unknown, formData: FormData) => {
+    const text = formText(formData);
+    return { email: text("email") ?? "", password: text("password") ?? "", next: text("next") ?? "/" };
+  },
+  schema: signInFormSchema,
+  run: async (_ctx, { email, password, next }): Promise<SignInState> => {
+    if (!email.trim() || !password) return { error: "Enter your e-mail and password.", email };
+    // Only same-site paths, so the sign-in page cannot be used to send people elsewhere.
+    const redirectTo = next.startsWith("/") && !next.startsWith("//") ? next : "/";
+    try {
+      await signIn("credentials", { email, password, redirectTo });
+      return {};
+    } catch (error) {
+      if (error instanceof CredentialsSignin) return { error: messageFor(error.code), email };
+      if (error instanceof AuthError) return { error: messageFor(undefined), email };
+      throw error; // the redirect after a successful sign-in
+    }
+  },
+});

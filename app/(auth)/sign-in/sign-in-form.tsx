@@ -1,10 +1,12 @@
 "use client";
 
 import { useActionState } from "react";
-import { signInAction, type SignInState } from "./actions";
+import { signInAction } from "./actions";
 
 export function SignInForm({ next }: { next: string }) {
-  const [state, action, pending] = useActionState<SignInState, FormData>(signInAction, {});
+  const [result, action, pending] = useActionState(signInAction, null);
+  // A refusal the service names (wrong password, locked) comes back as data; a malformed form as a failed result.
+  const state = result === null ? {} : result.ok ? (result.data ?? {}) : { error: result.error };
   return (
     <form action={action} className="space-y-4" noValidate>
       <input type="hidden" name="next" value={next} />

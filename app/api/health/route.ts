@@ -1,6 +1,4 @@
 import { NextResponse } from "next/server";
-import { withApiHeaders } from "@/lib/http";
+import { defineRoute } from "@/lib/http";
 
-export function GET() {
-  return withApiHeaders(NextResponse.json({ ok: true }));
-}
+export const GET = defineRoute({ access: "public", run: () => NextResponse.json({ ok: true }) });

@@ -1,20 +1,22 @@
 import { NextResponse } from "next/server";
-import { requireContext } from "@/lib/auth/session";
-import { handle, readJson } from "@/lib/http";
+import { defineRoute } from "@/lib/http";
+import { jsonObjectSchema } from "@/lib/schemas/edges";
 import { pageRequestFrom } from "@/lib/services/page";
 import { createProject } from "@/lib/services/projects/create";
 import { listProjects } from "@/lib/services/projects/list";
 
 /** One page: { projects, nextCursor }; pass ?cursor=nextCursor for the next (and ?limit= up to 200). */
-export const GET = handle(async (request: Request) => {
-  const ctx = await requireContext();
-  const page = listProjects(ctx, pageRequestFrom(request.url));
-  return NextResponse.json({ projects: page.rows, nextCursor: page.nextCursor });
+export const GET = defineRoute({
+  access: "user",
+  run: ({ ctx, request }) => {
+    const page = listProjects(ctx, pageRequestFrom(request.url));
+    return NextResponse.json({ projects: page.rows, nextCursor: page.nextCursor });
+  },
 });
 
-export const POST = handle(async (request: Request) => {
-  const ctx = await requireContext();
-  const body = await readJson(request);
-  if (!body.ok) return body.response;
-  return NextResponse.json(createProject(ctx, body.body), { status: 201 });
+export const POST = defineRoute({
+  access: "user",
+  permission: "project:create",
+  json: jsonObjectSchema,
+  run: ({ ctx, body }) => NextResponse.json(createProject(ctx, body), { status: 201 }),
 });

@@ -1,12 +1,9 @@
 import { NextResponse } from "next/server";
-import { requireContext } from "@/lib/auth/session";
 import { env } from "@/lib/env";
-import { errorResponse, originRefusal, withApiHeaders } from "@/lib/http";
+import { defineRoute } from "@/lib/http";
 import { uploadAttachment } from "@/lib/services/attachments";
-import { requirePermission } from "@/lib/services/context";
 import { formatBytes } from "@/lib/uploads/format-bytes";
-import { BodyTooLargeError, declaresMoreThan, readFormDataLimited } from "@/lib/uploads/limited-body";
-import { UploadRefusedError } from "@/lib/uploads/refusal";
+import { BodyTooLargeError, readFormDataLimited } from "@/lib/uploads/limited-body";
 
 /** Room for the multipart boundaries and the text fields around the file. */
 const MULTIPART_OVERHEAD_BYTES = 64 * 1024;
@@ -17,25 +14,22 @@ function refusal(status: number, message: string, reason: string) {
   return NextResponse.json({ error: message, code: "upload-refused", reason, issues: [] }, { status });
 }
 
+const tooLarge = () => refusal(413, `The file is larger than the largest accepted, ${formatBytes(env().UPLOAD_MAX_BYTES)}. Reduce it or split it.`, "too-large");
+
 /**
  * One file per request, as multipart/form-data from the uploader: the file
  * under "file" (or "files[]"), and fields projectId, kind, equipmentTag.
  */
-export async function POST(request: Request): Promise<Response> {
-  return withApiHeaders(await receive(request));
-}
-
-async function receive(request: Request): Promise<Response> {
-  try {
-    const refused = originRefusal(request);
-    if (refused) return refused;
-    const ctx = await requireContext();
-    // Who may upload is known before a byte of the body is read.
-    requirePermission(ctx, "attachment:upload", "attach files");
+export const POST = defineRoute({
+  access: "user",
+  // Who may upload is known before a byte of the body is read.
+  permission: "attachment:upload",
+  stream: true,
+  get maxBytes() {
+    return env().UPLOAD_MAX_BYTES + MULTIPART_OVERHEAD_BYTES;
+  },
+  run: async ({ ctx, request, maxBytes: bodyLimit }) => {
     const maxBytes = env().UPLOAD_MAX_BYTES;
-    const bodyLimit = maxBytes + MULTIPART_OVERHEAD_BYTES;
-    const tooLarge = () => refusal(413, `The file is larger than the largest accepted, ${formatBytes(maxBytes)}. Reduce it or split it.`, "too-large");
-    if (declaresMoreThan(request, bodyLimit)) return tooLarge();
     if (!(request.headers.get("content-type") ?? "").toLowerCase().startsWith("multipart/form-data")) {
       return refusal(400, "Send the file as multipart/form-data, with fields projectId, kind and equipmentTag.", "missing-field");
     }
@@ -64,8 +58,5 @@ async function receive(request: Request): Promise<Response> {
       { maxBytes },
     );
     return NextResponse.json({ ...result, url: result.attachment.downloadUrl }, { status: result.duplicate ? 200 : 201 });
-  } catch (error) {
-    if (error instanceof UploadRefusedError) return refusal(error.httpStatus, error.message, error.reason);
-    return errorResponse(error);
-  }
-}
+  },
+});

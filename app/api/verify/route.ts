@@ -1,9 +1,11 @@
 import { createHash } from "node:crypto";
 import { NextResponse } from "next/server";
 import { env } from "@/lib/env";
+import { defineRoute } from "@/lib/http";
 import { checkStampedFile, SHA256_HEX } from "@/lib/services/verify/stamped-file";
 import { clientAddress, takeVerifyPoint } from "@/lib/services/verify/rate-limit";
-import { BodyTooLargeError, forEachChunkLimited, readFormDataLimited } from "@/lib/uploads/limited-body";
+import { sha256BodySchema } from "@/lib/schemas/edges";
+import { BodyTooLargeError, forEachChunkLimited, readFormDataLimited, readTextLimited } from "@/lib/uploads/limited-body";
 
 /**
  * Public: checks whether a file is a stamped packet, by its SHA-256 or by the
@@ -24,6 +26,14 @@ async function limited(request: Request): Promise<Response | null> {
   return wait === null ? null : refuse(429, `Too many checks from this address; try again in ${wait} s.`, { "retry-after": String(wait) });
 }
 
+function safeJson(text: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch {
+    return null;
+  }
+}
+
 function answer(sha256: string) {
   return NextResponse.json(checkStampedFile(sha256), { headers: { "cache-control": "no-store" } });
 }
@@ -34,23 +44,37 @@ async function hashStream(request: Request, limitBytes: number): Promise<string>
   return hash.digest("hex");
 }
 
-export async function GET(request: Request): Promise<Response> {
-  const refused = await limited(request);
-  if (refused) return refused;
-  const sha256 = (new URL(request.url).searchParams.get("sha256") ?? "").trim().toLowerCase();
-  if (!SHA256_HEX.test(sha256)) return refuse(400, "Give the file's SHA-256 as 64 hexadecimal characters.");
-  return answer(sha256);
-}
+export const GET = defineRoute({
+  access: "public",
+  run: async ({ request }) => {
+    const refused = await limited(request);
+    if (refused) return refused;
+    const sha256 = (new URL(request.url).searchParams.get("sha256") ?? "").trim().toLowerCase();
+    if (!SHA256_HEX.test(sha256)) return refuse(400, "Give the file's SHA-256 as 64 hexadecimal characters.");
+    return answer(sha256);
+  },
+});
 
-export async function POST(request: Request): Promise<Response> {
+/** Public, and read-only: the wrapper's origin check does not stop a counter's own tools posting a file. */
+export const POST = defineRoute({
+  access: "public",
+  stream: true,
+  get maxBytes() {
+    return maxPacketBytes() + 64 * 1024;
+  },
+  run: ({ request }) => check(request),
+});
+
+async function check(request: Request): Promise<Response> {
   const refused = await limited(request);
   if (refused) return refused;
   const type = (request.headers.get("content-type") ?? "").toLowerCase();
   const limit = maxPacketBytes();
   try {
     if (type.startsWith("application/json")) {
-      const body = (await request.json().catch(() => null)) as { sha256?: unknown } | null;
-      const sha256 = typeof body?.sha256 === "string" ? body.sha256.trim().toLowerCase() : "";
+      const text = await readTextLimited(request, 4 * 1024);
+      const body = sha256BodySchema.safeParse(safeJson(text));
+      const sha256 = body.success ? body.data.sha256.trim().toLowerCase() : "";
       if (!SHA256_HEX.test(sha256)) return refuse(400, "Give the file's SHA-256 as 64 hexadecimal characters.");
       return answer(sha256);
     }

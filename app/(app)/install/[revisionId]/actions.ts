@@ -1,38 +1,30 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { z } from "zod";
-import { runAction, type ActionResult } from "@/lib/auth/action";
+import type { z } from "zod";
+import { defineAction } from "@/lib/auth/action";
+import { attachPhotoSchema, confirmItemSchema } from "@/lib/schemas/edges";
 import { confirmOnSite, unconfirmOnSite } from "@/lib/services/install/approved-set";
 
-const confirmSchema = z.object({
-  revisionId: z.string().min(1),
-  itemKind: z.enum(["label", "equipment", "clearance"]),
-  itemId: z.string().min(1).max(120),
-  confirmed: z.enum(["true", "false"]),
-});
-
-export async function toggleConfirmationAction(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
-  const parsed = confirmSchema.safeParse(Object.fromEntries(formData));
-  if (!parsed.success) return { ok: false, error: "That item could not be marked.", issues: [], code: "invalid" };
-  const { confirmed, ...item } = parsed.data;
-  const result = await runAction((ctx) => (confirmed === "true" ? confirmOnSite(ctx, item) : unconfirmOnSite(ctx, item)), "Saved.");
-  if (result.ok) revalidatePath(`/install/${item.revisionId}`);
-  return result as ActionResult;
-}
-
-const photoSchema = z.object({
-  revisionId: z.string().min(1),
-  itemKind: z.enum(["label", "equipment", "clearance"]),
-  itemId: z.string().min(1).max(120),
-  photoAttachmentId: z.string().min(1),
+export const toggleConfirmationAction = defineAction({
+  access: "user",
+  permission: "install:confirm",
+  read: (_prev: unknown, formData: FormData) => Object.fromEntries(formData ?? []),
+  schema: confirmItemSchema,
+  invalidMessage: "That item could not be marked.",
+  run: (ctx, { confirmed, ...item }) => (confirmed === "true" ? confirmOnSite(ctx, item) : unconfirmOnSite(ctx, item)),
+  message: "Saved.",
+  after: (input) => revalidatePath(`/install/${input.revisionId}`),
 });
 
 /** Records the photo just uploaded for an item, confirming the item with it. */
-export async function attachPhotoAction(input: z.input<typeof photoSchema>): Promise<ActionResult> {
-  const parsed = photoSchema.safeParse(input);
-  if (!parsed.success) return { ok: false, error: "That photo could not be recorded.", issues: [], code: "invalid" };
-  const result = await runAction((ctx) => confirmOnSite(ctx, parsed.data), "Photo recorded.");
-  if (result.ok) revalidatePath(`/install/${parsed.data.revisionId}`);
-  return result as ActionResult;
-}
+export const attachPhotoAction = defineAction({
+  access: "user",
+  permission: "install:confirm",
+  read: (input: z.input<typeof attachPhotoSchema>) => input,
+  schema: attachPhotoSchema,
+  invalidMessage: "That photo could not be recorded.",
+  run: (ctx, input) => confirmOnSite(ctx, input),
+  message: "Photo recorded.",
+  after: (input) => revalidatePath(`/install/${input.revisionId}`),
+});

@@ -1,6 +1,6 @@
 import { NextResponse } from "next/server";
-import { requireContext } from "@/lib/auth/session";
-import { handle, readJson } from "@/lib/http";
+import { defineRoute } from "@/lib/http";
+import { attachmentLinkSchema } from "@/lib/schemas/edges";
 import { deleteAttachment, getAttachmentFile, linkAttachmentToEquipment } from "@/lib/services/attachments";
 import { inlineFileHeaders } from "@/lib/security-headers";
 
@@ -10,36 +10,34 @@ function contentDisposition(kind: "attachment" | "inline", fileName: string): st
   return `${kind}; filename="${fallback}"; filename*=UTF-8''${encodeURIComponent(fileName)}`;
 }
 
-export const GET = handle(async (request: Request, { params }: { params: Promise<{ id: string }> }) => {
-  const ctx = await requireContext();
-  const { id } = await params;
-  const { attachment, bytes } = await getAttachmentFile(ctx, id);
-  const inline = new URL(request.url).searchParams.get("inline") === "1";
-  return new Response(bytes as Uint8Array<ArrayBuffer>, {
-    status: 200,
-    headers: {
-      "Content-Type": attachment.mimeType,
-      "Content-Length": String(bytes.byteLength),
-      "Content-Disposition": contentDisposition(inline ? "inline" : "attachment", attachment.fileName),
-      ...inlineFileHeaders(),
-      "Cache-Control": "private, no-store",
-      ETag: `"${attachment.sha256}"`,
-    },
-  });
+export const GET = defineRoute({
+  access: "user",
+  run: async ({ ctx, request, params }) => {
+    const { attachment, bytes } = await getAttachmentFile(ctx, params.id ?? "");
+    const inline = new URL(request.url).searchParams.get("inline") === "1";
+    return new Response(bytes as Uint8Array<ArrayBuffer>, {
+      status: 200,
+      headers: {
+        "Content-Type": attachment.mimeType,
+        "Content-Length": String(bytes.byteLength),
+        "Content-Disposition": contentDisposition(inline ? "inline" : "attachment", attachment.fileName),
+        ...inlineFileHeaders(),
+        "Cache-Control": "private, no-store",
+        ETag: `"${attachment.sha256}"`,
+      },
+    });
+  },
 });
 
-export const PATCH = handle(async (request: Request, { params }: { params: Promise<{ id: string }> }) => {
-  const ctx = await requireContext();
-  const { id } = await params;
-  const body = await readJson(request);
-  if (!body.ok) return body.response;
-  const raw = (body.body as { equipmentTag?: unknown } | null)?.equipmentTag;
-  const tag = typeof raw === "string" ? raw : null;
-  return NextResponse.json({ attachment: linkAttachmentToEquipment(ctx, id, tag) });
+export const PATCH = defineRoute({
+  access: "user",
+  permission: "attachment:upload",
+  json: attachmentLinkSchema,
+  run: ({ ctx, params, body }) => NextResponse.json({ attachment: linkAttachmentToEquipment(ctx, params.id ?? "", body.equipmentTag ?? null) }),
 });
 
-export const DELETE = handle(async (_request: Request, { params }: { params: Promise<{ id: string }> }) => {
-  const ctx = await requireContext();
-  const { id } = await params;
-  return NextResponse.json(await deleteAttachment(ctx, id));
+export const DELETE = defineRoute({
+  access: "user",
+  permission: "attachment:delete",
+  run: async ({ ctx, params }) => NextResponse.json(await deleteAttachment(ctx, params.id ?? "")),
 });

@@ -1,10 +1,8 @@
 import { NextResponse } from "next/server";
-import { requireContext } from "@/lib/auth/session";
-import { handle } from "@/lib/http";
+import { defineRoute } from "@/lib/http";
 import { getRevision } from "@/lib/services/revisions";
 
-export const GET = handle(async (_request: Request, { params }: { params: Promise<{ id: string }> }) => {
-  const ctx = await requireContext();
-  const { id } = await params;
-  return NextResponse.json(getRevision(ctx, id), { headers: { "cache-control": "no-store" } });
+export const GET = defineRoute({
+  access: "user",
+  run: ({ ctx, params }) => NextResponse.json(getRevision(ctx, params.id ?? ""), { headers: { "cache-control": "no-store" } }),
 });

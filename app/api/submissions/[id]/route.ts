@@ -1,10 +1,8 @@
 import { NextResponse } from "next/server";
-import { requireContext } from "@/lib/auth/session";
-import { handle } from "@/lib/http";
+import { defineRoute } from "@/lib/http";
 import { getSubmission } from "@/lib/services/submissions";
 
-export const GET = handle(async (_request: Request, { params }: { params: Promise<{ id: string }> }) => {
-  const ctx = await requireContext();
-  const { id } = await params;
-  return NextResponse.json({ submission: getSubmission(ctx, id) });
+export const GET = defineRoute({
+  access: "user",
+  run: ({ ctx, params }) => NextResponse.json({ submission: getSubmission(ctx, params.id ?? "") }),
 });

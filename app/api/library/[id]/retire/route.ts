@@ -1,16 +1,14 @@
 import { NextResponse } from "next/server";
-import { requireContext } from "@/lib/auth/session";
-import { handle, readJson } from "@/lib/http";
+import { defineRoute } from "@/lib/http";
+import { optionalVersionSchema } from "@/lib/schemas/edges";
 import { retireLibraryItem } from "@/lib/services/library/retire";
-import { versionedBody } from "../../versioned-body";
 
-/** POST /api/library/<id>/retire, optionally with { version } → the item, out of the picker but still readable. */
-export const POST = handle(async (request: Request, { params }: { params: Promise<{ id: string }> }) => {
-  const ctx = await requireContext();
-  const { id } = await params;
-  // The body is optional ({ version }); a missing or malformed one means "whatever version is current".
-  const body = await readJson(request, { maxBytes: 4 * 1024 });
-  if (!body.ok && (body.response.status === 413 || request.headers.has("content-type"))) return body.response;
-  const { version } = versionedBody(body.ok ? body.body : {});
-  return NextResponse.json({ item: retireLibraryItem(ctx, id, version) });
+/** POST /api/library/<id>/retire, optionally with { version } → the item, out of the picker but still readable. A body left out means "whatever version is current". */
+export const POST = defineRoute({
+  access: "user",
+  permission: "library:edit",
+  json: optionalVersionSchema,
+  optional: true,
+  maxBytes: 4 * 1024,
+  run: ({ ctx, params, body }) => NextResponse.json({ item: retireLibraryItem(ctx, params.id ?? "", body.version) }),
 });

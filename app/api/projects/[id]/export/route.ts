@@ -1,5 +1,4 @@
-import { requireContext } from "@/lib/auth/session";
-import { handle } from "@/lib/http";
+import { defineRoute } from "@/lib/http";
 import { getProjectRecord } from "@/lib/services/projects/get-record";
 
 /** File names keep to letters, digits and dashes so every browser and file system takes them. */
@@ -16,15 +15,16 @@ function fileName(name: string): string {
 }
 
 /** The stored record as a project file download (the same format the check command and import read). */
-export const GET = handle(async (_request: Request, { params }: { params: Promise<{ id: string }> }) => {
-  const ctx = await requireContext();
-  const { id } = await params;
-  const { record } = getProjectRecord(ctx, id);
-  return new Response(JSON.stringify(record, null, 2) + "\n", {
-    headers: {
-      "content-type": "application/json; charset=utf-8",
-      "content-disposition": `attachment; filename="${fileName(record.name)}"`,
-      "cache-control": "no-store",
-    },
-  });
+export const GET = defineRoute({
+  access: "user",
+  run: ({ ctx, params }) => {
+    const { record } = getProjectRecord(ctx, params.id ?? "");
+    return new Response(JSON.stringify(record, null, 2) + "\n", {
+      headers: {
+        "content-type": "application/json; charset=utf-8",
+        "content-disposition": `attachment; filename="${fileName(record.name)}"`,
+        "cache-control": "no-store",
+      },
+    });
+  },
 });

@@ -1,8 +1,7 @@
 import { NextResponse } from "next/server";
-import { requireContext } from "@/lib/auth/session";
 import { env } from "@/lib/env";
-import { errorResponse, originRefusal, withApiHeaders } from "@/lib/http";
-import { uploadStampImage, UploadRefusedError } from "@/lib/services/reviews";
+import { defineRoute } from "@/lib/http";
+import { uploadStampImage } from "@/lib/services/reviews";
 import { requirePermission } from "@/lib/services/context";
 import { formatBytes } from "@/lib/uploads/format-bytes";
 import { BodyTooLargeError, readFormDataLimited } from "@/lib/uploads/limited-body";
@@ -15,17 +14,15 @@ function refusal(status: number, message: string, reason: string) {
 }
 
 /** The reviewer's stamp image, one PNG or JPEG under "file" as multipart/form-data. */
-export async function POST(request: Request): Promise<Response> {
-  return withApiHeaders(await receive(request));
-}
-
-async function receive(request: Request): Promise<Response> {
-  try {
-    const refused = originRefusal(request);
-    if (refused) return refused;
-    const ctx = await requireContext();
-    // Who may keep a stamp is known before a byte of the body is read.
-    requirePermission(ctx, "licence:edit-own", "keep a licence record");
+export const POST = defineRoute({
+  access: "user",
+  // Who may keep a stamp is known before a byte of the body is read.
+  permission: "licence:edit-own",
+  stream: true,
+  get maxBytes() {
+    return env().UPLOAD_MAX_BYTES + MULTIPART_OVERHEAD_BYTES;
+  },
+  run: async ({ ctx, request, maxBytes: bodyLimit }) => {
     requirePermission(ctx, "attachment:upload", "attach files");
     const maxBytes = env().UPLOAD_MAX_BYTES;
     if (!(request.headers.get("content-type") ?? "").toLowerCase().startsWith("multipart/form-data")) {
@@ -33,7 +30,7 @@ async function receive(request: Request): Promise<Response> {
     }
     let form: FormData;
     try {
-      form = await readFormDataLimited(request, maxBytes + MULTIPART_OVERHEAD_BYTES);
+      form = await readFormDataLimited(request, bodyLimit);
     } catch (error) {
       if (error instanceof BodyTooLargeError) return refusal(413, `The image is larger than the largest file accepted, ${formatBytes(maxBytes)}.`, "too-large");
       return refusal(400, "The upload arrived incomplete and could not be read. Try again.", "missing-field");
@@ -43,8 +40,5 @@ async function receive(request: Request): Promise<Response> {
     if (file.size > maxBytes) return refusal(413, `“${file.name}” is ${formatBytes(file.size)}; the largest file accepted is ${formatBytes(maxBytes)}.`, "too-large");
     const licence = await uploadStampImage(ctx, { fileName: file.name, bytes: new Uint8Array(await file.arrayBuffer()) }, { maxBytes });
     return NextResponse.json({ licence, message: `Stamp image “${licence.stamp?.fileName ?? file.name}” saved.` }, { status: 201 });
-  } catch (error) {
-    if (error instanceof UploadRefusedError) return refusal(error.httpStatus, error.message, error.reason);
-    return errorResponse(error);
-  }
-}
+  },
+});

@@ -1,11 +1,9 @@
 import { NextResponse } from "next/server";
-import { requireContext } from "@/lib/auth/session";
-import { handle } from "@/lib/http";
+import { defineRoute } from "@/lib/http";
 import { preflightPacket } from "@/lib/services/revisions";
 
 /** What a packet generated now would lack: missing documents, failing checks, incomplete labels. */
-export const GET = handle(async (_request: Request, { params }: { params: Promise<{ id: string }> }) => {
-  const ctx = await requireContext();
-  const { id } = await params;
-  return NextResponse.json(preflightPacket(ctx, id), { headers: { "cache-control": "no-store" } });
+export const GET = defineRoute({
+  access: "user",
+  run: ({ ctx, params }) => NextResponse.json(preflightPacket(ctx, params.id ?? ""), { headers: { "cache-control": "no-store" } }),
 });
