@@ -34,6 +34,8 @@ vi.mock("@/auth", () => ({
   handlers: { GET: async () => new Response(null), POST: async () => new Response(null) },
 }));
 vi.mock("next/cache", () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
+// Server actions read the request's Origin and Host (defineAction); these calls come from the app's own pages.
+vi.mock("next/headers", () => ({ headers: async () => new Headers({ origin: "http://localhost:3000", host: "localhost:3000", "sec-fetch-site": "same-origin" }) }));
 
 const { migrateDatabase, openDatabase } = await import("../../db/client");
 const { ENTRIES, OUTSIDE_THE_TABLE } = await import("./access/table");

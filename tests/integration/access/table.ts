@@ -1,6 +1,9 @@
 import fs from "node:fs";
 import { eq } from "drizzle-orm";
 import * as accountPasswordActions from "../../../app/(app)/account/password/actions";
+import * as shellActions from "../../../app/(app)/shell/actions";
+import * as resetActions from "../../../app/(auth)/forgot-password/actions";
+import * as linkActions from "../../../app/(auth)/set-password/actions";
 import * as adminUserActions from "../../../app/(app)/admin/users/actions";
 import * as installActions from "../../../app/(app)/install/[revisionId]/actions";
 import * as templateActions from "../../../app/(app)/jurisdictions/[id]/actions";
@@ -30,8 +33,6 @@ import * as revisionDocxRoute from "../../../app/api/revisions/[id]/docx/route";
 import * as revisionPdfRoute from "../../../app/api/revisions/[id]/pdf/route";
 import * as revisionRoute from "../../../app/api/revisions/[id]/route";
 import * as sendRoute from "../../../app/api/revisions/[id]/send/route";
-import * as voidRoute from "../../../app/api/submissions/[id]/events/[eventId]/void/route";
-import * as eventsRoute from "../../../app/api/submissions/[id]/events/route";
 import * as submissionRoute from "../../../app/api/submissions/[id]/route";
 import * as submissionsRoute from "../../../app/api/submissions/route";
 import * as uploadsRoute from "../../../app/api/uploads/route";
@@ -220,30 +221,7 @@ export const ENTRIES: Entry[] = [
 
   // Submissions
   { name: "GET /api/submissions", allowed: SUBMISSION_READERS, scoped: false, call: () => http(submissionsRoute.GET, "GET", "/api/submissions") },
-  {
-    name: "POST /api/submissions",
-    allowed: OFFICE,
-    scoped: true,
-    setup: async (w) => ({ revisionId: await w.fresh.approvedRevision() }),
-    call: (_w, { revisionId }) => http(submissionsRoute.POST, "POST", "/api/submissions", { json: { revisionId, method: "counter", occurredOn: "2026-11-26" } }),
-  },
   { name: "GET /api/submissions/[id]", allowed: SUBMISSION_READERS, scoped: true, call: (w) => http(submissionRoute.GET, "GET", `/api/submissions/${w.submissionId}`, { params: { id: w.submissionId } }) },
-  {
-    name: "POST /api/submissions/[id]/events",
-    allowed: OFFICE,
-    scoped: true,
-    setup: freshSubmission,
-    call: (_w, { submissionId }) =>
-      http(eventsRoute.POST, "POST", `/api/submissions/${submissionId}/events`, { params: { id: submissionId! }, json: { kind: "in-plan-review", occurredOn: "2026-11-27" } }),
-  },
-  {
-    name: "POST /api/submissions/[id]/events/[eventId]/void",
-    allowed: OFFICE,
-    scoped: true,
-    setup: freshSubmission,
-    call: (_w, { submissionId, eventId }) =>
-      http(voidRoute.POST, "POST", `/api/submissions/${submissionId}/events/${eventId}/void`, { params: { id: submissionId!, eventId: eventId! }, json: { reason: "Entered against the wrong permit." } }),
-  },
 
   // Public: an AHJ checks a stamped packet without an account.
   { name: "GET /api/health", allowed: "public", scoped: false, call: () => http(healthRoute.GET, "GET", "/api/health") },
@@ -272,6 +250,18 @@ export const ENTRIES: Entry[] = [
     allowed: ADMIN,
     scoped: true,
     call: (w) => action(adminUserActions.setRolesAction(null, form({ userId: w.spareUserId, version: userVersion(w, w.spareUserId), "role-designer": "on" }))),
+  },
+  {
+    name: "inviteUserAction",
+    allowed: ADMIN,
+    scoped: false,
+    call: () => action(adminUserActions.inviteUserAction(null, form({ name: "Wren Aldous", email: `wren-${++unique}@larch.test`, "role-office": "on" }))),
+  },
+  {
+    name: "setPasswordAction",
+    allowed: ADMIN,
+    scoped: true,
+    call: (w) => action(adminUserActions.setPasswordAction(null, form({ userId: w.spareUserId, version: userVersion(w, w.spareUserId), password: "an admin's pick 2026" }))),
   },
   {
     name: "setActiveAction",
@@ -350,6 +340,23 @@ export const ENTRIES: Entry[] = [
     call: () =>
       action(reviewActions.uploadCertificateAction(null, form({ certificatePassword: "secret" }, { certificate: new File([new Uint8Array([0x30, 0x82, 0x01])], "me.p12", { type: "application/x-pkcs12" }) }))),
   },
+
+  // Server actions open to anyone: asking for a reset link (the same answer whether or not the e-mail has an
+  // account), choosing a password from a link (a made-up token is refused by the link's check, not the caller's role),
+  // and signing out.
+  {
+    name: "requestResetAction",
+    allowed: "public",
+    scoped: false,
+    call: () => action(resetActions.requestResetAction(null, form({ email: `nobody-${++unique}@larch.test` }))),
+  },
+  {
+    name: "redeemLinkAction",
+    allowed: "public",
+    scoped: false,
+    call: () => action(linkActions.redeemLinkAction(null, form({ token: "A".repeat(43), newPassword: "a made-up link's pick", confirmPassword: "a made-up link's pick" }))),
+  },
+  { name: "signOutAction", allowed: "public", scoped: false, call: () => action(shellActions.signOutAction()) },
 
   // Server actions: everyone signed in, and installers
   {
