@@ -72,10 +72,7 @@ export function SetPasswordForm({ userId, version, name }: { userId: string; ver
       <form action={action} aria-label={`Set a password for ${name}`} className="mt-2 flex flex-wrap items-center gap-2">
         <input type="hidden" name="userId" value={userId} />
         <input type="hidden" name="version" value={version} />
-        <label htmlFor={`set-password-${userId}`} className="sr-only">
-          New password for {name} (12+ characters)
-        </label>
-        <input id={`set-password-${userId}`} name="password" type="text" minLength={12} className="input w-48" autoComplete="off" required placeholder="12+ characters" />
+        <input id={`set-password-${userId}`} aria-label={`New password for ${name} (12+ characters)`} name="password" type="text" minLength={12} className="input w-48" autoComplete="off" required placeholder="12+ characters" />
         <button className="btn-quiet" type="submit" disabled={pending}>
           Set password
         </button>

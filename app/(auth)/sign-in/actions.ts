@@ -1,10 +1,13 @@
 "use server";
 
 import { AuthError, CredentialsSignin } from "next-auth";
+import { redirect } from "next/navigation";
 import { signIn } from "@/auth";
+import { CHANGE_PASSWORD_PAGE } from "@/auth.config";
 import { defineAction, formText } from "@/lib/auth/action";
 import { env } from "@/lib/env";
 import { signInFormSchema } from "@/lib/schemas/edges";
+import { passwordChangePending } from "@/lib/services/users/account-links";
 
 /** What the form shows after a refused sign-in: the message, and the e-mail typed, to keep in the field. */
 export interface SignInState {
@@ -37,12 +40,13 @@ export const signInAction = defineAction({
     // Only same-site paths, so the sign-in page cannot be used to send people elsewhere.
     const redirectTo = next.startsWith("/") && !next.startsWith("//") ? next : "/";
     try {
-      await signIn("credentials", { email, password, redirectTo });
-      return {};
+      await signIn("credentials", { email, password, redirect: false });
     } catch (error) {
       if (error instanceof CredentialsSignin) return { error: messageFor(error.code), email };
       if (error instanceof AuthError) return { error: messageFor(undefined), email };
-      throw error; // the redirect after a successful sign-in
+      throw error;
     }
+    // A password an admin chose is replaced before anything else; going there directly keeps the address bar honest.
+    redirect(passwordChangePending(email) ? CHANGE_PASSWORD_PAGE : redirectTo);
   },
 });

@@ -226,3 +226,13 @@ export async function redeemAccountLink(db: Db, input: unknown, options: { now?:
     return { message: "Password set. Sign in with it now.", email: user.email };
   });
 }
+
+/**
+ * Whether the account just signed in with this e-mail still holds a password
+ * an admin chose, so sign-in sends the person straight to the password change.
+ * Asked only after a successful sign-in, so it tells nothing about who has an account.
+ */
+export function passwordChangePending(email: string, db: Db = getDb()): boolean {
+  const row = db.select({ pending: users.mustChangePassword }).from(users).where(eq(users.email, email.trim().toLowerCase())).get();
+  return row?.pending === true;
+}
