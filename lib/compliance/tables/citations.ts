@@ -17,6 +17,9 @@ export interface CitationEntry {
 
 const SAME = "from memory: same number in NEC 2017, 2020 and 2023";
 
+const GROUNDING_690_41 =
+  "NEC 2017 690.41 text as quoted in a published 2017 change analysis; same numbers in 2020 and 2023 from memory";
+
 function entries(edition: NecEdition, list: [string, string][]): CitationEntry[] {
   return list.map(([section, confirmed]) => ({ ref: section.startsWith("IFC") ? section : `NEC ${edition} ${section}`, confirmed }));
 }
@@ -36,6 +39,8 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["445.13(A)", SAME],
     ["445.18", SAME],
     ["690.11", SAME],
+    ["690.41(A)", GROUNDING_690_41],
+    ["690.41(B)", GROUNDING_690_41],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
@@ -94,6 +99,8 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["445.13(A)", SAME],
     ["445.18", SAME],
     ["690.11", SAME],
+    ["690.41(A)", GROUNDING_690_41],
+    ["690.41(B)", GROUNDING_690_41],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
@@ -150,6 +157,8 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["445.13(A)", SAME],
     ["445.18", SAME],
     ["690.11", SAME],
+    ["690.41(A)", GROUNDING_690_41],
+    ["690.41(B)", GROUNDING_690_41],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
