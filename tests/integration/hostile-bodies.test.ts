@@ -53,6 +53,8 @@ const routes = {
   uploads: await import("../../app/api/uploads/route"),
   stamp: await import("../../app/api/reviews/licence/stamp/route"),
   verify: await import("../../app/api/verify/route"),
+  templates: await import("../../app/api/templates/route"),
+  template: await import("../../app/api/templates/[id]/route"),
 };
 const actions = {
   admin: await import("../../app/(app)/admin/users/actions"),
@@ -67,6 +69,8 @@ const db = getDb();
 const world = await buildWorld(db, dirs.packets, dirs.uploads);
 const draftRevisionId = await world.fresh.draftRevision();
 const retiredItemId = world.fresh.libraryItem(true);
+const { saveTemplateFromProject } = await import("../../lib/services/templates/save");
+const templateId = saveTemplateFromProject(world.ctx.designer, world.projectId, { name: "Hut kit" }).id;
 afterAll(() => fs.rmSync(dirs.root, { recursive: true, force: true }));
 
 const actorFor = (role: Role) => world.actors.find((a) => a.kind === "user" && a.org === "own" && a.role === role)!;
@@ -134,6 +138,8 @@ const JSON_TARGETS: JsonTarget[] = [
   },
   { name: "POST /api/library/[id]/retire", role: "designer", keys: ["version"], send: json(routes.libraryRetire.POST, "POST", `/api/library/${world.libraryItemId}/retire`, { id: world.libraryItemId }) },
   { name: "POST /api/library/[id]/restore", role: "designer", keys: ["version"], send: json(routes.libraryRestore.POST, "POST", `/api/library/${retiredItemId}/restore`, { id: retiredItemId }) },
+  { name: "POST /api/templates", role: "designer", keys: ["projectId", "name", "description", "replaceTemplateId", "expectedVersion"], send: json(routes.templates.POST, "POST", "/api/templates") },
+  { name: "PATCH /api/templates/[id]", role: "designer", keys: ["version", "name", "description"], send: json(routes.template.PATCH, "PATCH", `/api/templates/${templateId}`, { id: templateId }) },
   { name: "POST /api/revisions/[id]/send", role: "designer", keys: ["message"], send: json(routes.send.POST, "POST", `/api/revisions/${draftRevisionId}/send`, { id: draftRevisionId }) },
   { name: "POST /api/submissions", role: "office", keys: ["revisionId", "method", "referenceNumber", "occurredOn", "note"], send: json(routes.submissions.POST, "POST", "/api/submissions") },
   {
