@@ -1,6 +1,6 @@
 "use client";
 
-import { useInfiniteQuery, useQueryClient } from "@tanstack/react-query";
+import { keepPreviousData, useInfiniteQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useState } from "react";
@@ -19,21 +19,28 @@ export function ProjectsTable({ jurisdictions, canEdit }: { jurisdictions: { id:
   const pathname = usePathname();
   const searchParams = useSearchParams();
   const queryClient = useQueryClient();
-  const filters = new URLSearchParams();
-  for (const key of FILTER_KEYS) {
-    const value = searchParams.get(key);
-    if (value) filters.set(key, value);
-  }
-  const filterString = filters.toString();
+  // The filters are held here and written to the address, so quick changes build on each other, not on a stale address.
+  const [filterString, setFilterString] = useState(() => {
+    const initial = new URLSearchParams();
+    for (const key of FILTER_KEYS) {
+      const value = searchParams.get(key);
+      if (value) initial.set(key, value);
+    }
+    return initial.toString();
+  });
+  const filters = new URLSearchParams(filterString);
   const archived = filters.get("archived") === "1";
   const [search, setSearch] = useState(filters.get("q") ?? "");
   const [restoreError, setRestoreError] = useState<string | null>(null);
 
   const setFilter = (key: (typeof FILTER_KEYS)[number], value: string) => {
-    const next = new URLSearchParams(filterString);
-    if (value) next.set(key, value);
-    else next.delete(key);
-    router.replace(next.size ? `${pathname}?${next}` : pathname, { scroll: false });
+    setFilterString((current) => {
+      const next = new URLSearchParams(current);
+      if (value) next.set(key, value);
+      else next.delete(key);
+      router.replace(next.size ? `${pathname}?${next}` : pathname, { scroll: false });
+      return next.toString();
+    });
   };
 
   // A firm may hold thousands of projects: pages of 50, filtered and sorted by the server.
@@ -46,6 +53,8 @@ export function ProjectsTable({ jurisdictions, canEdit }: { jurisdictions: { id:
       return fetchJson<{ projects: ProjectListRow[]; nextCursor: string | null }>(`/api/projects${params.size ? `?${params}` : ""}`);
     },
     getNextPageParam: (last) => last.nextCursor,
+    // The rows on screen stay while the next filter's rows load, rather than blinking to "Loading".
+    placeholderData: keepPreviousData,
   });
 
   const restore = async (id: string) => {
@@ -68,12 +77,12 @@ export function ProjectsTable({ jurisdictions, canEdit }: { jurisdictions: { id:
         setFilter("q", search.trim());
       }}
     >
-      <label className="min-w-64 flex-1">
+      <label className="min-w-80 flex-1">
         <span className="field-label mb-1 block">Search</span>
         <span className="flex gap-2">
           <input
             type="search"
-            className="input"
+            className="input min-w-0 flex-1"
             value={search}
             maxLength={100}
             placeholder="Name, client, address or tag"
