@@ -18,3 +18,4 @@ export * from "./installations";
 export * from "./signing";
 export * from "./jobs";
 export * from "./account-tokens";
+export * from "./project-templates";

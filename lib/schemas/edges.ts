@@ -86,3 +86,18 @@ export const signInFormSchema = z.object({
   password: z.string().max(1000, { message: "is too long" }),
   next: z.string().max(2000),
 });
+
+/** Saves a project's design as a template: a new one, or in place of `replaceTemplateId`. */
+export const projectTemplateFromProjectSchema = z.object({
+  projectId: z.string({ error: "the project to save from is required" }).min(1).max(64),
+  name: z.unknown().optional(),
+  description: z.unknown().optional(),
+  replaceTemplateId: z.string().max(64).optional(),
+  expectedVersion: z.number().int().optional(),
+});
+
+export const projectTemplateRenameSchema = z.object({
+  version: z.number({ error: "the version you opened is required" }).int(),
+  name: z.unknown(),
+  description: z.unknown().optional(),
+});

@@ -1,11 +1,11 @@
 import { createHash } from "node:crypto";
 import { NextResponse } from "next/server";
 import { env } from "@/lib/env";
-import { defineRoute } from "@/lib/http";
+import { defineRoute, readJson } from "@/lib/http";
 import { checkStampedFile, SHA256_HEX } from "@/lib/services/verify/stamped-file";
 import { clientAddress, takeVerifyPoint } from "@/lib/services/verify/rate-limit";
 import { sha256BodySchema } from "@/lib/schemas/edges";
-import { BodyTooLargeError, forEachChunkLimited, readFormDataLimited, readTextLimited } from "@/lib/uploads/limited-body";
+import { BodyTooLargeError, forEachChunkLimited, readFormDataLimited } from "@/lib/uploads/limited-body";
 
 /**
  * Public: checks whether a file is a stamped packet, by its SHA-256 or by the
@@ -24,14 +24,6 @@ function refuse(status: number, error: string, headers?: HeadersInit) {
 async function limited(request: Request): Promise<Response | null> {
   const wait = await takeVerifyPoint(clientAddress(request.headers));
   return wait === null ? null : refuse(429, `Too many checks from this address; try again in ${wait} s.`, { "retry-after": String(wait) });
-}
-
-function safeJson(text: string): unknown {
-  try {
-    return JSON.parse(text);
-  } catch {
-    return null;
-  }
 }
 
 function answer(sha256: string) {
@@ -72,8 +64,10 @@ async function check(request: Request): Promise<Response> {
   const limit = maxPacketBytes();
   try {
     if (type.startsWith("application/json")) {
-      const text = await readTextLimited(request, 4 * 1024);
-      const body = sha256BodySchema.safeParse(safeJson(text));
+      // {"sha256": "<64 hex>"} is under 100 bytes; a larger JSON body is refused as it streams, not parsed.
+      const read = await readJson(request, { maxBytes: 4 * 1024 });
+      if (!read.ok) return read.response;
+      const body = sha256BodySchema.safeParse(read.body);
       const sha256 = body.success ? body.data.sha256.trim().toLowerCase() : "";
       if (!SHA256_HEX.test(sha256)) return refuse(400, "Give the file's SHA-256 as 64 hexadecimal characters.");
       return answer(sha256);

@@ -23,6 +23,7 @@ import * as projectChecksRoute from "../../../app/api/projects/[id]/checks/route
 import * as projectExportRoute from "../../../app/api/projects/[id]/export/route";
 import * as preflightRoute from "../../../app/api/projects/[id]/revisions/preflight/route";
 import * as projectRevisionsRoute from "../../../app/api/projects/[id]/revisions/route";
+import * as projectArchiveRoute from "../../../app/api/projects/[id]/archive/route";
 import * as projectRoute from "../../../app/api/projects/[id]/route";
 import * as projectImportRoute from "../../../app/api/projects/import/route";
 import * as projectsRoute from "../../../app/api/projects/route";
@@ -35,12 +36,15 @@ import * as revisionRoute from "../../../app/api/revisions/[id]/route";
 import * as sendRoute from "../../../app/api/revisions/[id]/send/route";
 import * as submissionRoute from "../../../app/api/submissions/[id]/route";
 import * as submissionsRoute from "../../../app/api/submissions/route";
+import * as templateRoute from "../../../app/api/templates/[id]/route";
+import * as templatesRoute from "../../../app/api/templates/route";
 import * as uploadsRoute from "../../../app/api/uploads/route";
 import * as verifyRoute from "../../../app/api/verify/route";
-import { equipmentLibrary, jurisdictions, submissionEvents, users } from "../../../db/schema";
+import { equipmentLibrary, jurisdictions, projectTemplates, submissionEvents, users } from "../../../db/schema";
 import type { Role } from "../../../lib/auth/roles";
 import { getProjectRecord } from "../../../lib/services/projects/get-record";
 import { createSubmission } from "../../../lib/services/submissions";
+import { saveTemplateFromProject } from "../../../lib/services/templates/save";
 import { makePng } from "../../unit/uploads/fixtures";
 import { action, form, http, type Outcome } from "./requests";
 import { noDelivery, type World } from "./world";
@@ -83,6 +87,8 @@ const userVersion = (w: World, id: string) => String(w.db.select({ v: users.vers
 const libraryVersion = (w: World, id: string) => w.db.select({ v: equipmentLibrary.version }).from(equipmentLibrary).where(eq(equipmentLibrary.id, id)).get()!.v;
 const jurisdictionVersion = (w: World) => w.db.select({ v: jurisdictions.version }).from(jurisdictions).where(eq(jurisdictions.id, w.jurisdictionId)).get()!.v;
 const libraryCsv = () => fs.readFileSync("examples/equipment-library.csv", "utf8").split("\n").slice(0, 2).join("\n").replace("BF-410M", `BF-${++unique}`);
+const templateVersion = (w: World, id: string) => w.db.select({ v: projectTemplates.version }).from(projectTemplates).where(eq(projectTemplates.id, id)).get()!.v;
+const freshTemplate = (w: World) => ({ id: saveTemplateFromProject(w.ctx.designer, w.projectId, { name: `Cabin kit ${++unique}` }).id });
 const equipmentTag = (w: World) => w.record.equipment.find((e) => e.kind === "inverter")?.tag ?? w.record.equipment[0]!.tag;
 
 async function freshSubmission(w: World): Promise<Record<string, string>> {
@@ -102,6 +108,20 @@ export const ENTRIES: Entry[] = [
     call: (w) => http(projectsRoute.POST, "POST", "/api/projects", { json: { name: `Fernhollow ${++unique}`, client: "P. Adeyemi", systemKind: "stand-alone", jurisdictionId: w.jurisdictionId, address: "4 Weir Lane" } }),
   },
   { name: "GET /api/projects/[id]", allowed: PROJECT_READERS, scoped: true, call: (w) => http(projectRoute.GET, "GET", `/api/projects/${w.projectId}`, { params: { id: w.projectId } }) },
+  {
+    name: "POST /api/projects/[id]/archive",
+    allowed: DESIGNER,
+    scoped: true,
+    setup: (w) => ({ id: w.fresh.project() }),
+    call: (_w, { id }) => http(projectArchiveRoute.POST, "POST", `/api/projects/${id}/archive`, { params: { id: id! } }),
+  },
+  {
+    name: "DELETE /api/projects/[id]/archive",
+    allowed: DESIGNER,
+    scoped: true,
+    setup: (w) => ({ id: w.fresh.project() }),
+    call: (_w, { id }) => http(projectArchiveRoute.DELETE, "DELETE", `/api/projects/${id}/archive`, { params: { id: id! } }),
+  },
   {
     name: "PUT /api/projects/[id]",
     allowed: DESIGNER,
@@ -133,6 +153,29 @@ export const ENTRIES: Entry[] = [
     scoped: true,
     setup: (w) => ({ id: w.fresh.project() }),
     call: (_w, { id }) => http(projectRevisionsRoute.POST, "POST", `/api/projects/${id}/revisions`, { params: { id: id! } }),
+  },
+
+  // Project templates: a firm's standard kits, kept by its designers
+  { name: "GET /api/templates", allowed: PROJECT_READERS, scoped: false, call: () => http(templatesRoute.GET, "GET", "/api/templates") },
+  {
+    name: "POST /api/templates",
+    allowed: DESIGNER,
+    scoped: true,
+    call: (w) => http(templatesRoute.POST, "POST", "/api/templates", { json: { projectId: w.projectId, name: `Hut kit ${++unique}` } }),
+  },
+  {
+    name: "PATCH /api/templates/[id]",
+    allowed: DESIGNER,
+    scoped: true,
+    setup: freshTemplate,
+    call: (w, { id }) => http(templateRoute.PATCH, "PATCH", `/api/templates/${id}`, { params: { id: id! }, json: { version: templateVersion(w, id!), name: `Renamed kit ${++unique}` } }),
+  },
+  {
+    name: "DELETE /api/templates/[id]",
+    allowed: DESIGNER,
+    scoped: true,
+    setup: freshTemplate,
+    call: (_w, { id }) => http(templateRoute.DELETE, "DELETE", `/api/templates/${id}`, { params: { id: id! } }),
   },
 
   // Files
