@@ -54,6 +54,7 @@ const inverterFields: RatingField[] = [
   { key: "hasOvercurrentProtection", label: "Overcurrent devices built in", type: "checkbox" },
   { key: "providesPvArcFaultProtection", label: "PV arc-fault protection (UL 1699B)", type: "tri-state" },
   { key: "neutralBonded", label: "Neutral bonded to ground", type: "tri-state", help: "Its bonding jumper or relay joins neutral and ground; only one unit in the system does." },
+  { key: "providesPvGroundFaultProtection", label: "PV ground-fault protection (690.41(B))", type: "tri-state" },
 ];
 
 const protectiveFields: RatingField[] = [
@@ -65,6 +66,12 @@ const protectiveFields: RatingField[] = [
   { key: "breakerMounting", label: "Breaker mounting", type: "select", options: opts("plug-in", "bolt-on"), help: "A back-fed plug-in breaker needs a hold-down (408.36(D))." },
   { key: "hasHoldDown", label: "Hold-down fastener", type: "tri-state" },
   { key: "locatedAtTag", label: "Stands at (tag)", type: "text", help: "The equipment it stands beside, e.g. the generator it disconnects (445.18)." },
+  {
+    key: "providesPvGroundFaultProtection",
+    label: "PV ground-fault protection (690.41(B))",
+    type: "tri-state",
+    help: "Yes for a device listed to detect PV array ground faults and open the faulted circuit.",
+  },
 ];
 
 const panelFields: RatingField[] = [
@@ -99,6 +106,7 @@ export const RATING_FIELDS: Record<EquipmentKind, RatingField[]> = {
     { key: "hasPvDisconnect", label: "PV disconnect built in", type: "checkbox" },
     { key: "hasOvercurrentProtection", label: "Overcurrent devices built in", type: "checkbox" },
     { key: "providesPvArcFaultProtection", label: "PV arc-fault protection (UL 1699B)", type: "tri-state" },
+    { key: "providesPvGroundFaultProtection", label: "PV ground-fault protection (690.41(B))", type: "tri-state" },
   ],
   inverter: inverterFields,
   "inverter-charger": inverterFields,

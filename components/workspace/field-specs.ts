@@ -35,6 +35,15 @@ const RAPID_SHUTDOWN_OPTIONS: Option[] = [
   { value: "none", label: "None" },
 ];
 
+const PV_GROUNDING_OPTIONS: Option[] = [
+  { value: "two-wire-functional-ground", label: "2-wire, one functional grounded conductor" },
+  { value: "bipolar-functional-ground", label: "Bipolar, functional ground reference" },
+  { value: "not-isolated", label: "Not isolated from a grounded inverter output" },
+  { value: "ungrounded", label: "Ungrounded" },
+  { value: "solidly-grounded", label: "Solidly grounded" },
+  { value: "other-listed", label: "Other method, listed equipment" },
+];
+
 const BATTERY_LOCATION_OPTIONS: Option[] = BATTERY_LOCATIONS.map((v) => ({ value: v, label: v.replace(/-/g, " ") }));
 
 export type FieldSpec = Pick<FieldControlProps, "path" | "label" | "type" | "options" | "required"> & { unit?: string; help?: string; wide?: boolean };
@@ -64,6 +73,13 @@ export const PROJECT_FIELDS: FieldSpec[] = [
     options: INSIDE_BOUNDARY_OPTIONS,
     help: "How a building-mounted array's conductors inside the boundary are controlled (690.12(B)(2)).",
   },
+  {
+    path: "pvGroundingConfiguration",
+    label: "PV system grounding",
+    type: "select",
+    options: PV_GROUNDING_OPTIONS,
+    help: "The 690.41(A) configuration of the PV DC circuits. Every one but a small solidly grounded array off buildings needs listed DC ground-fault protection (690.41(B)).",
+  },
 ];
 
 export const SITE_FIELDS: FieldSpec[] = [
@@ -77,6 +93,8 @@ export const SITE_FIELDS: FieldSpec[] = [
     help: "One- and two-family dwellings limit PV system voltage to 600 V (690.7).",
   },
   { path: "site.mounting", label: "Mounting", type: "select", options: MOUNTING_OPTIONS, required: true },
+  { path: "site.rackingProduct", label: "Racking product", type: "text", help: "Make and model of the racking or mounting system, printed in the packet's structural block." },
+  { path: "site.rackingListing", label: "Racking listing", type: "text", help: "The racking's listing, e.g. UL 2703 (mounting and bonding)." },
   {
     path: "site.roofClearanceIn",
     label: "Roof clearance of raceways",

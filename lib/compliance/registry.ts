@@ -18,6 +18,7 @@ import { mpptWindow } from "./checks/mppt-window";
 import { overcurrentProtection } from "./checks/overcurrent-protection";
 import { panelBusbar } from "./checks/panel-busbar";
 import { pvArcFault } from "./checks/pv-arc-fault";
+import { pvGrounding } from "./checks/pv-grounding";
 import { rapidShutdown } from "./checks/rapid-shutdown";
 import { standAloneOutput } from "./checks/stand-alone-output";
 import { standAloneSizing } from "./checks/stand-alone-sizing";
@@ -47,6 +48,7 @@ export const CHECKS: readonly CheckDefinition[] = [
   generatorDisconnects,
   rapidShutdown,
   pvArcFault,
+  pvGrounding,
   deviceRatings,
   panelBusbar,
   submittalCompleteness,

@@ -38,12 +38,27 @@ export const BATTERY_LOCATIONS = [
 
 export const RAPID_SHUTDOWN_INSIDE_BOUNDARY = ["listed-hazard-control", "80v-in-30s", "no-exposed-wiring", "none"] as const;
 
+/** The PV system grounding configurations of 690.41(A)(1)–(6), in that order. */
+export const PV_GROUNDING_CONFIGURATIONS = [
+  "two-wire-functional-ground",
+  "bipolar-functional-ground",
+  "not-isolated",
+  "ungrounded",
+  "solidly-grounded",
+  "other-listed",
+] as const;
+export type PvGroundingConfiguration = (typeof PV_GROUNDING_CONFIGURATIONS)[number];
+
 export const RESIDENTIAL_CODES = ["IRC-2018", "IRC-2021", "IRC-2024", "none"] as const;
 
 export const siteSchema = z.object({
   address: text(300).default(""),
   occupancy: z.enum(OCCUPANCIES, { error: "must be one-two-family-dwelling or other-building" }),
   mounting: z.enum(MOUNTINGS, { error: "must be ground or roof" }),
+  /** Racking or mounting system, make and model, as the structural block of the packet prints it. */
+  rackingProduct: text(200).default(""),
+  /** The racking's listing (UL 2703 for mounting and bonding, by common practice). */
+  rackingListing: text(120).default(""),
   /** Height of PV raceways above the roof, for the rooftop temperature adder. */
   roofClearanceIn: numberIn(0, 120, "in").optional(),
   designLowTempC: numberIn(-60, 70, "°C").optional(),
@@ -124,6 +139,8 @@ export const chargeControllerSchema = z.object({
   hasOvercurrentProtection: z.boolean().default(false),
   /** Listed to detect and interrupt DC arc faults on the PV input (UL 1699B), so it meets 690.11; unset when not known. */
   providesPvArcFaultProtection: z.boolean().optional(),
+  /** Listed to detect PV array ground faults and isolate the faulted circuits (690.41(B)); unset when not known. */
+  providesPvGroundFaultProtection: z.boolean().optional(),
 });
 
 export const mpptInputSchema = z.object({
@@ -157,6 +174,8 @@ export const inverterSchema = z.object({
   hasOvercurrentProtection: z.boolean().default(false),
   /** Listed to detect and interrupt DC arc faults on the PV input (UL 1699B), so it meets 690.11; unset when not known. */
   providesPvArcFaultProtection: z.boolean().optional(),
+  /** Listed to detect PV array ground faults and isolate the faulted circuits (690.41(B)); unset when not known. */
+  providesPvGroundFaultProtection: z.boolean().optional(),
   listedMode: z.enum(["stand-alone", "multimode", "interactive"]).optional(),
   /**
    * The unit bonds its AC neutral to its equipment ground (a bonding jumper, or a bonding relay, in place). The
@@ -224,6 +243,8 @@ export const protectiveDeviceSchema = z.object({
   hasHoldDown: z.boolean().optional(),
   /** The equipment the device stands at, within sight of it (a generator's own disconnect, 445.18). */
   locatedAtTag: tagSchema.optional(),
+  /** A device listed for PV ground-fault protection (690.41(B)), e.g. a ground-fault breaker on the PV circuits. */
+  providesPvGroundFaultProtection: z.boolean().optional(),
 });
 
 export const rapidShutdownSchema = z.object({
@@ -443,6 +464,7 @@ export const ATTACHMENT_KINDS = [
   "site-plan",
   "storage-listing",
   "structural-letter",
+  "attachment-detail",
   "photo",
   "stamp",
   "other",
@@ -484,6 +506,8 @@ export const projectRecordObjectSchema = z.object({
    * the design meets none of them.
    */
   rapidShutdownInsideBoundary: z.enum(RAPID_SHUTDOWN_INSIDE_BOUNDARY).optional(),
+  /** How the PV system DC circuits are grounded (690.41(A)); sets whether DC ground-fault protection is required (690.41(B)). */
+  pvGroundingConfiguration: z.enum(PV_GROUNDING_CONFIGURATIONS, { error: `must be one of ${PV_GROUNDING_CONFIGURATIONS.join(", ")}` }).optional(),
   grounding: groundingSchema.default({ electrodes: [], gecMaterial: "cu" }),
   equipment: z.array(equipmentSchema).default([]),
   arrays: z.array(arraySchema).default([]),

@@ -17,6 +17,9 @@ export interface CitationEntry {
 
 const SAME = "from memory: same number in NEC 2017, 2020 and 2023";
 
+const GROUNDING_690_41 =
+  "NEC 2017 690.41 text as quoted in a published 2017 change analysis; same numbers in 2020 and 2023 from memory";
+
 function entries(edition: NecEdition, list: [string, string][]): CitationEntry[] {
   return list.map(([section, confirmed]) => ({ ref: section.startsWith("IFC") ? section : `NEC ${edition} ${section}`, confirmed }));
 }
@@ -50,6 +53,8 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["705.12(D)(5)", "from memory: breakers back-fed from listed interactive inverters omit the 408.36(D) fastener"],
     ["225.31", "from memory"],
     ["225.32", "from memory"],
+    ["690.41(A)", GROUNDING_690_41],
+    ["690.41(B)", GROUNDING_690_41],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
@@ -122,6 +127,8 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["705.12(E)", "from memory: breakers back-fed from listed interactive inverters omit the 408.36(D) fastener"],
     ["225.31(A)", "from memory: 2020 folded 225.32 into 225.31(B)"],
     ["225.31(B)", "from memory: 2020 folded 225.32 into 225.31(B)"],
+    ["690.41(A)", GROUNDING_690_41],
+    ["690.41(B)", GROUNDING_690_41],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
@@ -192,6 +199,8 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["705.12(E)", "from memory"],
     ["225.31(A)", "from memory"],
     ["225.31(B)", "from memory"],
+    ["690.41(A)", GROUNDING_690_41],
+    ["690.41(B)", GROUNDING_690_41],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],

@@ -76,7 +76,9 @@ export type CodeTopic =
   | "interactive-backfed"
   | "generator-disconnect-means"
   | "building-disconnect"
-  | "building-disconnect-location";
+  | "building-disconnect-location"
+  | "pv-grounding-configuration"
+  | "pv-ground-fault";
 
 type ByEdition = Readonly<Record<NecEdition, string>>;
 
@@ -194,6 +196,10 @@ export const CODE_REFS: Readonly<Record<CodeTopic, ByEdition>> = {
   // 225.32 into 225.31(B) (from memory).
   "building-disconnect": { "2017": "225.31", "2020": "225.31(A)", "2023": "225.31(A)" },
   "building-disconnect-location": { "2017": "225.32", "2020": "225.31(B)", "2023": "225.31(B)" },
+  // 690.41(A) system grounding configurations and 690.41(B) DC ground-fault protection: rewritten in 2017 and kept
+  // under the same numbers in 2020 and 2023 (2017 text from a published change analysis; 2020/2023 from memory).
+  "pv-grounding-configuration": same("690.41(A)"),
+  "pv-ground-fault": same("690.41(B)"),
 };
 
 export const CODE_TOPICS = Object.keys(CODE_REFS) as readonly CodeTopic[];
