@@ -39,6 +39,8 @@ export const projects = sqliteTable(
     daysOfAutonomy: real("days_of_autonomy"),
     rapidShutdownMethod: text("rapid_shutdown_method"),
     /** Record fields not held in columns (new engine fields), kept whole rather than dropped. */
+    /** Set when the project is put away; archived projects leave the default list and can be brought back. */
+    archivedAt: text("archived_at"),
     extra: text("extra", { mode: "json" }).$type<Record<string, unknown>>().notNull().default({}),
     createdBy: text("created_by").references(() => users.id),
     createdAt: createdAt(),
@@ -49,6 +51,8 @@ export const projects = sqliteTable(
     index("projects_org_idx").on(t.orgId, t.status),
     // The projects list pages by (updated_at, id) newest first; this index serves each page without sorting the organisation.
     index("projects_org_updated_idx").on(t.orgId, t.updatedAt, t.id),
+    // Sorted by name, the list pages by (name, id) A to Z.
+    index("projects_org_name_idx").on(t.orgId, t.name, t.id),
   ],
 );
 export type Project = typeof projects.$inferSelect;
