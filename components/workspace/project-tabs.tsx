@@ -10,6 +10,7 @@ export function ProjectTabs({ projectId }: { projectId: string }) {
     { href: base, label: "Design" },
     { href: `${base}/attachments`, label: "Attachments" },
     { href: `${base}/packet`, label: "Packet" },
+    { href: `${base}/history`, label: "History" },
   ];
   return (
     <nav aria-label="Project" className="no-print mb-4 flex gap-0 border-b border-rule">
