@@ -17,8 +17,8 @@ export default async function ProjectHistoryPage({ params }: { params: Promise<{
       <table className="data-table" aria-label="Project history">
         <thead>
           <tr>
-            <th>When (UTC)</th>
-            <th>Who</th>
+            <th className="w-44">When (UTC)</th>
+            <th className="w-56">Who</th>
             <th>What</th>
           </tr>
         </thead>
