@@ -2,6 +2,7 @@ import { ProjectTabs } from "@/components/workspace/project-tabs";
 import { TitleBlock } from "@/components/workspace/title-block";
 import { Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
+import { openCorrectionCount } from "@/lib/services/corrections";
 import { approvalDrift } from "@/lib/services/projects/approval";
 import { loadProject } from "./load-project";
 
@@ -25,7 +26,7 @@ export default async function ProjectLayout({ children, params }: { children: Re
           drift={approvalDrift(ctx, id)}
         />
       ) : null}
-      <ProjectTabs projectId={id} />
+      <ProjectTabs projectId={id} openCorrections={loaded.ok ? openCorrectionCount(ctx, id) : 0} />
       {children}
     </>
   );
