@@ -67,7 +67,7 @@ function CorrectionCard({ item, assignable, canResolve, canAssign }: { item: Cor
       <p className="mt-2 text-sm">{item.comment}</p>
       <div className="mt-2 flex flex-wrap items-center gap-2 text-xs text-ink-soft">
         {canAssign && item.open ? (
-          <label className="flex items-center gap-2">
+          <label className="flex items-center gap-2 whitespace-nowrap">
             Assigned to
             <select
               className="input py-0.5 text-xs"

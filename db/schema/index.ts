@@ -18,3 +18,4 @@ export * from "./installations";
 export * from "./signing";
 export * from "./jobs";
 export * from "./corrections";
+export * from "./review-threads";

@@ -3,6 +3,7 @@ import { TitleBlock } from "@/components/workspace/title-block";
 import { Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
 import { openCorrectionCount } from "@/lib/services/corrections";
+import { openNoteCount } from "@/lib/services/reviews/note-thread";
 import { approvalDrift } from "@/lib/services/projects/approval";
 import { loadProject } from "./load-project";
 
@@ -24,6 +25,7 @@ export default async function ProjectLayout({ children, params }: { children: Re
           status={loaded.stored.status}
           version={loaded.stored.version}
           drift={approvalDrift(ctx, id)}
+          notes={openNoteCount(ctx, id)}
         />
       ) : null}
       <ProjectTabs projectId={id} openCorrections={loaded.ok ? openCorrectionCount(ctx, id) : 0} />
