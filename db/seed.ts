@@ -20,11 +20,16 @@ import { demoStampPng } from "./demo-stamp";
 import { uploadStampImage } from "../lib/services/reviews/stamp";
 import { uploadAttachment } from "../lib/services/attachments/upload";
 import { migrateDatabase, openDatabase, type Db } from "./client";
+import { assertDemoDatabase, SeedRefusedError } from "./seed-guard";
 import { DEMO_JURISDICTIONS, DEMO_LICENCE, DEMO_ORG, DEMO_PROJECT_FILES, DEMO_USERS } from "./demo-scenario";
-import { equipmentLibrary, jurisdictions, organisations, projects, reviewerLicences, userRoles, users } from "./schema";
+import { equipmentLibrary, jurisdictions, organisations, projects, projectTemplates, reviewerLicences, userRoles, users } from "./schema";
 import { importLibraryCsv } from "../lib/services/library/import-csv";
+import { createTemplate } from "../lib/services/templates/save";
+import { demoTemplates } from "./demo-templates";
 
-export async function seed(db: Db): Promise<void> {
+/** Refuses (SeedRefusedError) a database that holds a real firm's data, unless `force`. */
+export async function seed(db: Db, options: { force?: boolean; environment?: { NODE_ENV?: string } } = {}): Promise<void> {
+  assertDemoDatabase(db, options);
   let org = db.select().from(organisations).where(eq(organisations.slug, DEMO_ORG.slug)).get();
   if (!org) org = db.insert(organisations).values(DEMO_ORG).returning().get();
   const orgId = org.id;
@@ -105,6 +110,10 @@ export async function seed(db: Db): Promise<void> {
     if (report.refused.length) throw new Error(`examples/equipment-library.csv: ${report.refused.length} rows refused`);
   }
 
+  // The firm's standard kits, so a new project starts from one.
+  const hasTemplates = db.select({ id: projectTemplates.id }).from(projectTemplates).where(eq(projectTemplates.orgId, orgId)).get();
+  if (!hasTemplates) for (const template of demoTemplates()) createTemplate(designerCtx, template);
+
   await seedDemoRevisions(db, orgId);
 }
 
@@ -112,7 +121,12 @@ async function main() {
   const file = resolvePath(env().DATABASE_PATH);
   const db = openDatabase(file);
   migrateDatabase(db);
-  await seed(db);
+  try {
+    await seed(db, { force: process.argv.includes("--force") });
+  } catch (error) {
+    db.$client.close();
+    throw error;
+  }
   // --scale: grow the demo organisation to 10,000 projects for the load and query-plan benchmarks.
   if (process.argv.includes("--scale")) {
     const scaled = seedScale(db);
@@ -126,7 +140,7 @@ async function main() {
 
 if (process.argv[1] && path.resolve(process.argv[1]).endsWith(path.join("db", "seed.ts"))) {
   main().catch((error) => {
-    console.error(error);
-    process.exit(1);
+    console.error(error instanceof SeedRefusedError ? error.message : error);
+    process.exitCode = 1;
   });
 }

@@ -55,7 +55,8 @@ const serverEnv: NodeJS.ProcessEnv = {
 async function prepareDatabase(): Promise<void> {
   if (fs.existsSync(DB_FILE)) return;
   console.log(`Seeding ${DB_FILE} (demo + 10,000 projects; once)…`);
-  const code = await run("npx", ["tsx", "db/seed.ts", "--scale"], serverEnv);
+  // The bench's own throwaway file, served as production: the seed is told this is a demo database.
+  const code = await run("npx", ["tsx", "db/seed.ts", "--scale", "--force"], serverEnv);
   if (code !== 0) throw new Error("the scale seed failed");
 }
 

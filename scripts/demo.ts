@@ -7,6 +7,7 @@ import path from "node:path";
 import { migrateDatabase, openDatabase } from "../db/client";
 import { DEMO_USERS } from "../db/demo-scenario";
 import { seed } from "../db/seed";
+import { SeedRefusedError } from "../db/seed-guard";
 import { env, resolvePath } from "../lib/env";
 import { startFakeSmtp } from "./fake-smtp";
 import { ensureSecrets } from "./lib/ensure-secret";
@@ -17,8 +18,11 @@ async function main() {
   const dbFile = resolvePath(env().DATABASE_PATH);
   const db = openDatabase(dbFile);
   migrateDatabase(db);
-  await seed(db);
-  db.$client.close();
+  try {
+    await seed(db, { force: process.argv.includes("--force") });
+  } finally {
+    db.$client.close();
+  }
   console.log(`Database ready: ${dbFile}`);
 
   const built = fs.existsSync(path.join(process.cwd(), ".next", "BUILD_ID")) && fs.existsSync(path.join(process.cwd(), "dist", "worker.cjs"));
@@ -44,6 +48,6 @@ async function main() {
 }
 
 main().catch((error) => {
-  console.error(error);
+  console.error(error instanceof SeedRefusedError ? error.message : error);
   process.exit(1);
 });

@@ -53,6 +53,7 @@ const inverterFields: RatingField[] = [
   { key: "hasPvDisconnect", label: "PV disconnect built in", type: "checkbox" },
   { key: "hasOvercurrentProtection", label: "Overcurrent devices built in", type: "checkbox" },
   { key: "providesPvArcFaultProtection", label: "PV arc-fault protection (UL 1699B)", type: "tri-state" },
+  { key: "providesPvGroundFaultProtection", label: "PV ground-fault protection (690.41(B))", type: "tri-state" },
 ];
 
 const protectiveFields: RatingField[] = [
@@ -61,6 +62,12 @@ const protectiveFields: RatingField[] = [
   { key: "currentType", label: "Current", type: "select", options: [{ value: "ac", label: "AC" }, { value: "dc", label: "DC" }, { value: "ac-dc", label: "AC and DC" }] },
   { key: "interruptingRatingA", label: "Interrupting rating", unit: "A", type: "number" },
   { key: "distanceFromBatteryFt", label: "Distance from battery", unit: "ft", type: "number", help: "For a device protecting a battery circuit." },
+  {
+    key: "providesPvGroundFaultProtection",
+    label: "PV ground-fault protection (690.41(B))",
+    type: "tri-state",
+    help: "Yes for a device listed to detect PV array ground faults and open the faulted circuit.",
+  },
 ];
 
 const panelFields: RatingField[] = [
@@ -94,6 +101,7 @@ export const RATING_FIELDS: Record<EquipmentKind, RatingField[]> = {
     { key: "hasPvDisconnect", label: "PV disconnect built in", type: "checkbox" },
     { key: "hasOvercurrentProtection", label: "Overcurrent devices built in", type: "checkbox" },
     { key: "providesPvArcFaultProtection", label: "PV arc-fault protection (UL 1699B)", type: "tri-state" },
+    { key: "providesPvGroundFaultProtection", label: "PV ground-fault protection (690.41(B))", type: "tri-state" },
   ],
   inverter: inverterFields,
   "inverter-charger": inverterFields,

@@ -35,6 +35,15 @@ const RAPID_SHUTDOWN_OPTIONS: Option[] = [
   { value: "none", label: "None" },
 ];
 
+const PV_GROUNDING_OPTIONS: Option[] = [
+  { value: "two-wire-functional-ground", label: "2-wire, one functional grounded conductor" },
+  { value: "bipolar-functional-ground", label: "Bipolar, functional ground reference" },
+  { value: "not-isolated", label: "Not isolated from a grounded inverter output" },
+  { value: "ungrounded", label: "Ungrounded" },
+  { value: "solidly-grounded", label: "Solidly grounded" },
+  { value: "other-listed", label: "Other method, listed equipment" },
+];
+
 const BATTERY_LOCATION_OPTIONS: Option[] = BATTERY_LOCATIONS.map((v) => ({ value: v, label: v.replace(/-/g, " ") }));
 
 export type FieldSpec = Pick<FieldControlProps, "path" | "label" | "type" | "options" | "required"> & { unit?: string; help?: string; wide?: boolean };
@@ -63,6 +72,13 @@ export const PROJECT_FIELDS: FieldSpec[] = [
     type: "select",
     options: INSIDE_BOUNDARY_OPTIONS,
     help: "How a building-mounted array's conductors inside the boundary are controlled (690.12(B)(2)).",
+  },
+  {
+    path: "pvGroundingConfiguration",
+    label: "PV system grounding",
+    type: "select",
+    options: PV_GROUNDING_OPTIONS,
+    help: "The 690.41(A) configuration of the PV DC circuits. Every one but a small solidly grounded array off buildings needs listed DC ground-fault protection (690.41(B)).",
   },
 ];
 

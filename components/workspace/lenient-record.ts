@@ -15,7 +15,7 @@ export interface LenientParse {
 }
 
 const ROW_ARRAYS = new Set(["equipment", "arrays", "circuits", "loads", "attachments"]);
-const OPTIONAL_TOP = new Set(["daysOfAutonomy", "rapidShutdownMethod", "rapidShutdownInsideBoundary", "client"]);
+const OPTIONAL_TOP = new Set(["daysOfAutonomy", "rapidShutdownMethod", "rapidShutdownInsideBoundary", "pvGroundingConfiguration", "client"]);
 /** Dropping a row can break references to it; a few rounds settle any chain in practice. */
 const MAX_ROUNDS = 6;
 

@@ -17,5 +17,6 @@ export * from "./outbox";
 export * from "./installations";
 export * from "./signing";
 export * from "./jobs";
+export * from "./project-templates";
 export * from "./corrections";
 export * from "./review-threads";

@@ -16,6 +16,7 @@ import { mpptWindow } from "./checks/mppt-window";
 import { overcurrentProtection } from "./checks/overcurrent-protection";
 import { panelBusbar } from "./checks/panel-busbar";
 import { pvArcFault } from "./checks/pv-arc-fault";
+import { pvGrounding } from "./checks/pv-grounding";
 import { rapidShutdown } from "./checks/rapid-shutdown";
 import { standAloneSizing } from "./checks/stand-alone-sizing";
 import { standAloneSupply } from "./checks/stand-alone-supply";
@@ -41,6 +42,7 @@ export const CHECKS: readonly CheckDefinition[] = [
   standAloneSupply,
   rapidShutdown,
   pvArcFault,
+  pvGrounding,
   deviceRatings,
   panelBusbar,
   submittalCompleteness,

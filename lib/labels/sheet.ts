@@ -1,5 +1,6 @@
-import { PDFDocument, rgb } from "pdf-lib";
-import { embedPacketFonts } from "../packet/fonts";
+import { PDFDocument, rgb, type PDFPage } from "pdf-lib";
+import { embedPacketFonts, type PdfFonts } from "../packet/fonts";
+import { wrapText } from "../packet/text";
 import { labelArtwork, type ArtworkOptions } from "./artwork";
 import { drawLabelLayout, fitLabel } from "./draw";
 import type { LabelRequirement } from "./types";
@@ -61,6 +62,27 @@ export interface LabelSheetResult {
 const IN = 72;
 /** Safe inner margin so a die-cut edge does not clip the border. */
 const BLEED_IN = 0.06;
+/** The note under a sheet of labels: the smallest lettering Sundocket prints, in black. */
+const NOTE_PT = 8;
+const NOTE_LH = 10;
+
+/**
+ * Names the labels on this page whose letters fell below the minimum, in the
+ * sheet's bottom margin (below the last row of stock, where nothing is cut),
+ * so whoever prints the sheet sees which ones need a larger label.
+ */
+function drawBelowMinimumNote(page: PDFPage, fonts: PdfFonts, stock: LabelStock, titles: string[]) {
+  const bottomMarginPt = (stock.pageHeightIn - stock.marginTopIn - stock.rows * (stock.labelHeightIn + stock.gapYIn) + stock.gapYIn) * IN;
+  const x = Math.max(stock.marginLeftIn * IN, 18);
+  const width = stock.pageWidthIn * IN - 2 * x;
+  const lines = wrapText(fonts.bold, NOTE_PT, `Letters below the minimum height on this stock; print these on a larger label: ${titles.join("; ")}.`, width);
+  // The margin holds three lines; anything further is summarised rather than printed over the labels.
+  const room = Math.max(1, Math.floor((bottomMarginPt - 6) / NOTE_LH));
+  const shown = lines.length > room ? [...lines.slice(0, room - 1), `… and more: ${titles.length} labels in all on this page.`] : lines;
+  shown.forEach((line, i) => {
+    page.drawText(line, { x, y: bottomMarginPt - 4 - NOTE_PT - i * NOTE_LH, size: NOTE_PT, font: fonts.bold, color: rgb(0, 0, 0) });
+  });
+}
 
 export async function renderLabelSheet(labels: LabelRequirement[], options: LabelSheetOptions): Promise<LabelSheetResult> {
   const stock: LabelStock = LABEL_STOCKS[options.stock];
@@ -73,9 +95,17 @@ export async function renderLabelSheet(labels: LabelRequirement[], options: Labe
   const w = (stock.labelWidthIn - 2 * BLEED_IN) * IN;
   const h = (stock.labelHeightIn - 2 * BLEED_IN) * IN;
   let page = null as ReturnType<typeof doc.addPage> | null;
+  let pageBelow: string[] = [];
+  const closePage = () => {
+    if (page && pageBelow.length && perPage > 1) drawBelowMinimumNote(page, fonts, stock, pageBelow);
+    pageBelow = [];
+  };
   labels.forEach((req, i) => {
     const slot = i % perPage;
-    if (slot === 0) page = doc.addPage([stock.pageWidthIn * IN, stock.pageHeightIn * IN]);
+    if (slot === 0) {
+      closePage();
+      page = doc.addPage([stock.pageWidthIn * IN, stock.pageHeightIn * IN]);
+    }
     if (!page) return;
     const col = slot % stock.columns;
     const row = Math.floor(slot / stock.columns);
@@ -83,14 +113,13 @@ export async function renderLabelSheet(labels: LabelRequirement[], options: Labe
     const top = (stock.pageHeightIn - stock.marginTopIn - row * (stock.labelHeightIn + stock.gapYIn) - BLEED_IN) * IN;
     const art = labelArtwork(req, { ...options, widthIn: stock.labelWidthIn });
     const layout = fitLabel(art, fonts, w, h);
-    if (layout.letterScale < 1) belowMinimum.push(req.id);
-    drawLabelLayout(page, art, { ...layout, heightPt: h }, fonts, x, top, 1);
-    if (layout.letterScale < 1 && perPage > 1) {
-      page.drawText(`${req.id}: letters below minimum on this stock — use a larger label`, {
-        x: x + 2, y: top - h - 7, size: 5, font: fonts.regular, color: rgb(0.3, 0.3, 0.3),
-      });
+    if (layout.letterScale < 1) {
+      belowMinimum.push(req.id);
+      pageBelow.push(`${req.title} (${req.location})`);
     }
+    drawLabelLayout(page, art, { ...layout, heightPt: h }, fonts, x, top, 1);
   });
+  closePage();
   if (labels.length === 0) {
     const p = doc.addPage([stock.pageWidthIn * IN, stock.pageHeightIn * IN]);
     p.drawText("No labels required.", { x: 18, y: stock.pageHeightIn * IN - 30, size: 10, font: fonts.regular });

@@ -34,6 +34,14 @@ const CAUTION = /^!\s*(.*)$/;
 const FIELD = /^(.+?)\s::\s?(.*)$/;
 const TABLE_SEPARATOR = /^\|\s*:?-{3,}/;
 
+/**
+ * Column widths from the header separator, as a plain-text table shows them:
+ * `|---|-----|------------|` gives the third column four times the first.
+ */
+function columnWeights(separator: string): number[] {
+  return splitRow(separator).map((cell) => Math.max(1, (cell.match(/-/g)?.length ?? 3) / 3));
+}
+
 function splitRow(line: string): string[] {
   const inner = line.trim().replace(/^\|/, "").replace(/\|$/, "");
   return inner.split("|").map((c) => c.trim());
@@ -42,7 +50,8 @@ function splitRow(line: string): string[] {
 /**
  * Markup, one construct per line:
  *   # / ## / ### heading      - bullet      1. numbered item      ! caution
- *   Label :: value            | table | row |  (a `|---|` line after the first row makes it the header)
+ *   Label :: value            | table | row |  (a `|---|` line after the first row makes it the header;
+ *                             its dashes set the column widths: `|---|---------|` gives 1 : 3)
  *   ~~~ column break          blank line ends a paragraph; other lines join into one.
  */
 export function parseMarkup(source: string): Block[] {
@@ -53,6 +62,7 @@ export function parseMarkup(source: string): Block[] {
   let fields: [string, string][] = [];
   let table: string[][] = [];
   let tableHeader: string[] | null = null;
+  let tableWeights: number[] = [];
 
   const flush = (keep?: "list" | "caution" | "fields" | "table") => {
     if (paragraph.length) blocks.push({ kind: "paragraph", text: paragraph.join(" ") });
@@ -74,11 +84,12 @@ export function parseMarkup(source: string): Block[] {
       const header = tableHeader ?? Array.from({ length: width }, () => "");
       blocks.push({
         kind: "table",
-        columns: header.map((h) => ({ header: h, weight: 1 })),
+        columns: header.map((h, i) => ({ header: h, weight: tableWeights[i] ?? 1 })),
         rows: table.map((r) => Array.from({ length: width }, (_, i) => r[i] ?? "")),
       });
       table = [];
       tableHeader = null;
+      tableWeights = [];
     }
   };
 
@@ -96,7 +107,10 @@ export function parseMarkup(source: string): Block[] {
     if (line.startsWith("|")) {
       flush("table");
       if (TABLE_SEPARATOR.test(line)) {
-        if (!tableHeader && table.length === 1) tableHeader = table.pop() ?? null;
+        if (!tableHeader && table.length === 1) {
+          tableHeader = table.pop() ?? null;
+          tableWeights = columnWeights(line);
+        }
         continue;
       }
       table.push(splitRow(line));

@@ -9,6 +9,7 @@ import { groundingBlocks } from "./sheets/grounding";
 import { reviewBlocks } from "./sheets/review-record";
 import { sitePlanBlocks } from "./sheets/site-plan";
 import { storageBlocks } from "./sheets/storage";
+import { readableResult } from "./record-words";
 import { renderSheetTemplate } from "./templates";
 import type { PacketInput } from "./types";
 
@@ -99,7 +100,9 @@ export function buildPacketModel(input: PacketInput, options: BuildOptions = {})
       default:
         break;
     }
-    return { code: plan.code, title: plan.title, kind: plan.kind, columns: plan.columns, blocks };
+    // Check cards name missing values with the designer's field labels, on every sheet and in both writers.
+    const readable = blocks.map((b): Block => (b.kind === "check" ? { ...b, result: readableResult(record, b.result) } : b));
+    return { code: plan.code, title: plan.title, kind: plan.kind, columns: plan.columns, blocks: readable };
   });
 
   const approvalLines = approval

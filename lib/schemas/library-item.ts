@@ -191,6 +191,10 @@ const FIELD_TEXT: Record<string, { label: string; help: string }> = {
   hasPvDisconnect: { label: "PV disconnect built in", help: "The equipment carries a listed PV disconnect that counts for 690.13/690.15." },
   hasOvercurrentProtection: { label: "Overcurrent protection built in", help: "The equipment carries listed overcurrent protection for its PV or DC input." },
   providesPvArcFaultProtection: { label: "PV arc-fault protection", help: "Listed to detect and interrupt DC arc faults on its PV input (UL 1699B), which meets 690.11." },
+  providesPvGroundFaultProtection: {
+    label: "PV ground-fault protection",
+    help: "Listed to detect ground faults in the PV array's conductors and isolate the faulted circuit, which meets 690.41(B).",
+  },
   // Inverter
   continuousW: { label: "Continuous power", help: "Continuous AC output power at the rated temperature." },
   surgeW: { label: "Surge power", help: "Short-time surge output for motor starts; the datasheet names the duration." },

@@ -38,6 +38,17 @@ export const BATTERY_LOCATIONS = [
 
 export const RAPID_SHUTDOWN_INSIDE_BOUNDARY = ["listed-hazard-control", "80v-in-30s", "no-exposed-wiring", "none"] as const;
 
+/** The PV system grounding configurations of 690.41(A)(1)–(6), in that order. */
+export const PV_GROUNDING_CONFIGURATIONS = [
+  "two-wire-functional-ground",
+  "bipolar-functional-ground",
+  "not-isolated",
+  "ungrounded",
+  "solidly-grounded",
+  "other-listed",
+] as const;
+export type PvGroundingConfiguration = (typeof PV_GROUNDING_CONFIGURATIONS)[number];
+
 export const RESIDENTIAL_CODES = ["IRC-2018", "IRC-2021", "IRC-2024", "none"] as const;
 
 export const siteSchema = z.object({
@@ -124,6 +135,8 @@ export const chargeControllerSchema = z.object({
   hasOvercurrentProtection: z.boolean().default(false),
   /** Listed to detect and interrupt DC arc faults on the PV input (UL 1699B), so it meets 690.11; unset when not known. */
   providesPvArcFaultProtection: z.boolean().optional(),
+  /** Listed to detect PV array ground faults and isolate the faulted circuits (690.41(B)); unset when not known. */
+  providesPvGroundFaultProtection: z.boolean().optional(),
 });
 
 export const mpptInputSchema = z.object({
@@ -157,6 +170,8 @@ export const inverterSchema = z.object({
   hasOvercurrentProtection: z.boolean().default(false),
   /** Listed to detect and interrupt DC arc faults on the PV input (UL 1699B), so it meets 690.11; unset when not known. */
   providesPvArcFaultProtection: z.boolean().optional(),
+  /** Listed to detect PV array ground faults and isolate the faulted circuits (690.41(B)); unset when not known. */
+  providesPvGroundFaultProtection: z.boolean().optional(),
   listedMode: z.enum(["stand-alone", "multimode", "interactive"]).optional(),
 });
 
@@ -199,6 +214,8 @@ export const protectiveDeviceSchema = z.object({
   interruptingRatingA: numberIn(100, 300000, "A").optional(),
   /** Distance from the battery terminals, for devices protecting a battery circuit. */
   distanceFromBatteryFt: numberIn(0, 1000, "ft").optional(),
+  /** A device listed for PV ground-fault protection (690.41(B)), e.g. a ground-fault breaker on the PV circuits. */
+  providesPvGroundFaultProtection: z.boolean().optional(),
 });
 
 export const rapidShutdownSchema = z.object({
@@ -449,6 +466,8 @@ export const projectRecordObjectSchema = z.object({
    * the design meets none of them.
    */
   rapidShutdownInsideBoundary: z.enum(RAPID_SHUTDOWN_INSIDE_BOUNDARY).optional(),
+  /** How the PV system DC circuits are grounded (690.41(A)); sets whether DC ground-fault protection is required (690.41(B)). */
+  pvGroundingConfiguration: z.enum(PV_GROUNDING_CONFIGURATIONS, { error: `must be one of ${PV_GROUNDING_CONFIGURATIONS.join(", ")}` }).optional(),
   grounding: groundingSchema.default({ electrodes: [], gecMaterial: "cu" }),
   equipment: z.array(equipmentSchema).default([]),
   arrays: z.array(arraySchema).default([]),

@@ -4,10 +4,10 @@
  * never in habitable rooms, listing, detection, vehicle-impact protection.
  * The limits come from the siting data per code edition.
  */
-import { storageSitingRules } from "../tables";
+import { CHEMISTRY_GROUP, FIRE_CODE_THRESHOLD_KWH, FIRE_CODE_THRESHOLD_REFS, storageSitingRules, type FireCodeChemistryGroup } from "../tables";
 import type { NecEdition } from "../../schemas/project-record";
-import { Trace, v, type CheckContext } from "../context";
-import { batteries, unitKWh } from "../derive/battery";
+import { Trace, v, type CheckContext, type Indexed } from "../context";
+import { batteries, unitKWh, type Battery } from "../derive/battery";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
 import type { CheckResult, CheckStatus, RemedyChange } from "../types";
 
@@ -34,17 +34,7 @@ export const storageSiting: CheckDefinition = {
     const t = new Trace();
     t.read("jurisdiction.residentialCode", "Residential code", r.jurisdiction.residentialCode);
     t.read("site.occupancy", "Occupancy", r.site.occupancy);
-    if (r.site.occupancy !== "one-two-family-dwelling") {
-      return [
-        makeResult(this, {
-          status: "attest",
-          message: `Not a one- or two-family dwelling: the dwelling limits of ${rules.section} do not apply; confirm siting under the fire code (IFC / NFPA 855) with the AHJ.`,
-          reason: "dwelling siting limits cover one- and two-family dwellings only",
-          inputs: t.inputs,
-          codeRefs: [...codeRefs, fireCodeRef(ctx.edition)],
-        }),
-      ];
-    }
+    if (r.site.occupancy !== "one-two-family-dwelling") return [outsideDwelling(this, ctx, t, bats)];
     const location = t.need("site.batteryLocation", "Battery location", r.site.batteryLocation);
     let totalKWh = 0;
     let units = 0;
@@ -80,6 +70,18 @@ export const storageSiting: CheckDefinition = {
     }
     if (location === undefined || t.missing.length) {
       return [needsInput(this, { inputs: t.inputs, missing: t.missing, values, codeRefs })];
+    }
+    if (totalKWh < rules.exemptBelowKWh && !problems.length) {
+      return [
+        makeResult(this, {
+          status: "pass",
+          message: `${totalKWh.toFixed(2)} kWh in all, below the ${rules.exemptBelowKWh} kWh under which ${rules.section} does not apply.`,
+          values: [...values, v("aggregateKWh", "Aggregate energy", totalKWh, "kWh"), v("exemptBelowKWh", "Threshold of the dwelling rules", rules.exemptBelowKWh, "kWh")],
+          formula: `Σ unit kWh × quantity = ${totalKWh.toFixed(2)} kWh < ${rules.exemptBelowKWh} kWh`,
+          inputs: t.inputs,
+          codeRefs,
+        }),
+      ];
     }
     if (location === "habitable-room") {
       statuses.push("fail");
@@ -118,7 +120,7 @@ export const storageSiting: CheckDefinition = {
         }
       }
     }
-    if (rules.requiresDetection) {
+    if (rules.requiresDetectionIn.includes(location)) {
       const det = t.need("site.hasSmokeOrHeatDetection", "Smoke or heat detection", r.site.hasSmokeOrHeatDetection);
       if (det === undefined) statuses.push("needs-input");
       else if (!det) {
@@ -162,3 +164,56 @@ export const storageSiting: CheckDefinition = {
     ];
   },
 };
+
+/**
+ * Outside one- and two-family dwellings the dwelling limits do not apply; the fire code's storage provisions do,
+ * above its threshold quantities. Below them the result says so with the figures and passes; above them a person
+ * confirms the siting under the fire code, which Sundocket does not check.
+ */
+function outsideDwelling(def: CheckDefinition, ctx: CheckContext, t: Trace, bats: Indexed<Battery>[]): CheckResult {
+  const thresholdRefs = FIRE_CODE_THRESHOLD_REFS[ctx.edition];
+  const byGroup = new Map<FireCodeChemistryGroup, number>();
+  for (const b of bats) {
+    const kwh = unitKWh(b, t);
+    const chem = t.need(`${b.path}.chemistry`, `Chemistry of ${b.item.tag}`, b.item.chemistry);
+    if (kwh === undefined || chem === undefined) continue;
+    const group = CHEMISTRY_GROUP[chem];
+    byGroup.set(group, (byGroup.get(group) ?? 0) + kwh * b.item.quantity);
+  }
+  if (t.missing.length) return needsInput(def, { inputs: t.inputs, missing: t.missing, codeRefs: [...thresholdRefs] });
+  const values = [];
+  const terms: string[] = [];
+  let ratio = 0;
+  for (const [group, kwh] of byGroup) {
+    const limit = FIRE_CODE_THRESHOLD_KWH[group];
+    ratio += kwh / limit;
+    terms.push(`${kwh.toFixed(2)} kWh ${group} ÷ ${limit} kWh`);
+    values.push(v(`kWh:${group}`, `Energy, ${group}`, kwh, "kWh"), v(`thresholdKWh:${group}`, `Threshold, ${group}`, limit, "kWh"));
+  }
+  values.push(v("thresholdRatio", "Share of the threshold quantity", ratio, ""));
+  const formula = `Σ (energy of each chemistry ÷ its threshold) = ${terms.join(" + ")} = ${ratio.toFixed(3)} ≤ 1 → below the threshold quantity`;
+  if (ratio <= 1) {
+    const [group, kwh] = [...byGroup][0]!;
+    const what =
+      byGroup.size === 1
+        ? `${kwh.toFixed(2)} kWh of ${group} storage is at most the ${FIRE_CODE_THRESHOLD_KWH[group]} kWh threshold`
+        : `the storage is ${(ratio * 100).toFixed(0)} % of the mixed threshold quantity`;
+    return makeResult(def, {
+      status: "pass",
+      message: `Not a one- or two-family dwelling, and ${what} (${thresholdRefs[0]}): the fire code's storage provisions do not apply.`,
+      values,
+      formula,
+      inputs: t.inputs,
+      codeRefs: [...thresholdRefs],
+    });
+  }
+  return makeResult(def, {
+    status: "attest",
+    message: `Not a one- or two-family dwelling, and the storage is above the fire code's threshold quantity (${(ratio * 100).toFixed(0)} %, ${thresholdRefs[0]}): confirm siting, separation and detection under the fire code with the AHJ.`,
+    reason: "above the threshold quantity the fire code's storage provisions apply, which Sundocket does not check",
+    values,
+    formula,
+    inputs: t.inputs,
+    codeRefs: [...thresholdRefs, fireCodeRef(ctx.edition)],
+  });
+}

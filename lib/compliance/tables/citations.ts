@@ -17,6 +17,9 @@ export interface CitationEntry {
 
 const SAME = "from memory: same number in NEC 2017, 2020 and 2023";
 
+const GROUNDING_690_41 =
+  "NEC 2017 690.41 text as quoted in a published 2017 change analysis; same numbers in 2020 and 2023 from memory";
+
 function entries(edition: NecEdition, list: [string, string][]): CitationEntry[] {
   return list.map(([section, confirmed]) => ({ ref: section.startsWith("IFC") ? section : `NEC ${edition} ${section}`, confirmed }));
 }
@@ -36,6 +39,8 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["445.13(A)", SAME],
     ["445.18", SAME],
     ["690.11", SAME],
+    ["690.41(A)", GROUNDING_690_41],
+    ["690.41(B)", GROUNDING_690_41],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
@@ -94,6 +99,8 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["445.13(A)", SAME],
     ["445.18", SAME],
     ["690.11", SAME],
+    ["690.41(A)", GROUNDING_690_41],
+    ["690.41(B)", GROUNDING_690_41],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
@@ -115,6 +122,7 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["Table 250.122", SAME],
     ["Table 690.7(A)", SAME],
     ["IFC 2021 1207 / NFPA 855", "from memory"],
+    ["IFC 2021 Table 1207.1.1", "from memory: threshold quantities by chemistry, the same kWh as NFPA 855 Table 1.3"],
     ["210.19(A)(1) Informational Note No. 4", "from memory"],
     ["240.6(A)", "from memory"],
     ["310.10(G)", "from memory"],
@@ -149,6 +157,8 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["445.13(A)", SAME],
     ["445.18", SAME],
     ["690.11", SAME],
+    ["690.41(A)", GROUNDING_690_41],
+    ["690.41(B)", GROUNDING_690_41],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
@@ -170,6 +180,7 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["Table 250.122", SAME],
     ["Table 690.7(A)", SAME],
     ["IFC 2024 1207 / NFPA 855", "from memory"],
+    ["IFC 2024 Table 1207.1.1", "from memory: threshold quantities by chemistry, the same kWh as NFPA 855 Table 1.3"],
     ["210.19(A) Informational Note", "from memory"],
     ["310.10(G)", "from memory"],
     ["310.15(B)(2)", "from memory"],

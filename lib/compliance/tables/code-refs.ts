@@ -62,7 +62,9 @@ export type CodeTopic =
   | "building-voltage-limit"
   | "string-fuse"
   | "ess-ocpd"
-  | "pv-arc-fault";
+  | "pv-arc-fault"
+  | "pv-grounding-configuration"
+  | "pv-ground-fault";
 
 type ByEdition = Readonly<Record<NecEdition, string>>;
 
@@ -152,6 +154,10 @@ export const CODE_REFS: Readonly<Record<CodeTopic, ByEdition>> = {
   "ess-ocpd": { "2017": "706.21", "2020": "706.31", "2023": "706.31" },
   // 690.11 DC arc-fault circuit protection: the same number since 2011 (from memory).
   "pv-arc-fault": same("690.11"),
+  // 690.41(A) system grounding configurations and 690.41(B) DC ground-fault protection: rewritten in 2017 and kept
+  // under the same numbers in 2020 and 2023 (2017 text from a published change analysis; 2020/2023 from memory).
+  "pv-grounding-configuration": same("690.41(A)"),
+  "pv-ground-fault": same("690.41(B)"),
 };
 
 export const CODE_TOPICS = Object.keys(CODE_REFS) as readonly CodeTopic[];

@@ -60,6 +60,10 @@ export { EGC_TABLE_250_122, minimumEgcSize, type EgcRow } from "./egc-250-122";
 export { CODE_REFS, CODE_TOPICS, codeRef, type CodeTopic } from "./code-refs";
 export { CITATIONS, isMappedCitation, type CitationEntry } from "./citations";
 export {
+  CHEMISTRY_GROUP,
+  FIRE_CODE_THRESHOLD_KWH,
+  FIRE_CODE_THRESHOLD_REFS,
+  type FireCodeChemistryGroup,
   storageSitingRules,
   STORAGE_SITING_RULES,
   STORAGE_LOCATION_KINDS,

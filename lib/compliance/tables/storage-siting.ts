@@ -35,8 +35,14 @@ export interface StorageSitingRules {
   aggregateKWhByLocation: Record<string, number | null>;
   /** Clear spacing between units, in, unless large-scale fire testing (UL 9540A) documented to the building official supports less. */
   minSpacingIn: number;
-  /** Smoke alarms in the room or area (a listed heat detector interconnected with them where smoke alarms cannot go). */
-  requiresDetection: boolean;
+  /**
+   * Location kinds where smoke alarms (or a listed heat detector interconnected with them where smoke alarms cannot
+   * go) are required: rooms and areas within the dwelling, basements and attached garages (IRC 2021 R328.7, from
+   * memory). Outdoors, on an exterior wall and in a detached accessory structure the rule does not reach.
+   */
+  requiresDetectionIn: string[];
+  /** Storage below this aggregate energy is outside the dwelling rules altogether (IRC 2021 R328.1 exception 2: under 1 kWh, from memory). */
+  exemptBelowKWh: number;
   /** Location kinds where vehicle impact protection is required. */
   requiresImpactProtectionIn: string[];
   /** Units on an exterior wall or outdoors stand at least this far from doors and windows into the dwelling, in. */
@@ -70,7 +76,9 @@ const AGGREGATE_KWH: Readonly<Record<StorageLocationKind, number | null>> = {
 const SHARED_LIMITS = {
   maxUnitKWh: 20,
   minSpacingIn: 36,
-  requiresDetection: true,
+  // A record's "garage" may be attached; the stricter reading keeps detection there.
+  requiresDetectionIn: ["utility-closet", "basement", "storage-room", "garage"],
+  exemptBelowKWh: 1,
   // Garages are where vehicles travel; a detached garage recorded as an
   // accessory building is not caught here, so the check should attest it.
   requiresImpactProtectionIn: ["garage"],
@@ -90,6 +98,7 @@ function rules(
     ...SHARED_LIMITS,
     aggregateKWhByLocation: { ...AGGREGATE_KWH },
     requiresImpactProtectionIn: [...SHARED_LIMITS.requiresImpactProtectionIn],
+    requiresDetectionIn: [...SHARED_LIMITS.requiresDetectionIn],
     sections,
   };
 }
@@ -135,6 +144,45 @@ export function storageSitingRules(residentialCode: "IRC-2018" | "IRC-2021" | "I
     ...base,
     aggregateKWhByLocation: { ...base.aggregateKWhByLocation },
     requiresImpactProtectionIn: [...base.requiresImpactProtectionIn],
+    requiresDetectionIn: [...base.requiresDetectionIn],
     sections: { ...base.sections },
   };
 }
+
+/** Battery chemistries as the fire codes group them for their threshold quantities. */
+export type FireCodeChemistryGroup = "lithium-ion" | "lead-acid" | "nickel" | "other";
+
+export const CHEMISTRY_GROUP: Readonly<Record<"lfp" | "nmc" | "lead-acid-flooded" | "lead-acid-agm" | "nickel-iron" | "other", FireCodeChemistryGroup>> = {
+  lfp: "lithium-ion",
+  nmc: "lithium-ion",
+  "lead-acid-flooded": "lead-acid",
+  "lead-acid-agm": "lead-acid",
+  // The tables name nickel-cadmium and nickel-metal hydride; nickel-iron is read with them (from memory).
+  "nickel-iron": "nickel",
+  other: "other",
+};
+
+/**
+ * Threshold quantities above which the fire code's storage provisions apply to a building that is not a one- or
+ * two-family dwelling: NFPA 855 (2020 and 2023) Table 1.3 and IFC 2021 / 2024 Table 1207.1.1 carry the same kWh
+ * figures (from memory): lithium-ion 20 kWh, lead-acid 70 kWh, nickel batteries 70 kWh, other battery technologies
+ * 10 kWh. Storage of several chemistries is below the threshold when the sum of each chemistry's energy over its
+ * threshold is at most 1 (the mixed-quantity rule, from memory). The 2018 IFC (1206.2) set its thresholds by
+ * electrolyte volume and battery weight rather than energy, so a 2017 NEC jurisdiction is read against NFPA 855.
+ */
+export const FIRE_CODE_THRESHOLD_KWH: Readonly<Record<FireCodeChemistryGroup, number>> = {
+  "lithium-ion": 20,
+  "lead-acid": 70,
+  nickel: 70,
+  other: 10,
+};
+
+/**
+ * Where the thresholds stand, per NEC edition and the fire code usually adopted beside it (from memory): NEC 2017
+ * with the 2018 IFC (1206), NEC 2020 with the 2021 IFC, NEC 2023 with the 2024 IFC.
+ */
+export const FIRE_CODE_THRESHOLD_REFS: Readonly<Record<"2017" | "2020" | "2023", readonly string[]>> = {
+  "2017": ["NFPA 855 Table 1.3", "IFC 2018 1206"],
+  "2020": ["NFPA 855 Table 1.3", "IFC 2021 Table 1207.1.1"],
+  "2023": ["NFPA 855 Table 1.3", "IFC 2024 Table 1207.1.1"],
+};

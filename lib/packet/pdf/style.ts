@@ -65,6 +65,8 @@ export interface Group {
   gapAfter: number;
   /** Start in a fresh column when less than this is left (keeps a heading with what follows). */
   minSpace?: number;
+  /** Height of what must follow on the same column (a heading's first card or rows), so a heading never ends a page. */
+  keepWithNext?: number;
 }
 
 export interface PageInfo {

@@ -69,6 +69,7 @@ export class SheetWriter {
     const atTop = this.y === FLOW_TOP;
     if (!atTop && group.keepTogether && total <= this.columnHeight && total > this.remaining) this.nextColumn();
     if (!atTop && group.minSpace !== undefined && this.remaining < Math.min(group.minSpace, total)) this.nextColumn();
+    else if (!atTop && group.keepWithNext !== undefined && total + group.keepWithNext <= this.columnHeight && this.remaining < total + group.keepWithNext) this.nextColumn();
     let boxTop = this.y;
     const closeBox = () => {
       if (group.box && boxTop > this.y) {
@@ -96,6 +97,28 @@ export class SheetWriter {
     this.y -= item.h;
   }
 
+  /** What of a block must sit under the heading before it: a whole check card, a table's caption, header and first rows. */
+  private leadHeight(block: Block | undefined): number {
+    if (!block) return 0;
+    const w = this.colW;
+    const sum = (items: Item[]) => items.reduce((t, i) => t + i.h, 0);
+    switch (block.kind) {
+      case "check":
+        return sum(checkCardItems(this.ctx, block.result, w));
+      case "table": {
+        const t = tableItems(this.ctx, block, w);
+        return sum(t.caption) + t.header.h + sum(t.rows.slice(0, 2));
+      }
+      case "figure":
+        return block.figure === "split-phase" ? threeLineItem(this.ctx.fonts, block.caption, w).h : 120;
+      case "paragraph":
+      case "list":
+        return 2 * BODY_LH;
+      default:
+        return 40;
+    }
+  }
+
   writeBlocks(blocks: Block[]) {
     const { fonts } = this.ctx;
     const w = this.colW;
@@ -108,7 +131,7 @@ export class SheetWriter {
           if (block.level === 2) {
             items.push({ h: 4, draw: (p, x, top, ww) => p.drawLine({ start: { x, y: top - 1 }, end: { x: x + ww, y: top - 1 }, thickness: 0.5, color: RULE }) });
           }
-          this.place({ items, gapAfter: 3, minSpace: 60 });
+          this.place({ items, gapAfter: 3, keepWithNext: this.leadHeight(blocks[index + 1]) });
           break;
         }
         case "paragraph":
@@ -158,7 +181,7 @@ export class SheetWriter {
         }
         case "table": {
           const t = tableItems(this.ctx, block, w);
-          if (t.caption.length) this.place({ items: t.caption, gapAfter: 1, minSpace: 80 });
+          if (t.caption.length) this.place({ items: t.caption, gapAfter: 1, keepWithNext: t.header.h + t.rows.slice(0, 2).reduce((sum, r) => sum + r.h, 0) });
           this.place({ items: t.rows, repeat: t.header, box: true, gapAfter: 14, minSpace: 60 });
           break;
         }

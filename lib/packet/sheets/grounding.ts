@@ -1,5 +1,6 @@
 import { GROUNDING_ELECTRODE_KINDS, type Equipment, type ProjectRecord } from "../../schemas/project-record";
 import type { Block, Cell } from "../markup";
+import { notGiven } from "../record-words";
 import type { PacketInput } from "../types";
 import { KIND_LABEL, equipmentByTag, resultsFor, statusCell, table } from "./shared";
 
@@ -48,11 +49,11 @@ export function groundingBlocks(input: PacketInput): Block[] {
     {
       kind: "fields",
       rows: [
-        ["Grounding electrode system", g.electrodes.length ? g.electrodes.map((e) => ELECTRODE_LABEL[e]).join(", ") : "NOT GIVEN: record field grounding.electrodes"],
-        ["Grounding electrode conductor (GEC)", g.gecSize ? sizeText(g.gecSize, g.gecMaterial) : "NOT GIVEN: record field grounding.gecSize"],
+        ["Grounding electrode system", g.electrodes.length ? g.electrodes.map((e) => ELECTRODE_LABEL[e]).join(", ") : notGiven(record, "grounding.electrodes")],
+        ["Grounding electrode conductor (GEC)", g.gecSize ? sizeText(g.gecSize, g.gecMaterial) : notGiven(record, "grounding.gecSize")],
         [
           "Neutral-to-ground bond",
-          g.neutralGroundBondTag ? `at ${g.neutralGroundBondTag}${bond ? ` (${KIND_LABEL[bond.kind]})` : ""}, the only bond in the system` : "NOT GIVEN: record field grounding.neutralGroundBondTag",
+          g.neutralGroundBondTag ? `at ${g.neutralGroundBondTag}${bond ? ` (${KIND_LABEL[bond.kind]})` : ""}, the only bond in the system` : notGiven(record, "grounding.neutralGroundBondTag"),
         ],
       ],
     },

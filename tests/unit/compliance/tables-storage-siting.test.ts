@@ -24,7 +24,7 @@ describe("energy storage siting rules", () => {
     // IRC 2021 R328.3.1: 3 ft between units unless large-scale fire testing supports less.
     expect(rules.minSpacingIn).toBe(36);
     // IRC 2021 R328.7: smoke alarms (heat detector where smoke alarms cannot go).
-    expect(rules.requiresDetection).toBe(true);
+    expect(rules.requiresDetectionIn).toEqual(["utility-closet", "basement", "storage-room", "garage"]);
     // IRC 2021 R328.8: impact protection where subject to vehicle damage (garages).
     expect(rules.requiresImpactProtectionIn).toEqual(["garage"]);
     // IRC 2021 R328.4 item 3: exterior walls and outdoors at least 3 ft from doors and windows.
@@ -53,7 +53,7 @@ describe("energy storage siting rules", () => {
     expect(rules.aggregateKWhByLocation.outdoors).toBe(80);
     expect(rules.aggregateKWhByLocation["habitable-room"]).toBeNull();
     expect(rules.minSpacingIn).toBe(36);
-    expect(rules.requiresDetection).toBe(true);
+    expect(rules.requiresDetectionIn).toEqual(["utility-closet", "basement", "storage-room", "garage"]);
   });
 
   it("has a limit or a prohibition for every location the record can hold", () => {

@@ -78,6 +78,20 @@ describe("renderLabelSheet", () => {
     const roomy = await renderLabelSheet([rapidShutdown], { stock: "single-4x6" });
     expect(roomy.belowMinimum).toEqual([]);
   });
+
+  it("names a label set below the minimum in the sheet's bottom margin, at 8 pt, below the stock", async () => {
+    // A 4 × 2 in sheet: 5 rows from 0.5 in below the top leave 0.5 in (36 pt) under the last row.
+    const out = await renderLabelSheet([fixtureLabels[0]!, rapidShutdown], { stock: "sheet-letter" });
+    expect(out.belowMinimum).toEqual(["rapid-shutdown"]);
+    const text = await readPdfText(out.bytes);
+    const note = text.items[0]!.filter((i) => i.y < 36);
+    const joined = note.map((i) => i.str).join(" ");
+    expect(joined).toContain("Letters below the minimum height on this stock");
+    expect(joined).toContain(rapidShutdown.title);
+    expect(joined).not.toContain("PHOTOVOLTAIC SYSTEM DC DISCONNECT");
+    // Lettering under 8 pt does not survive a copy (common practice; the packet keeps the same floor).
+    for (const i of note) expect(i.size, i.str).toBeGreaterThanOrEqual(8 - 0.01);
+  });
 });
 
 describe("drawLabel", () => {

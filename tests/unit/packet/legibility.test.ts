@@ -105,12 +105,27 @@ describe("the seeded hut packet is legible at print scale", () => {
     const sheet = pdf.sheetPages.find((s) => s.sheet === "E-007")!;
     expect(sheet.title).toBe("Grounding and bonding");
     const text = runs.filter((r) => r.page >= sheet.firstPage && r.page < sheet.firstPage + sheet.pageCount).map((r) => r.str).join(" ");
-    // The hut's record names no electrodes, GEC or bond location: the sheet says which field clears each.
-    expect(text).toContain("NOT GIVEN: record field grounding.electrodes");
-    expect(text).toContain("NOT GIVEN: record field grounding.neutralGroundBondTag");
+    // The hut's record names no electrodes, GEC or bond location: the sheet names the field that clears each, as the form labels it.
+    expect(text).toContain("NOT GIVEN: Grounding electrodes (Grounding section of the design)");
+    expect(text).toContain("NOT GIVEN: Neutral-to-ground bond at (Grounding section of the design)");
+    expect(text).not.toMatch(/record field|grounding\.electrodes/);
     expect(text).toContain("THREE-LINE DETAIL: INV-1 (120 V) FEEDING P-1 (120/240 V)");
     expect(text).toContain("L1–L2 JUMPER");
     expect(text).toContain("EQUIPMENT GROUNDING CONDUCTORS");
+  });
+
+  it("keeps a heading on the page of what it heads", () => {
+    const heading = runs.find((r) => r.str === "GROUNDING AND BONDING CHECKS")!;
+    expect(heading).toBeDefined();
+    const onPage = runs.filter((r) => r.page === heading.page).map((r) => r.str);
+    // A check card begins "Check <id> · <code section>"; the first card sits under its heading.
+    expect(onPage.slice(onPage.indexOf("GROUNDING AND BONDING CHECKS")).some((s) => s.startsWith("Check "))).toBe(true);
+  });
+
+  it("prints no record path on any sheet: a missing value is named by its field label", () => {
+    const sheetText = runs.filter((r) => !datasheetPages.has(r.page)).map((r) => r.str).join(" ");
+    const paths = sheetText.match(/\b(?:equipment|arrays|circuits|loads|site|grounding|jurisdiction)\.[A-Za-z0-9]+(?:\.[A-Za-z0-9]+)*/g) ?? [];
+    expect(paths).toEqual([]);
   });
 
   it("keeps a blank AHJ approval stamp box on every sheet", () => {

@@ -127,4 +127,9 @@ describe("parseMarkup", () => {
       { kind: "column-break" },
     ]);
   });
+
+  it("takes a table's column widths from the dashes of its header separator", () => {
+    const [table] = parseMarkup(["| Rev | What changed |", "|---|------------|", "| 1 | First issue |"].join("\n"));
+    expect(table).toEqual({ kind: "table", columns: [{ header: "Rev", weight: 1 }, { header: "What changed", weight: 4 }], rows: [["1", "First issue"]] });
+  });
 });

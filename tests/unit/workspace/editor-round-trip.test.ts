@@ -55,7 +55,7 @@ function entered(record: ProjectRecord): unknown {
   const top = new Map(PROJECT_FIELDS.map((f) => [f.path, f]));
   const site = new Map(SITE_FIELDS.map((f) => [f.path.replace(/^site\./, ""), f]));
   const project = rowThrough(
-    { name: record.name, client: record.client, systemKind: record.systemKind, daysOfAutonomy: record.daysOfAutonomy, rapidShutdownMethod: record.rapidShutdownMethod, rapidShutdownInsideBoundary: record.rapidShutdownInsideBoundary },
+    { name: record.name, client: record.client, systemKind: record.systemKind, daysOfAutonomy: record.daysOfAutonomy, rapidShutdownMethod: record.rapidShutdownMethod, rapidShutdownInsideBoundary: record.rapidShutdownInsideBoundary, pvGroundingConfiguration: record.pvGroundingConfiguration },
     top,
     "record",
   );
