@@ -85,6 +85,13 @@ async function recordEvent(page: Page, kind: string, fill?: (form: ReturnType<Pa
   return form;
 }
 
+/** Records an event and waits for the page to say so, so the next one starts from a settled form. */
+async function recordEventOk(page: Page, kind: string, label: string, fill?: (form: ReturnType<Page["getByRole"]>) => Promise<void>) {
+  const form = await recordEvent(page, kind, fill);
+  await expect(form.getByRole("status")).toContainText(`${label} recorded`);
+  await page.reload();
+}
+
 test.use({ viewport: { width: 1440, height: 900 } });
 
 test("the whole loop: designer sends, reviewer approves, office submits, the AHJ's comments are answered, resubmitted, permitted and installed", async ({ browser }) => {
@@ -130,7 +137,7 @@ test("the whole loop: designer sends, reviewer approves, office submits, the AHJ
   await office.getByRole("table", { name: "Submissions" }).getByRole("row").filter({ has: office.getByRole("cell", { name: REFERENCE, exact: true }) }).getByRole("link").first().click();
   await expect(office).toHaveURL(/\/submissions\/[0-9a-f-]{36}$/);
   const submissionUrl = office.url();
-  await recordEvent(office, "in-plan-review");
+  await recordEventOk(office, "in-plan-review", "In plan review");
   await expect(office.getByRole("list", { name: "Timeline" })).toContainText("In plan review");
 
   // A letter pasted whole: split into its numbered comments, sheet and citation read from each.
@@ -192,10 +199,10 @@ test("the whole loop: designer sends, reviewer approves, office submits, the AHJ
 
   // 5. The office resubmits revision 2, records the permit; the installer confirms on site.
   await office.goto(submissionUrl);
-  await recordEvent(office, "resubmitted");
+  await recordEventOk(office, "resubmitted", "Resubmitted");
   await expect(office.getByRole("list", { name: "Timeline" })).toContainText("Resubmitted");
-  await recordEvent(office, "approved");
-  await recordEvent(office, "permit-issued", async (f) => {
+  await recordEventOk(office, "approved", "Approved by the AHJ");
+  await recordEventOk(office, "permit-issued", "Permit issued", async (f) => {
     await f.getByLabel("Permit number").fill(`P-${RUN}`);
   });
   await expect(office.getByRole("list", { name: "Timeline" })).toContainText(`Permit P-${RUN}`);
