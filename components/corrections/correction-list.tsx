@@ -27,6 +27,8 @@ interface Props {
   assignable: { id: string; name: string; roles: string[] }[];
   canResolve: boolean;
   canAssign: boolean;
+  /** The office writes a comment into the jurisdiction's notes so the next project there gets it right. */
+  canPromote?: boolean;
 }
 
 /** "2 December 2026, 14:20 UTC": stored times are UTC, and the page says so rather than guess the reader's zone. */
@@ -35,18 +37,20 @@ function when(iso: string): string {
   return `${d.toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" })}, ${d.toISOString().slice(11, 16)} UTC`;
 }
 
-function CorrectionCard({ item, assignable, canResolve, canAssign }: { item: CorrectionRow } & Omit<Props, "items">) {
+function CorrectionCard({ item, assignable, canResolve, canAssign, canPromote = false }: { item: CorrectionRow } & Omit<Props, "items">) {
   const router = useRouter();
   const [response, setResponse] = useState(item.response);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  const [promoted, setPromoted] = useState<string | null>(null);
   const title = `Comment ${item.number}`;
 
   async function send(body: Record<string, unknown>) {
     setBusy(true);
     setError(null);
     try {
-      await fetchJson(`/api/corrections/${item.id}`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ ...body, version: item.version }) });
+      const answer = await fetchJson<{ message?: string }>(`/api/corrections/${item.id}`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ ...body, version: item.version }) });
+      if (body.action === "promote") setPromoted(answer.message ?? "Added to the jurisdiction's notes.");
       router.refresh();
     } catch (e) {
       setError(e instanceof RequestError ? [e.message, ...e.issues.map((i) => `${i.path === "response" ? "Response" : i.path} ${i.message}.`)].join(" ") : "The change was not saved.");
@@ -86,6 +90,17 @@ function CorrectionCard({ item, assignable, canResolve, canAssign }: { item: Cor
         ) : (
           <span>Assigned to {item.assigneeName ?? "nobody yet"}</span>
         )}
+        {canPromote ? (
+          promoted ? (
+            <span role="status" className="text-ok">
+              {promoted}
+            </span>
+          ) : (
+            <button type="button" className="btn-quiet ml-auto text-xs" disabled={busy} onClick={() => void send({ action: "promote" })}>
+              Add to the jurisdiction&apos;s notes
+            </button>
+          )
+        ) : null}
       </div>
       {item.open ? (
         canResolve ? (

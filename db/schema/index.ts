@@ -20,3 +20,4 @@ export * from "./jobs";
 export * from "./project-templates";
 export * from "./corrections";
 export * from "./review-threads";
+export * from "./jurisdiction-notes";

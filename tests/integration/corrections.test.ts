@@ -4,6 +4,7 @@ import { correctionItems, outbox, packetRevisions, projects } from "../../db/sch
 import { assignCorrection, correctionResponseSheet, listProjectCorrections, listSubmissionCorrections, reopenCorrection, resolveCorrection } from "../../lib/services/corrections";
 import { ServiceError } from "../../lib/services/errors";
 import { getProjectRecord } from "../../lib/services/projects/get-record";
+import { listJurisdictionNotes, promoteCorrection } from "../../lib/services/jurisdictions/notes";
 import { projectHistory } from "../../lib/services/projects/history";
 import { createSubmission, getSubmission, recordSubmissionEvent, voidSubmissionEvent } from "../../lib/services/submissions";
 import { readPdfText } from "../unit/packet/pdf-text";
@@ -174,5 +175,15 @@ describe("AHJ corrections as work items", () => {
     expect(all).toContain("Not approval");
     // Every character at 8 pt or more (the house minimum).
     expect(Math.min(...text.items.flat().filter((i) => i.str.trim()).map((i) => i.size))).toBeGreaterThanOrEqual(8);
+  });
+
+  it("promotes a comment to the jurisdiction's notes log, naming the project it came from", async () => {
+    const { projectId } = await withLetter();
+    const item = listProjectCorrections(designer, projectId).items[1]!;
+    expect(codeOf(() => promoteCorrection(designer, { itemId: item.id }))).toBe("forbidden");
+    promoteCorrection(office, { itemId: item.id });
+    const log = listJurisdictionNotes(designer, jurisdiction.id);
+    expect(log[0]).toMatchObject({ text: "Provide the storage system's listing.", projectId, who: office.user.name });
+    expect(codeOf(() => promoteCorrection(outsider, { itemId: item.id }))).toBe("not-found");
   });
 });

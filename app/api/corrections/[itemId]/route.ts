@@ -2,8 +2,12 @@ import { NextResponse } from "next/server";
 import { requireContext } from "@/lib/auth/session";
 import { handle, readJson } from "@/lib/http";
 import { assignCorrection, reopenCorrection, resolveCorrection } from "@/lib/services/corrections";
+import { promoteCorrection } from "@/lib/services/jurisdictions/notes";
 
-/** Works one correction: { action: "resolve", response } | { action: "reopen" } | { action: "assign", assigneeId }, each with the version read. */
+/**
+ * Works one correction: { action: "resolve", response } | { action: "reopen" } | { action: "assign", assigneeId },
+ * each with the version read; or { action: "promote", text? } to write it into the jurisdiction's notes log.
+ */
 export const POST = handle(async (request: Request, { params }: { params: Promise<{ itemId: string }> }) => {
   const ctx = await requireContext();
   const { itemId } = await params;
@@ -13,5 +17,10 @@ export const POST = handle(async (request: Request, { params }: { params: Promis
   if (input.action === "resolve") return NextResponse.json(resolveCorrection(ctx, input));
   if (input.action === "reopen") return NextResponse.json(reopenCorrection(ctx, input));
   if (input.action === "assign") return NextResponse.json(assignCorrection(ctx, input));
-  return NextResponse.json({ error: "action must be resolve, reopen or assign", code: "invalid", issues: [{ path: "action", message: "must be resolve, reopen or assign" }] }, { status: 400 });
+  // Learning from it: the comment goes into its jurisdiction's notes log, with the project it came from.
+  if (input.action === "promote") return NextResponse.json(promoteCorrection(ctx, input), { status: 201 });
+  return NextResponse.json(
+    { error: "action must be resolve, reopen, assign or promote", code: "invalid", issues: [{ path: "action", message: "must be resolve, reopen, assign or promote" }] },
+    { status: 400 },
+  );
 });

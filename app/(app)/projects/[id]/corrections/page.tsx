@@ -37,6 +37,7 @@ export default async function ProjectCorrectionsPage({ params }: { params: Promi
             assignable={view.assignable}
             canResolve={can(ctx.roles, "correction:resolve")}
             canAssign={can(ctx.roles, "correction:assign")}
+            canPromote={can(ctx.roles, "jurisdiction:edit")}
           />
         </section>
       ))}
