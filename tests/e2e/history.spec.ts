@@ -8,7 +8,7 @@ const PROJECT = "Tamarack backcountry hut";
 
 test.use({ viewport: { width: 1440, height: 900 } });
 
-test("the project history tab lists who did what, newest first, and offers nothing to edit", async ({ page }) => {
+test("the project history tab lists who did what, newest first, and offers nothing to edit", async ({ page, browser }) => {
   await signInAs(page, "designer");
   await page.goto("/projects");
   await page.getByRole("link", { name: new RegExp(`^${PROJECT}`) }).first().click();
@@ -31,13 +31,13 @@ test("the project history tab lists who did what, newest first, and offers nothi
 
   // The office reads it too; the installer's role does not open projects.
   const url = page.url();
-  await page.context().clearCookies();
-  await signInAs(page, "office");
-  await page.goto(url);
-  await expect(page.getByRole("table", { name: "Project history" })).toContainText("Project created");
-  await page.context().clearCookies();
-  await signInAs(page, "installer");
-  await page.goto(url);
-  await expect(page.getByText("Projects are open to designers, reviewers and the permit office.")).toBeVisible();
-  await expect(page.getByRole("table", { name: "Project history" })).toHaveCount(0);
+  const office = await (await browser.newContext()).newPage();
+  await signInAs(office, "office");
+  await office.goto(url);
+  await expect(office.getByRole("table", { name: "Project history" })).toContainText("Project created");
+  const installer = await (await browser.newContext()).newPage();
+  await signInAs(installer, "installer");
+  await installer.goto(url);
+  await expect(installer.getByText("Projects are open to designers, reviewers and the permit office.")).toBeVisible();
+  await expect(installer.getByRole("table", { name: "Project history" })).toHaveCount(0);
 });
