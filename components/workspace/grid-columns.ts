@@ -3,14 +3,14 @@
  * pick-list. The same labels name a field in every message (record-labels).
  */
 import { CIRCUIT_KINDS, CONDUCTOR_SIZES } from "@/lib/schemas/project-record";
-import { CIRCUIT_KIND_TITLES } from "@/lib/schemas/vocabulary";
+import { CIRCUIT_KIND_TITLES, conductorSizeText } from "@/lib/schemas/vocabulary";
 import { INSULATION_TYPES, RACEWAY_TYPES } from "@/lib/compliance/tables/wiring-types";
 import type { GridColumn } from "./editable-grid";
 import type { Option } from "./field-control";
 import type { RecordTags } from "./use-record-tags";
 
 export const PV_FED = ["charge-controller", "inverter", "inverter-charger", "hybrid-inverter"] as const;
-const SIZE_OPTIONS: Option[] = CONDUCTOR_SIZES.map((s) => ({ value: s, label: Number(s) >= 250 ? `${s} kcmil` : `${s} AWG` }));
+const SIZE_OPTIONS: Option[] = CONDUCTOR_SIZES.map((s) => ({ value: s, label: conductorSizeText(s) }));
 const KIND_OPTIONS: Option[] = CIRCUIT_KINDS.map((k) => ({ value: k, label: CIRCUIT_KIND_TITLES[k] }));
 const INSULATION_OPTIONS: Option[] = INSULATION_TYPES.map((t) => ({ value: t.code === "PV WIRE" ? "PV wire" : t.code, label: t.label }));
 const RACEWAY_OPTIONS: Option[] = RACEWAY_TYPES.map((t) => ({ value: t.code, label: t.label }));
@@ -73,6 +73,8 @@ export function circuitColumns(tags: TagLists): GridColumn[] {
     { key: "designCurrentA", header: "Design current", unit: "A", type: "number", width: "w-16" },
     { key: "nominalVoltageV", header: "Nominal voltage", unit: "V", type: "number", width: "w-16" },
     { key: "phases", header: "Phases (AC)", type: "number-select", options: PHASE_OPTIONS, width: "w-20" },
+    { key: "feedsOtherBuilding", header: "Enters another building (AC)", type: "tri-state", width: "w-16" },
+    { key: "buildingDisconnectTag", header: "Building disconnect", type: "select", options: tags.byKinds(["disconnect", "breaker", "ac-panel"]), width: "w-24" },
   ];
 }
 

@@ -19,3 +19,6 @@ export * from "./signing";
 export * from "./jobs";
 export * from "./account-tokens";
 export * from "./project-templates";
+export * from "./corrections";
+export * from "./review-threads";
+export * from "./jurisdiction-notes";

@@ -10,7 +10,7 @@ import { createSubmission, recordSubmissionEvent, voidSubmissionEvent } from "@/
  * (The route handlers under /api/submissions only read.)
  */
 const CREATE_FIELDS = ["revisionId", "method", "referenceNumber", "occurredOn", "note"] as const;
-const EVENT_FIELDS = ["submissionId", "kind", "occurredOn", "note", "permitNumber", "expiresOn", "amountUsd", "inspectionKind", "revisionId", "version"] as const;
+const EVENT_FIELDS = ["submissionId", "kind", "occurredOn", "note", "permitNumber", "expiresOn", "amountUsd", "inspectionKind", "revisionId", "corrections", "assigneeId", "version"] as const;
 const VOID_FIELDS = ["submissionId", "eventId", "reason", "version"] as const;
 
 function fields<K extends string>(names: readonly K[], formData: FormData): Partial<Record<K, string>> {
