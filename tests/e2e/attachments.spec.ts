@@ -23,7 +23,7 @@ test("a designer attaches a datasheet for an equipment tag through the uploader,
   await expect(page).toHaveURL(new RegExp(`/projects/${id}/attachments$`));
 
   const checklist = page.getByRole("region", { name: /Documents .* asks for/ });
-  const batteryItem = checklist.getByRole("listitem").filter({ hasText: "BAT-1" });
+  const batteryItem = checklist.getByRole("listitem").filter({ hasText: "Datasheet" }).filter({ hasText: "BAT-1" });
   await expect(batteryItem).toContainText("Missing");
 
   await expect(page.getByLabel("Kind")).toHaveValue("datasheet");
