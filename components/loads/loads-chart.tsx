@@ -2,7 +2,7 @@
 
 import { useId } from "react";
 import { Bar, BarChart, CartesianGrid, Cell, LabelList, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
-import { loadSummary } from "@/lib/compliance";
+import { loadEnergyFormula, loadSummary } from "@/lib/compliance";
 import type { ProjectRecord } from "@/lib/schemas/project-record";
 
 /** Days of autonomy when the record names none: two to three by common practice; the check engine takes 2. */
@@ -51,7 +51,7 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
   const bars: EnergyBar[] = record.loads.map((l, i) => ({
     name: l.name,
     wh: s.perLoad[i]?.dailyWh ?? 0,
-    detail: `${l.watts} W${l.quantity > 1 ? ` × ${l.quantity}` : ""} × ${l.hoursPerDay} h`,
+    detail: loadEnergyFormula(l),
     idle: false,
   }));
   if (s.conversionLossWh > 0) {

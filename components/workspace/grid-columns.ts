@@ -81,6 +81,8 @@ export const LOAD_COLUMNS: GridColumn[] = [
   { key: "watts", header: "Power", unit: "W", type: "number", width: "w-20" },
   { key: "quantity", header: "Qty", type: "integer", width: "w-14" },
   { key: "hoursPerDay", header: "Hours a day", unit: "h", type: "number", width: "w-16" },
+  { key: "dutyPct", header: "Duty", unit: "%", type: "number", width: "w-16", placeholder: "100" },
+  { key: "daysPerWeek", header: "Days a week", type: "integer", width: "w-14", placeholder: "7" },
   { key: "surgeW", header: "Surge", unit: "W", type: "number", width: "w-20" },
   {
     key: "voltageV",
