@@ -129,7 +129,7 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
             <thead>
               <tr>
                 <th>Load</th>
-                <th>W × qty × h</th>
+                <th>How it adds up</th>
                 <th className="text-right">Wh/day</th>
               </tr>
             </thead>
@@ -140,7 +140,7 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
                     {b.idle ? <span aria-hidden="true" className="mr-1 text-brass">◆</span> : null}
                     {b.name}
                   </td>
-                  <td className="figure whitespace-nowrap text-xs text-ink-soft">{b.detail}</td>
+                  <td className="figure text-xs text-ink-soft">{b.detail}</td>
                   <td className="figure whitespace-nowrap text-right">{wh(b.wh)}</td>
                 </tr>
               ))}
