@@ -43,11 +43,10 @@ export function documentChecklist(
     }
   }
   if (need.has("storage-listing")) {
-    // A listing filed without an equipment tag covers every battery of the project.
-    const untagged = documents.some((d) => d.kind === "storage-listing" && !d.equipmentTag);
+    // A listing counts for the battery it is linked to: one filed against nothing shows no reviewer which battery is listed.
     for (const e of record.equipment) {
       if (e.kind !== "battery") continue;
-      items.push({ document: "storage-listing", label: "Storage listing", tag: e.tag, attached: untagged || has("storage-listing", e.tag), missing: `no storage listing for ${e.tag}` });
+      items.push({ document: "storage-listing", label: "Storage listing", tag: e.tag, attached: has("storage-listing", e.tag), missing: `no storage listing for ${e.tag}` });
     }
   }
   if (need.has("site-plan")) items.push({ document: "site-plan", label: "Site plan", attached: has("site-plan"), missing: "no site plan" });

@@ -25,7 +25,7 @@ function checklist(record: ProjectRecord): ChecklistItem[] {
   const byTag = new Map(record.equipment.map((e) => [e.tag, e]));
   return documentChecklist(record, record.attachments, record.jurisdiction.requiredDocuments).map((item) => {
     const e = item.tag ? byTag.get(item.tag) : undefined;
-    const detail = item.document === "equipment-datasheets" && e ? equipmentDescription(e) : item.document === "structural-letter" ? "roof mount" : undefined;
+    const detail = e ? equipmentDescription(e) : item.document === "structural-letter" ? "roof mount" : undefined;
     return { label: item.label, attached: item.attached, ...(item.tag ? { tag: item.tag } : {}), ...(detail ? { detail } : {}) };
   });
 }
@@ -50,7 +50,8 @@ export default async function ProjectAttachmentsPage({ params }: { params: Promi
     equipment = record.equipment.map((e) => ({
       tag: e.tag,
       description: equipmentDescription(e, false),
-      hasDatasheet: record.attachments.some((a) => a.kind === "datasheet" && a.equipmentTag === e.tag),
+      kind: e.kind,
+      documented: record.attachments.filter((a) => a.equipmentTag === e.tag).map((a) => a.kind),
     }));
   } else {
     note = `The design record could not be read, so the required documents cannot be listed: ${loaded.message}`;
