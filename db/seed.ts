@@ -22,8 +22,10 @@ import { uploadAttachment } from "../lib/services/attachments/upload";
 import { migrateDatabase, openDatabase, type Db } from "./client";
 import { assertDemoDatabase, SeedRefusedError } from "./seed-guard";
 import { DEMO_JURISDICTIONS, DEMO_LICENCE, DEMO_ORG, DEMO_PROJECT_FILES, DEMO_USERS } from "./demo-scenario";
-import { equipmentLibrary, jurisdictions, organisations, projects, reviewerLicences, userRoles, users } from "./schema";
+import { equipmentLibrary, jurisdictions, organisations, projects, projectTemplates, reviewerLicences, userRoles, users } from "./schema";
 import { importLibraryCsv } from "../lib/services/library/import-csv";
+import { createTemplate } from "../lib/services/templates/save";
+import { demoTemplates } from "./demo-templates";
 
 /** Refuses (SeedRefusedError) a database that holds a real firm's data, unless `force`. */
 export async function seed(db: Db, options: { force?: boolean; environment?: { NODE_ENV?: string } } = {}): Promise<void> {
@@ -107,6 +109,10 @@ export async function seed(db: Db, options: { force?: boolean; environment?: { N
     const report = importLibraryCsv(designerCtx, fs.readFileSync(path.resolve(process.cwd(), "examples/equipment-library.csv"), "utf8"));
     if (report.refused.length) throw new Error(`examples/equipment-library.csv: ${report.refused.length} rows refused`);
   }
+
+  // The firm's standard kits, so a new project starts from one.
+  const hasTemplates = db.select({ id: projectTemplates.id }).from(projectTemplates).where(eq(projectTemplates.orgId, orgId)).get();
+  if (!hasTemplates) for (const template of demoTemplates()) createTemplate(designerCtx, template);
 
   await seedDemoRevisions(db, orgId);
 }

@@ -6,7 +6,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
 import { requiredText, text } from "@/lib/schemas/fields";
-import { systemKindSchema } from "@/lib/schemas/project-record";
+import { SYSTEM_KIND_LABELS, systemKindSchema } from "@/lib/schemas/project-record";
 import { fetchJson, RequestError } from "@/lib/fetch-json";
 
 const newProjectFormSchema = z.object({
@@ -15,6 +15,7 @@ const newProjectFormSchema = z.object({
   systemKind: systemKindSchema,
   jurisdictionId: z.string().min(1, { message: "choose a jurisdiction" }),
   address: text(300),
+  templateId: z.string(),
 });
 type NewProjectValues = z.infer<typeof newProjectFormSchema>;
 
@@ -30,17 +31,26 @@ const KINDS = [
   { value: "hybrid", label: "Hybrid / grid-interactive", note: "a hybrid inverter works with the utility" },
 ] as const;
 
-export function NewProjectForm({ jurisdictions }: { jurisdictions: JurisdictionOption[] }) {
+export interface TemplateOption {
+  id: string;
+  name: string;
+  description: string;
+  systemKind: string;
+}
+
+export function NewProjectForm({ jurisdictions, templates }: { jurisdictions: JurisdictionOption[]; templates: TemplateOption[] }) {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
     setError,
+    setValue,
+    watch,
     formState: { errors, isSubmitting },
   } = useForm<NewProjectValues>({
     resolver: zodResolver(newProjectFormSchema),
-    defaultValues: { name: "", client: "", address: "", systemKind: "stand-alone", jurisdictionId: jurisdictions.length === 1 ? jurisdictions[0]!.id : "" },
+    defaultValues: { name: "", client: "", address: "", systemKind: "stand-alone", templateId: "", jurisdictionId: jurisdictions.length === 1 ? jurisdictions[0]!.id : "" },
   });
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
@@ -48,7 +58,7 @@ export function NewProjectForm({ jurisdictions }: { jurisdictions: JurisdictionO
       const { id } = await fetchJson<{ id: string }>("/api/projects", {
         method: "POST",
         headers: { "content-type": "application/json" },
-        body: JSON.stringify(values),
+        body: JSON.stringify({ ...values, templateId: values.templateId || undefined }),
       });
       router.push(`/projects/${id}`);
     } catch (error) {
@@ -58,6 +68,8 @@ export function NewProjectForm({ jurisdictions }: { jurisdictions: JurisdictionO
       } else setFailure("The project was not created. Try again.");
     }
   });
+  const templateId = watch("templateId");
+  const template = templates.find((t) => t.id === templateId);
   const err = (name: keyof NewProjectValues) =>
     errors[name]?.message ? (
       <span id={`${name}-error`} role="alert" className="mt-1 block text-xs font-medium text-signal">
@@ -92,7 +104,36 @@ export function NewProjectForm({ jurisdictions }: { jurisdictions: JurisdictionO
         <input id="address" className="input" {...register("address")} />
         {err("address")}
       </div>
-      <fieldset>
+      <div>
+        <label htmlFor="templateId" className="field-label mb-1 block">
+          Start from
+        </label>
+        <select
+          id="templateId"
+          className="input"
+          aria-describedby="template-help templateId-error"
+          {...register("templateId", {
+            onChange: (event: React.ChangeEvent<HTMLSelectElement>) => {
+              const chosen = templates.find((t) => t.id === event.target.value);
+              if (chosen) setValue("systemKind", chosen.systemKind as NewProjectValues["systemKind"]);
+            },
+          })}
+        >
+          <option value="">a blank design</option>
+          {templates.map((t) => (
+            <option key={t.id} value={t.id}>
+              template: {t.name}
+            </option>
+          ))}
+        </select>
+        <p id="template-help" className="mt-1 text-xs text-ink-faint">
+          {template
+            ? `${SYSTEM_KIND_LABELS[template.systemKind as keyof typeof SYSTEM_KIND_LABELS] ?? template.systemKind}. ${template.description} The equipment, arrays and circuits are copied in; enter the site and change what differs.`
+            : "A template brings the equipment, arrays and circuits of one of the firm's standard kits."}
+        </p>
+        {err("templateId")}
+      </div>
+      <fieldset hidden={Boolean(template)}>
         <legend className="field-label mb-1">System kind</legend>
         <div className="grid gap-2 sm:grid-cols-3">
           {KINDS.map((k) => (

@@ -21,6 +21,7 @@ import { ArraysSection, CircuitsSection } from "./row-sections";
 import { ProjectSection, SiteSection } from "./site-section";
 import { useUnsavedGuard } from "./unsaved-guard";
 import { useRecordHistory } from "./use-record-history";
+import { SaveTemplateButton } from "./save-template-button";
 
 const SECTIONS = [
   ["project", "Project"],
@@ -168,6 +169,9 @@ export function ProjectEditor({
               Export project file
             </a>
             <DuplicateProjectButton projectId={projectId} disabledReason={isDirty ? "Save first: the copy is made from the saved design" : undefined} />
+            {canEdit ? (
+              <SaveTemplateButton projectId={projectId} projectName={record.name} disabledReason={isDirty ? "Save first: the template is made from the saved design" : undefined} />
+            ) : null}
             {canEdit ? (
               <button type="submit" className="btn" disabled={save.kind === "saving" || save.kind === "conflict"}>
                 Save

@@ -17,3 +17,4 @@ export * from "./outbox";
 export * from "./installations";
 export * from "./signing";
 export * from "./jobs";
+export * from "./project-templates";

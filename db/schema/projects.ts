@@ -39,6 +39,8 @@ export const projects = sqliteTable(
     daysOfAutonomy: real("days_of_autonomy"),
     rapidShutdownMethod: text("rapid_shutdown_method"),
     /** Record fields not held in columns (new engine fields), kept whole rather than dropped. */
+    /** Set when the project is put away; archived projects leave the default list and can be brought back. */
+    archivedAt: text("archived_at"),
     extra: text("extra", { mode: "json" }).$type<Record<string, unknown>>().notNull().default({}),
     createdBy: text("created_by").references(() => users.id),
     createdAt: createdAt(),

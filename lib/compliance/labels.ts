@@ -12,9 +12,9 @@ import { arrayMaxVoltage } from "./derive/pv";
 import { Trace } from "./context";
 import { codeRef } from "./tables";
 import { storageRefs } from "./refs";
-import { switchingDevicesOn } from "./checks/disconnects";
-import { rapidShutdownApplies } from "./checks/rapid-shutdown";
-import { singleSupplyPanels } from "./checks/stand-alone-supply";
+import { circuitsNear, switchingDevicesOn } from "./derive/switching";
+import { rapidShutdownApplies } from "./derive/rapid-shutdown-scope";
+import { singleSupplyPanels } from "./derive/single-supply";
 
 export type SignalWord = "DANGER" | "WARNING" | "CAUTION" | "NOTICE";
 
@@ -144,12 +144,7 @@ export function labelsFor(ctx: CheckContext): LabelRequirement[] {
 
   for (const b of batteries) {
     const t = new Trace();
-    const near = [...(ctx.circuitsByEndpoint.get(b.item.tag) ?? [])];
-    for (const c of [...near]) {
-      const other = c.item.fromTag === b.item.tag ? c.item.toTag : c.item.fromTag;
-      if (ctx.equipment.get(other)?.item.kind === "busbar") near.push(...(ctx.circuitsByEndpoint.get(other) ?? []));
-    }
-    const devices = [...new Set(near.flatMap((c) => switchingDevicesOn(ctx, c.item)))];
+    const devices = [...new Set(circuitsNear(ctx, b.item.tag).flatMap((c) => switchingDevicesOn(ctx, c.item)))];
     const nominal = t.need(`${b.path}.nominalVoltageV`, "Nominal voltage", b.item.nominalVoltageV, "V");
     const sc = t.need(`${b.path}.shortCircuitCurrentA`, "Available short-circuit current", b.item.shortCircuitCurrentA, "A");
     const maxV = batteryMaxVoltage(b, t);

@@ -39,6 +39,8 @@ export interface OneLineNode extends Box {
   lines: string[];
   /** Problems a reviewer would trip over (drawn in the signal colour, with a mark and words). */
   trouble: string[];
+  /** The engine's fix for each failure, wrapped ("FIX: Use 8 AWG Cu …"), drawn under the trouble lines. */
+  remedies: string[];
   /** "circuit": placed by the layered layout; "unconnected": listed in the row below it. */
   placement: "circuit" | "unconnected";
 }
@@ -71,6 +73,8 @@ export interface OneLineEdge {
   deviceLines: string[];
   deviceMarks: DeviceMark[];
   trouble: string[];
+  /** The engine's fix for each failure on the conductor or its devices, wrapped, drawn under the trouble lines. */
+  remedies: string[];
 }
 
 export interface OneLineLayout {
@@ -104,15 +108,16 @@ const CALLOUT_LINE_CHARS = 38;
 
 const wrapAll = (lines: string[], max: number, indent = "") => lines.flatMap((l) => wrapLine(l, max, indent));
 
-function nodeSize(title: string, tag: string, lines: string[], trouble: string[]) {
+function nodeSize(title: string, tag: string, lines: string[], trouble: string[], remedies: string[] = []) {
   const widths = [
     Math.max(estimateTextWidth(tag, TEXT.tagSize, true), estimateTextWidth(title, TEXT.titleSize, true)) +
       NODE_GLYPH_ROOM,
     ...lines.map((l) => estimateTextWidth(l, TEXT.bodySize)),
     ...trouble.map((l) => estimateTextWidth(l, TEXT.bodySize) + 14),
+    ...remedies.map((l) => estimateTextWidth(l, TEXT.bodySize, true) + 14),
   ];
   const width = Math.ceil(Math.max(NODE_MIN_WIDTH, ...widths) + 2 * NODE_PAD_X);
-  const bodyLines = lines.length + trouble.length;
+  const bodyLines = lines.length + trouble.length + remedies.length;
   const height = Math.ceil(NODE_HEADER + Math.max(1, bodyLines) * lineHeight(TEXT.bodySize) + NODE_PAD_BOTTOM);
   return { width, height };
 }
@@ -181,20 +186,22 @@ interface EdgeSpec {
   heading: string;
   callout: string[];
   trouble: string[];
+  remedies: string[];
   devices: { tag: string; kind: DeviceKind; lines: string[]; missing: boolean; failing?: boolean }[];
   labelWidth: number;
   labelHeight: number;
 }
 
-function labelSize(heading: string, lines: string[], deviceLines: string[], trouble: string[], deviceCount: number) {
+function labelSize(heading: string, lines: string[], deviceLines: string[], trouble: string[], deviceCount: number, remedies: string[] = []) {
   const widths = [
     estimateTextWidth(heading, TEXT.calloutSize, true),
     ...lines.map((l) => estimateTextWidth(l, TEXT.calloutSize)),
     ...deviceLines.map((l) => estimateTextWidth(l, TEXT.calloutSize)),
     ...trouble.map((l) => estimateTextWidth(l, TEXT.calloutSize) + 12),
+    ...remedies.map((l) => estimateTextWidth(l, TEXT.calloutSize, true) + 12),
     deviceCount * DEVICE_PITCH,
   ];
-  const count = 1 + lines.length + deviceLines.length + trouble.length;
+  const count = 1 + lines.length + deviceLines.length + trouble.length + remedies.length;
   return {
     width: Math.ceil(Math.max(...widths) + 2 * LABEL_PAD),
     height: Math.ceil(count * lineHeight(TEXT.calloutSize) + 2 * LABEL_PAD),
@@ -286,15 +293,27 @@ export interface LayoutOptions {
   failures?: DiagramFailure[];
 }
 
-/** A failing check as the drawing marks it: the circuit, array or equipment tag, and the check's id. */
+/** A failing check as the drawing marks it: the circuit, array or equipment tag, the check's id and the engine's remedy. */
 export interface DiagramFailure {
   subject: string;
   checkId: string;
+  remedy?: string;
 }
 
 /** The failing checks of a run, in the shape the drawing marks. */
-export function failuresOf(results: { status: string; subject?: string; checkId: string }[]): DiagramFailure[] {
-  return results.filter((r) => r.status === "fail" && r.subject).map((r) => ({ subject: r.subject!, checkId: r.checkId }));
+export function failuresOf(results: { status: string; subject?: string; checkId: string; remedy?: { text: string } }[]): DiagramFailure[] {
+  return results
+    .filter((r) => r.status === "fail" && r.subject)
+    .map((r) => (r.remedy?.text ? { subject: r.subject!, checkId: r.checkId, remedy: r.remedy.text } : { subject: r.subject!, checkId: r.checkId }));
+}
+
+/**
+ * The remedies of the failures on these tags, each once (two checks failing on one conductor often share a fix),
+ * wrapped to the block's width: printed under the FAIL marks so the reviewer sees the fix where the fault is drawn.
+ */
+function remedyLines(failures: DiagramFailure[], tags: string[], maxChars: number): string[] {
+  const texts = [...new Set(failures.filter((f) => tags.includes(f.subject) && f.remedy).map((f) => f.remedy!))];
+  return texts.flatMap((t) => wrapLine(`FIX: ${t}`, maxChars, "  "));
 }
 
 /** Checks whose failure on a circuit is also a failure of its overcurrent device (the device does not protect the conductor). */
@@ -339,12 +358,14 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
     const trouble = [...text.trouble, ...circuitFails.map((f) => `FAIL ${f.checkId}`)];
     for (const d of devices) trouble.push(...failLines(failures, d.tag).map((l) => `${d.tag} ${l}`));
     for (const d of devices) if (d.missing) trouble.push(`${d.tag} not in the equipment list`);
+    const remedies = remedyLines(failures, [c.tag, ...devices.map((d) => d.tag)], CALLOUT_LINE_CHARS);
     const size = labelSize(
       text.heading,
       text.callout,
       devices.flatMap((d) => d.lines),
       trouble,
       devices.length,
+      remedies,
     );
     return {
       id: `e:${i}:${c.tag}`,
@@ -354,6 +375,7 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
       heading: text.heading,
       callout: text.callout,
       trouble,
+      remedies,
       devices,
       labelWidth: size.width,
       labelHeight: size.height,
@@ -395,7 +417,7 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
     const toNode = flowSpecs.find((n) => n.tag === spec.to);
     if (fromNode?.kind === "unknown" || toNode?.kind === "unknown") {
       spec.trouble.push("runs to a tag not in the record");
-      const size = labelSize(spec.heading, spec.callout, spec.devices.flatMap((d) => d.lines), spec.trouble, spec.devices.length);
+      const size = labelSize(spec.heading, spec.callout, spec.devices.flatMap((d) => d.lines), spec.trouble, spec.devices.length, spec.remedies);
       spec.labelWidth = size.width;
       spec.labelHeight = size.height;
     }
@@ -419,8 +441,8 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
 
   const sized = (spec: NodeSpec) => {
     const trouble = [...spec.trouble, ...failLines(failures, spec.tag)];
-    const s = { ...spec, lines: wrapAll(spec.lines, NODE_LINE_CHARS), trouble: wrapAll(trouble, NODE_LINE_CHARS - 2) };
-    return { ...s, ...nodeSize(s.title, s.tag, s.lines, s.trouble) };
+    const s = { ...spec, lines: wrapAll(spec.lines, NODE_LINE_CHARS), trouble: wrapAll(trouble, NODE_LINE_CHARS - 2), remedies: remedyLines(failures, [spec.tag], NODE_LINE_CHARS - 2) };
+    return { ...s, ...nodeSize(s.title, s.tag, s.lines, s.trouble, s.remedies) };
   };
   const flowNodes = flowSpecs.map(sized);
   const looseNodes = looseSpecs.map(sized);
@@ -487,6 +509,7 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
       title: n.title,
       lines: n.lines,
       trouble: n.trouble,
+      remedies: n.remedies,
       placement: "circuit",
       x: MARGIN + (p?.x ?? 0),
       y: MARGIN + (p?.y ?? 0),
@@ -529,6 +552,7 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
       deviceLines: s.devices.flatMap((d) => d.lines),
       deviceMarks: placeDevices(points, calloutBox, s.devices),
       trouble: s.trouble,
+      remedies: s.remedies,
     };
   });
 
@@ -555,6 +579,7 @@ export async function layoutOneLine(record: ProjectRecord, options: LayoutOption
         title: n.title,
         lines: n.lines,
         trouble: n.trouble,
+        remedies: n.remedies,
         placement: "unconnected",
         x,
         y,

@@ -217,7 +217,12 @@ function nodeGroup(n: OneLineNode): SceneGroup {
     prims.push({ type: "text", x: n.x + padX + 12, y, text: line, size: TEXT.bodySize, weight: "regular", colour: "trouble", maxWidth: n.width - 2 * padX - 12 });
     y += lineHeight(TEXT.bodySize);
   }
-  const words = [n.tag, n.title.toLowerCase(), ...n.lines, ...n.trouble.map((t) => `problem: ${t}`)];
+  // The fix in bold black: it must read on a monochrome counter copy as well as the fault does in red.
+  for (const line of n.remedies) {
+    prims.push({ type: "text", x: n.x + padX + 12, y, text: line, size: TEXT.bodySize, weight: "bold", colour: "ink", maxWidth: n.width - 2 * padX - 12 });
+    y += lineHeight(TEXT.bodySize);
+  }
+  const words = [n.tag, n.title.toLowerCase(), ...n.lines, ...n.trouble.map((t) => `problem: ${t}`), ...n.remedies];
   return { id: n.id, role: "node", tag: n.tag, label: words.join("; "), trouble, prims };
 }
 
@@ -251,6 +256,10 @@ function edgeGroup(e: OneLineEdge): SceneGroup {
     prims.push({ type: "text", x: b.x + pad + 12, y, text: line, size: TEXT.calloutSize, weight: "regular", colour: "trouble", maxWidth: inner - 12 });
     y += step;
   }
+  for (const line of e.remedies) {
+    prims.push({ type: "text", x: b.x + pad + 12, y, text: line, size: TEXT.calloutSize, weight: "bold", colour: "ink", maxWidth: inner - 12 });
+    y += step;
+  }
   for (const m of e.deviceMarks) prims.push(...deviceMarkPrims(m, e.deviceMarks.length > 1));
   const words = [
     `circuit ${e.heading}`,
@@ -258,6 +267,7 @@ function edgeGroup(e: OneLineEdge): SceneGroup {
     ...e.callout,
     ...e.deviceLines,
     ...e.trouble.map((t) => `problem: ${t}`),
+    ...e.remedies,
   ];
   return { id: e.id, role: "edge", tag: e.circuitTag, label: words.join("; "), trouble, prims };
 }

@@ -1,13 +1,23 @@
 import type { Db } from "../../db/client";
-import { env } from "../env";
+import { env, resolvePath } from "../env";
+import { packetsRoot } from "../services/revisions/packet-files";
 import { runBullmqWorker } from "./bullmq";
 import { jobHandlers, markSubjectFailed } from "./handlers";
+import { recoverLostRenders, removeStalePartFiles } from "./recover";
 import { runSqliteWorker } from "./sqlite";
 import type { RunningWorker } from "./types";
 
-/** Starts a worker on the configured backend with the product's handlers. */
+/** A 25 MB upload or a packet is written in seconds; a part this old is left by a process that was killed. */
+const PART_FILE_MAX_AGE_MS = 10 * 60 * 1000;
+
+/** Starts a worker on the configured backend with the product's handlers, after tidying what a killed process left. */
 export function startWorker(db: Db, log: (message: string) => void = () => undefined): RunningWorker {
-  const { JOBS_BACKEND, REDIS_URL, JOBS_CONCURRENCY, JOBS_TIME_LIMIT_S, JOBS_LEASE_S, JOBS_BACKOFF_S } = env();
+  const { JOBS_BACKEND, REDIS_URL, JOBS_CONCURRENCY, JOBS_TIME_LIMIT_S, JOBS_LEASE_S, JOBS_BACKOFF_S, STORAGE_BACKEND, UPLOADS_DIR } = env();
+  if (JOBS_BACKEND === "sqlite") {
+    for (const lost of recoverLostRenders(db)) log(`revision ${lost.number} (${lost.revisionId}) was left generating with no job; marked failed`);
+  }
+  const partRoots = [packetsRoot(), ...(STORAGE_BACKEND === "disk" ? [resolvePath(UPLOADS_DIR)] : [])];
+  void removeStalePartFiles(partRoots, PART_FILE_MAX_AGE_MS).then((removed) => removed.length && log(`removed ${removed.length} unfinished file part(s)`));
   const options = {
     handlers: jobHandlers(db),
     concurrency: JOBS_CONCURRENCY,

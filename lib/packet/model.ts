@@ -5,6 +5,8 @@ import type { Block } from "./markup";
 import { AHJ_FOOTER, REVIEW_MARKING, SHEET_PLAN, type PacketDatasheet, type PacketModel, type Sheet } from "./plan";
 import { conductorBlocks } from "./sheets/conductors";
 import { equipmentBlocks } from "./sheets/equipment";
+import { panelScheduleBlocks } from "./sheets/panel-schedule";
+import { racewayFillBlocks, racewayFillRows } from "./sheets/raceway-fill";
 import { groundingBlocks } from "./sheets/grounding";
 import { reviewBlocks } from "./sheets/review-record";
 import { sitePlanBlocks } from "./sheets/site-plan";
@@ -42,6 +44,8 @@ function draftReasons(input: PacketInput, missingDocs: string[]): string[] {
     if (l.lines.length === 0) reasons.push(`required label ${l.id} has no wording`);
     else if (l.missing?.length) reasons.push(`label ${l.id} incomplete: ${l.missing.join(", ")} missing`);
   }
+  const overfilled = racewayFillRows(input.record).filter((r) => r.status === "fail").map((r) => r.circuit);
+  if (overfilled.length) reasons.push(`raceway fill over the Chapter 9 limit: ${overfilled.join(", ")}`);
   reasons.push(...missingDocs);
   return reasons;
 }
@@ -83,10 +87,10 @@ export function buildPacketModel(input: PacketInput, options: BuildOptions = {})
         blocks.push(...input.run.results.map((result): Block => ({ kind: "check", result })));
         break;
       case "conductor-schedule":
-        blocks.push(...conductorBlocks(input));
+        blocks.push(...conductorBlocks(input), ...racewayFillBlocks(input));
         break;
       case "equipment-schedule":
-        blocks.push(...equipmentBlocks(input, datasheets));
+        blocks.push(...equipmentBlocks(input, datasheets), ...panelScheduleBlocks(input));
         break;
       case "label-schedule":
         blocks.push({ kind: "labels", labels: input.labels });

@@ -265,3 +265,78 @@ test("renaming a tag follows it everywhere, deleting a referenced item asks firs
   await expect(page.getByLabel("Tag, equipment row 2")).toHaveCount(0);
   await expect(page.getByLabel("To, circuit row 1")).toHaveValue("");
 });
+
+test("from the firm's cabin template the same system needs only the site, the lengths and the loads", async ({ page }) => {
+  test.setTimeout(180_000);
+  entries = 0;
+  await signInAs(page, "designer");
+  await page.getByRole("link", { name: "New project" }).click();
+  const name = `Cabin from template ${Date.now().toString(36)}`;
+  await fill(page.getByLabel("Project name"), name);
+  await select(page.getByLabel("Start from"), { label: "template: Cabin: series modules, inverter-charger and generator" });
+  await expect(page.getByText(/^Stand-alone with generator\. Two modules in series/)).toBeVisible();
+  await select(page.getByLabel("Jurisdiction"), { label: `${jurisdiction.name} (NEC ${jurisdiction.necEdition})` });
+  await page.getByRole("button", { name: "Create project" }).click();
+  await expect(page).toHaveURL(/\/projects\/(?!new$)[^/]+$/);
+  await expect(page.getByRole("heading", { level: 1, name })).toBeVisible();
+  const projectUrl = page.url();
+  await expect(page.getByTestId("check-state")).toHaveText("up to date");
+  await expect(page.getByLabel("Tag, equipment row 10")).toHaveValue("CB-3");
+
+  await fill(page.getByLabel("Design low temperature (°C)"), "-20");
+  await fill(page.getByLabel("Design high temperature (°C)"), "35");
+  await fill(page.getByLabel("Sun hours per day (h)"), "4");
+  await select(page.getByLabel("Battery location", { exact: true }), "utility-closet");
+  for (const [n, length] of ["50", "6", "8", "40", "25"].entries()) {
+    await fill(page.getByLabel(`One-way length (ft), circuit row ${n + 1}`), length);
+  }
+  await page.getByRole("button", { name: "+ Add load" }).click();
+  await fill(page.getByLabel("Load, load row 1"), "Refrigerator");
+  await fill(page.getByLabel("Power (W), load row 1"), "150");
+  await fill(page.getByLabel("Hours a day (h), load row 1"), "8");
+  await page.getByRole("button", { name: "+ Add load" }).click();
+  await fill(page.getByLabel("Load, load row 2"), "Lights");
+  await fill(page.getByLabel("Power (W), load row 2"), "60");
+  await fill(page.getByLabel("Hours a day (h), load row 2"), "5");
+  await page.getByRole("button", { name: "Save", exact: true }).click();
+  await expect(page.getByTestId("save-state")).toHaveText("Saved");
+
+  console.log(`field entries for the cabin system from its template: ${entries}`);
+  test.info().annotations.push({ type: "field entries from a template", description: String(entries) });
+  // The blank-project run above needs 53; the template carries the equipment, the array and the circuits' sizes.
+  expect(entries).toBeLessThanOrEqual(20);
+
+  // It survives a reload, and its checks equal the hand-entered cabin's.
+  await page.reload();
+  await expect(page.getByLabel("One-way length (ft), circuit row 4")).toHaveValue("40");
+  const stored = await page.request.get(projectUrl.replace("/projects/", "/api/projects/"));
+  const { record } = (await stored.json()) as { record: unknown };
+  expect(outcome(record)).toEqual(outcome(handEntered(name)));
+
+  // The design can be kept as a new template of the firm, and a template renamed on the templates page.
+  await page.getByRole("button", { name: "Save as template" }).click();
+  const panel = page.getByRole("group", { name: "Save as template" });
+  await panel.getByLabel("Template name").fill("");
+  await panel.getByRole("button", { name: "Save template" }).click();
+  await expect(panel.getByRole("alert")).toHaveText("Name the template.");
+  const kept = `Reed cabin ${Date.now().toString(36)}`;
+  await panel.getByLabel("Template name").fill(kept);
+  await panel.getByRole("button", { name: "Save template" }).click();
+  await expect(panel.getByRole("status")).toHaveText(`Saved as template "${kept}".`);
+  await page.goto("/projects/templates");
+  const table = page.getByRole("table", { name: "Project templates" });
+  const row = table.locator("tr", { hasText: kept });
+  await expect(row).toContainText("Stand-alone with generator");
+  await row.getByRole("button", { name: "Rename" }).click();
+  await table.getByLabel(`Name of ${kept}`).fill("");
+  await table.getByRole("button", { name: "Save name" }).click();
+  await expect(page.locator("main [role=alert]")).toContainText("not saved");
+  await table.getByLabel(`Name of ${kept}`).fill(`${kept} v2`);
+  await table.getByRole("button", { name: "Save name" }).click();
+  await expect(page.getByRole("status").filter({ hasText: `Renamed to "${kept} v2".` })).toBeVisible();
+  await page.reload();
+  await expect(table.getByText(`${kept} v2`)).toBeVisible();
+  await table.getByRole("button", { name: `Delete ${kept} v2` }).click();
+  await table.getByRole("alertdialog").getByRole("button", { name: "Delete" }).click();
+  await expect(table.getByText(`${kept} v2`)).toHaveCount(0);
+});

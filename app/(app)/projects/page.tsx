@@ -15,6 +15,9 @@ export default async function ProjectsPage() {
       <PageHeader title="Projects" sheet="Designs in this organisation">
         {canCreate ? (
           <>
+            <Link href="/projects/templates" className="btn-quiet">
+              Templates
+            </Link>
             <Link href="/projects/new/import" className="btn-quiet">
               Import project file
             </Link>

@@ -33,8 +33,11 @@ export async function decideReviewAction(input: ReviewDecisionInput & { certific
   return result;
 }
 
+/** An action's argument as the client sent it: anything serialisable, so a non-string reads as "" and is refused as not found. */
+const textArgument = (value: unknown): string => (typeof value === "string" ? value : "");
+
 export async function renderStampedPacketAgainAction(revisionId: string): Promise<ActionResult> {
-  const result = await runAction((ctx) => renderStampedPacketAgain(ctx, revisionId));
+  const result = await runAction((ctx) => renderStampedPacketAgain(ctx, textArgument(revisionId)));
   if (result.ok) revalidatePath(`/reviews/${revisionId}`);
   return result.ok ? { ok: true, message: result.data?.message } : result;
 }
@@ -64,7 +67,7 @@ export async function saveLicenceAction(_prev: ActionResult<LicenceView> | null,
 
 /** Signs an approved revision's stamped packet with the reviewer's stored certificate; the password is used once and dropped. */
 export async function signPacketAction(revisionId: string, certificatePassword: string): Promise<ActionResult> {
-  const result = await runAction((ctx) => signStampedPacket(ctx, String(revisionId), { password: String(certificatePassword ?? "") }));
+  const result = await runAction((ctx) => signStampedPacket(ctx, textArgument(revisionId), { password: textArgument(certificatePassword) }));
   if (result.ok) revalidatePath(`/reviews/${revisionId}`);
   return result.ok ? { ok: true, message: result.data?.message } : result;
 }

@@ -1,6 +1,7 @@
 import { createHash } from "node:crypto";
 import { NextResponse } from "next/server";
 import { env } from "@/lib/env";
+import { readJson } from "@/lib/http";
 import { checkStampedFile, SHA256_HEX } from "@/lib/services/verify/stamped-file";
 import { clientAddress, takeVerifyPoint } from "@/lib/services/verify/rate-limit";
 import { BodyTooLargeError, forEachChunkLimited, readFormDataLimited } from "@/lib/uploads/limited-body";
@@ -49,7 +50,10 @@ export async function POST(request: Request): Promise<Response> {
   const limit = maxPacketBytes();
   try {
     if (type.startsWith("application/json")) {
-      const body = (await request.json().catch(() => null)) as { sha256?: unknown } | null;
+      // {"sha256": "<64 hex>"} is under 100 bytes; a larger JSON body is refused as it streams, not parsed.
+      const read = await readJson(request, { maxBytes: 4 * 1024 });
+      if (!read.ok) return read.response;
+      const body = read.body as { sha256?: unknown } | null;
       const sha256 = typeof body?.sha256 === "string" ? body.sha256.trim().toLowerCase() : "";
       if (!SHA256_HEX.test(sha256)) return refuse(400, "Give the file's SHA-256 as 64 hexadecimal characters.");
       return answer(sha256);

@@ -6,55 +6,12 @@
  * building is covered for those circuits, unless the designer states that the
  * building houses PV equipment only (the 690.12 exception).
  */
-import type { Circuit } from "../../schemas/project-record";
-import { equipmentOfKind, isPvCircuit, Trace, v, type CheckContext, type Indexed } from "../context";
+import { equipmentOfKind, isPvCircuit, Trace, v, type CheckContext } from "../context";
+import { rapidShutdownApplies } from "../derive/rapid-shutdown-scope";
 import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
-
-export interface RapidShutdownScope {
-  applies: boolean;
-  reason: string;
-  /** The array is on a building, so 690.12(B)(2) inside the array boundary applies too. */
-  insideBoundary: boolean;
-  /** PV circuits of a ground-mounted array whose entersBuilding is empty (taken as entering). */
-  unknownCircuits: Indexed<Circuit>[];
-}
-
-export function rapidShutdownApplies(ctx: CheckContext): RapidShutdownScope {
-  const none = { insideBoundary: false, unknownCircuits: [] };
-  if (ctx.arrays.size === 0) return { applies: false, reason: "no PV array in the record", ...none };
-  if (ctx.record.site.mounting !== "ground") {
-    return { applies: true, reason: "roof-mounted array: PV circuits on a building", insideBoundary: true, unknownCircuits: [] };
-  }
-  const pv = ctx.circuits.filter((c) => isPvCircuit(c.item));
-  const entering = pv.filter((c) => c.item.entersBuilding === true);
-  const unknownCircuits = pv.filter((c) => c.item.entersBuilding === undefined);
-  if (entering.length === 0 && unknownCircuits.length === 0) {
-    return {
-      applies: false,
-      reason: pv.length === 0 ? "ground-mounted array with no PV circuit recorded" : "ground-mounted array whose PV circuits stay outside buildings (690.12 covers PV circuits on or in buildings)",
-      ...none,
-    };
-  }
-  if (ctx.record.site.pvOnlyBuilding === true) {
-    return {
-      applies: false,
-      reason: "ground-mounted array whose PV circuits enter only a building that houses PV equipment only, as the designer states (690.12 exception)",
-      ...none,
-    };
-  }
-  const named = (entering.length ? entering : unknownCircuits).map((c) => c.item.tag).join(", ");
-  return {
-    applies: true,
-    reason: entering.length
-      ? `PV circuit ${named} of the ground-mounted array enters a building`
-      : `PV circuit ${named} of the ground-mounted array is not recorded as staying outside buildings`,
-    insideBoundary: false,
-    unknownCircuits: entering.length ? [] : unknownCircuits,
-  };
-}
 
 const INSIDE_BOUNDARY_TEXT = {
   "listed-hazard-control": "a listed PV hazard control system",

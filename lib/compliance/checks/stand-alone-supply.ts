@@ -5,21 +5,15 @@
  * branch circuits, no 240 V outlets, and the sum of the sources' ratings below
  * the panel's neutral bus rating (710.15(C)).
  */
-import type { Circuit } from "../../schemas/project-record";
-import { equipmentOfKind, isInverter, round, Trace, v, type CheckContext, type EquipmentOf, type Indexed } from "../context";
+import { isInverter, round, Trace, v, type CheckContext, type EquipmentOf } from "../context";
 import { loadSummary } from "../load-summary";
 import { remedy } from "../derive/remedy";
+import { singleSupplyPanels } from "../derive/single-supply";
 import { refs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
 import type { CheckResult, CheckStatus } from "../types";
 
-type Panel = EquipmentOf<"ac-panel">;
 type Inverter = EquipmentOf<"inverter" | "inverter-charger" | "hybrid-inverter">;
-
-function is120Only(inv: Inverter): boolean {
-  if (inv.acOutput !== undefined) return inv.acOutput === "120";
-  return inv.acOutputVoltageV !== undefined && inv.acOutputVoltageV <= 130;
-}
 
 function supplyVoltageKnown(inv: Inverter): boolean {
   return inv.acOutput !== undefined || inv.acOutputVoltageV !== undefined;
@@ -62,23 +56,6 @@ function sourceRatings(ctx: CheckContext, panelTag: string, t: Trace): { tag: st
     }
   }
   return complete ? out : undefined;
-}
-
-/** Panels rated 120/240 V fed by a 120 V-only inverter, in a stand-alone system. */
-export function singleSupplyPanels(ctx: CheckContext): { panel: Indexed<Panel>; inverter: Indexed<Inverter>; circuit: Indexed<Circuit> }[] {
-  if (ctx.record.systemKind === "hybrid") return [];
-  const out: { panel: Indexed<Panel>; inverter: Indexed<Inverter>; circuit: Indexed<Circuit> }[] = [];
-  for (const p of equipmentOfKind(ctx, "ac-panel")) {
-    if (p.item.voltage !== "120/240") continue;
-    for (const c of ctx.circuitsByEndpoint.get(p.item.tag) ?? []) {
-      if (c.item.kind !== "inverter-ac-output") continue;
-      const other = ctx.equipment.get(c.item.fromTag === p.item.tag ? c.item.toTag : c.item.fromTag);
-      if (other && isInverter(other.item) && is120Only(other.item)) {
-        out.push({ panel: p, inverter: other as Indexed<Inverter>, circuit: c });
-      }
-    }
-  }
-  return out;
 }
 
 export const standAloneSupply: CheckDefinition = {

@@ -10,7 +10,6 @@ import { refs } from "../refs";
 import { makeResult, type CheckDefinition } from "../result";
 import type { CheckResult } from "../types";
 
-export { DATASHEET_KINDS } from "../documents";
 
 export const submittalCompleteness: CheckDefinition = {
   id: "submittal-completeness",

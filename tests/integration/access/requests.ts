@@ -43,7 +43,9 @@ export async function http(handler: unknown, method: string, url: string, option
 export async function action(result: Promise<ActionResult<unknown>>): Promise<Outcome> {
   const r = await result;
   if (r.ok) return { status: 200, text: JSON.stringify(r) };
-  return { status: HTTP_STATUS[r.code as ServiceErrorCode] ?? 400, text: JSON.stringify(r) };
+  // "internal" is the action wrapper's answer to an error no service expected: the same as a 500.
+  const status = r.code === "internal" ? 500 : (HTTP_STATUS[r.code as ServiceErrorCode] ?? 400);
+  return { status, text: JSON.stringify(r) };
 }
 
 export function form(fields: Record<string, string | string[] | Blob>, files: Record<string, File> = {}): FormData {

@@ -34,12 +34,15 @@ import * as voidRoute from "../../../app/api/submissions/[id]/events/[eventId]/v
 import * as eventsRoute from "../../../app/api/submissions/[id]/events/route";
 import * as submissionRoute from "../../../app/api/submissions/[id]/route";
 import * as submissionsRoute from "../../../app/api/submissions/route";
+import * as templateRoute from "../../../app/api/templates/[id]/route";
+import * as templatesRoute from "../../../app/api/templates/route";
 import * as uploadsRoute from "../../../app/api/uploads/route";
 import * as verifyRoute from "../../../app/api/verify/route";
-import { equipmentLibrary, jurisdictions, submissionEvents, users } from "../../../db/schema";
+import { equipmentLibrary, jurisdictions, projectTemplates, submissionEvents, users } from "../../../db/schema";
 import type { Role } from "../../../lib/auth/roles";
 import { getProjectRecord } from "../../../lib/services/projects/get-record";
 import { createSubmission } from "../../../lib/services/submissions";
+import { saveTemplateFromProject } from "../../../lib/services/templates/save";
 import { makePng } from "../../unit/uploads/fixtures";
 import { action, form, http, type Outcome } from "./requests";
 import { noDelivery, type World } from "./world";
@@ -82,6 +85,8 @@ const userVersion = (w: World, id: string) => String(w.db.select({ v: users.vers
 const libraryVersion = (w: World, id: string) => w.db.select({ v: equipmentLibrary.version }).from(equipmentLibrary).where(eq(equipmentLibrary.id, id)).get()!.v;
 const jurisdictionVersion = (w: World) => w.db.select({ v: jurisdictions.version }).from(jurisdictions).where(eq(jurisdictions.id, w.jurisdictionId)).get()!.v;
 const libraryCsv = () => fs.readFileSync("examples/equipment-library.csv", "utf8").split("\n").slice(0, 2).join("\n").replace("BF-410M", `BF-${++unique}`);
+const templateVersion = (w: World, id: string) => w.db.select({ v: projectTemplates.version }).from(projectTemplates).where(eq(projectTemplates.id, id)).get()!.v;
+const freshTemplate = (w: World) => ({ id: saveTemplateFromProject(w.ctx.designer, w.projectId, { name: `Cabin kit ${++unique}` }).id });
 const equipmentTag = (w: World) => w.record.equipment.find((e) => e.kind === "inverter")?.tag ?? w.record.equipment[0]!.tag;
 
 async function freshSubmission(w: World): Promise<Record<string, string>> {
@@ -132,6 +137,29 @@ export const ENTRIES: Entry[] = [
     scoped: true,
     setup: (w) => ({ id: w.fresh.project() }),
     call: (_w, { id }) => http(projectRevisionsRoute.POST, "POST", `/api/projects/${id}/revisions`, { params: { id: id! } }),
+  },
+
+  // Project templates: a firm's standard kits, kept by its designers
+  { name: "GET /api/templates", allowed: PROJECT_READERS, scoped: false, call: () => http(templatesRoute.GET, "GET", "/api/templates") },
+  {
+    name: "POST /api/templates",
+    allowed: DESIGNER,
+    scoped: true,
+    call: (w) => http(templatesRoute.POST, "POST", "/api/templates", { json: { projectId: w.projectId, name: `Hut kit ${++unique}` } }),
+  },
+  {
+    name: "PATCH /api/templates/[id]",
+    allowed: DESIGNER,
+    scoped: true,
+    setup: freshTemplate,
+    call: (w, { id }) => http(templateRoute.PATCH, "PATCH", `/api/templates/${id}`, { params: { id: id! }, json: { version: templateVersion(w, id!), name: `Renamed kit ${++unique}` } }),
+  },
+  {
+    name: "DELETE /api/templates/[id]",
+    allowed: DESIGNER,
+    scoped: true,
+    setup: freshTemplate,
+    call: (_w, { id }) => http(templateRoute.DELETE, "DELETE", `/api/templates/${id}`, { params: { id: id! } }),
   },
 
   // Files

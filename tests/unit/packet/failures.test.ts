@@ -58,6 +58,19 @@ describe("failures where the reviewer looks, on the seeded hut packet", () => {
     expect(c5.deviceMarks.every((m) => !m.trouble)).toBe(true);
   });
 
+  it("prints the engine's remedy beside the FAIL marks on the one-line, on screen and in the PDF", async () => {
+    const oneLine = pagesOf(pdf, text, "E-001");
+    expect(oneLine).toContain(`FIX: ${REMEDY}`);
+    // The engine's own remedy for the ampacity failure: 8 AWG Cu, 50 A at 75 °C (NEC 2017 Table 310.15(B)(16)) for 37.5 A required.
+    const ampacity = run.results.find((r) => r.id === "conductor-ampacity:C-2")!;
+    expect(ampacity.remedy?.text).toMatch(/8 AWG Cu/);
+    expect(oneLine).toContain(`FIX: ${ampacity.remedy!.text}`);
+    const layout = await layoutOneLine(record, { failures: failuresOf(run.results) });
+    const c2 = layout.edges.find((e) => e.circuitTag === "C-2")!;
+    expect(c2.remedies.join(" ").replace(/\s+/g, " ")).toContain(`FIX: ${REMEDY}`);
+    expect(layout.edges.find((e) => e.circuitTag === "C-5")!.remedies).toEqual([]);
+  });
+
   it("shows the failing state on the conductor and on its device in the schedules", () => {
     const schedule = pagesOf(pdf, text, "E-004");
     const c2Row = schedule.slice(schedule.indexOf("C-2 "), schedule.indexOf("C-3 "));

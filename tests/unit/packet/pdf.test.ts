@@ -234,7 +234,8 @@ describe("schedules longer than a sheet", () => {
     expect(sheet.pageCount).toBeGreaterThan(1);
     const pages = text.pages.slice(sheet.firstPage - 1, sheet.firstPage - 1 + sheet.pageCount);
     pages.forEach((p, i) => {
-      expect(p, `E-004 page ${i + 1}`).toContain("Circuit From → to Kind Conductor");
+      // Each page repeats the column headings of the table it continues: the conductor schedule, then the raceway fill.
+      expect(p, `E-004 page ${i + 1}`).toMatch(/Circuit From → to Kind Conductor|Circuit Raceway Raceway area \(Table 4\)/);
       // Overflow flows onto added sheets numbered E-004.1, E-004.2 … (the sheet number in the heading and title block).
       const number = i === 0 ? "E-004" : `E-004.${i}`;
       expect(p).toContain(`${number} CONDUCTOR AND OVERCURRENT SCHEDULE`);

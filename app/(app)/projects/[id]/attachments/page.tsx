@@ -4,7 +4,7 @@ import { AttachmentUploader, type EquipmentOption } from "@/components/attachmen
 import { SubmittalChecklist, type ChecklistItem } from "@/components/attachments/submittal-checklist";
 import { pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
-import { DATASHEET_KINDS } from "@/lib/compliance/checks/submittal-completeness";
+import { DATASHEET_KINDS } from "@/lib/compliance/documents";
 import { env } from "@/lib/env";
 import type { ProjectRecord } from "@/lib/schemas/project-record";
 import { listProjectAttachments } from "@/lib/services/attachments";
