@@ -93,6 +93,8 @@ export const SITE_FIELDS: FieldSpec[] = [
     help: "One- and two-family dwellings limit PV system voltage to 600 V (690.7).",
   },
   { path: "site.mounting", label: "Mounting", type: "select", options: MOUNTING_OPTIONS, required: true },
+  { path: "site.rackingProduct", label: "Racking product", type: "text", help: "Make and model of the racking or mounting system, printed in the packet's structural block." },
+  { path: "site.rackingListing", label: "Racking listing", type: "text", help: "The racking's listing, e.g. UL 2703 (mounting and bonding)." },
   {
     path: "site.roofClearanceIn",
     label: "Roof clearance of raceways",

@@ -56,6 +56,10 @@ export const siteSchema = z.object({
   address: text(300).default(""),
   occupancy: z.enum(OCCUPANCIES, { error: "must be one-two-family-dwelling or other-building" }),
   mounting: z.enum(MOUNTINGS, { error: "must be ground or roof" }),
+  /** Racking or mounting system, make and model, as the structural block of the packet prints it. */
+  rackingProduct: text(200).default(""),
+  /** The racking's listing (UL 2703 for mounting and bonding, by common practice). */
+  rackingListing: text(120).default(""),
   /** Height of PV raceways above the roof, for the rooftop temperature adder. */
   roofClearanceIn: numberIn(0, 120, "in").optional(),
   designLowTempC: numberIn(-60, 70, "°C").optional(),
@@ -442,6 +446,7 @@ export const ATTACHMENT_KINDS = [
   "site-plan",
   "storage-listing",
   "structural-letter",
+  "attachment-detail",
   "photo",
   "stamp",
   "other",

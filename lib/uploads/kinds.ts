@@ -27,6 +27,7 @@ export const KIND_RULES: Record<AttachmentKind, KindRule> = {
   "site-plan": { label: "Site plan", accepts: PDF_OR_IMAGE, equipment: "optional", hint: "Drawing as PDF, or a PNG/JPEG image" },
   "storage-listing": { label: "Storage listing", accepts: PDF, equipment: "optional", hint: "Listing or certificate for the batteries, PDF" },
   "structural-letter": { label: "Structural letter", accepts: PDF, equipment: "optional", hint: "Engineer's letter, PDF" },
+  "attachment-detail": { label: "Footing or attachment detail", accepts: PDF, equipment: "optional", hint: "Footing, pier or roof attachment drawing, PDF" },
   photo: { label: "Photo", accepts: IMAGES, equipment: "optional", hint: "PNG or JPEG, e.g. a nameplate or a placed label" },
   stamp: { label: "Stamp image", accepts: IMAGES, equipment: "optional", hint: "Reviewer's stamp, PNG or JPEG" },
   other: { label: "Other", accepts: PDF_OR_IMAGE, equipment: "optional", hint: "PDF, PNG or JPEG" },

@@ -192,13 +192,17 @@ export class SheetWriter {
           if (block.figure === "split-phase") {
             this.place({ items: [threeLineItem(fonts, block.caption, w)], gapAfter: 10, keepTogether: true });
           } else if (block.figure === "site-plan") {
-            // The drawing takes what the location list below it leaves, so both stay on one sheet where they can.
-            const following = blocks[index + 1];
+            // The drawing takes what the blocks below it leave (location list, structural block), so all stay on one sheet where they can.
             let listH = 0;
-            if (following?.kind === "table") {
-              const t = tableItems(this.ctx, following, w);
-              listH = [...t.caption, t.header, ...t.rows].reduce((sum, it) => sum + it.h, 0) + 30;
+            for (const following of blocks.slice(index + 1)) {
+              if (following.kind === "table") {
+                const t = tableItems(this.ctx, following, w);
+                listH += [...t.caption, t.header, ...t.rows].reduce((sum, it) => sum + it.h, 0) + 16;
+              } else if (following.kind === "fields") listH += following.rows.length * (FIELD_LH + 2) + 8;
+              else if (following.kind === "heading") listH += 22;
+              else listH += 30;
             }
+            listH += 14;
             const h = Math.max(260, Math.round(this.remaining - listH));
             this.place({ items: [sitePlanItem(this.ctx, w, h, block.caption)], gapAfter: 12 });
           } else {

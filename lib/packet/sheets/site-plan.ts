@@ -1,6 +1,7 @@
 import type { Block, Cell } from "../markup";
 import type { PacketInput } from "../types";
 import { KIND_LABEL, LOCATION_LABEL, describe, table } from "./shared";
+import { structuralBlocks } from "./structural";
 
 export function sitePlanBlocks(input: PacketInput): Block[] {
   const { record } = input;
@@ -21,5 +22,6 @@ export function sitePlanBlocks(input: PacketInput): Block[] {
   return [
     { kind: "figure", figure: "site-plan", caption: input.sitePlan ? `Site plan: ${input.sitePlan.fileName}` : "Site plan not attached" },
     table([["Tag", 1], ["Equipment", 2], ["Make and model", 3], ["Qty", 0.6, "right"], ["Location", 5]], rows, "Equipment and battery locations"),
+    ...structuralBlocks(input),
   ];
 }

@@ -32,7 +32,7 @@ export interface PacketDocuments {
   attachmentIds: string[];
 }
 
-const MERGED_KINDS = ["datasheet", "storage-listing", "structural-letter"] as const;
+const MERGED_KINDS = ["datasheet", "storage-listing", "structural-letter", "attachment-detail"] as const;
 
 /**
  * Chooses the documents a packet carries: the newest site plan, then the
@@ -68,6 +68,8 @@ export function documentTitle(record: ProjectRecord, doc: Pick<DocumentRef, "kin
       return model ? `${model} storage listing` : `Storage listing, ${doc.fileName}`;
     case "structural-letter":
       return `Structural letter, ${doc.fileName}`;
+    case "attachment-detail":
+      return `Footing or attachment detail, ${doc.fileName}`;
     default:
       return doc.fileName;
   }

@@ -82,4 +82,30 @@ describe("plan sheets a reviewer asks for", () => {
     expect(row).toContain("1 C5 DS-P CB-2 20 A 2 12 AWG Cu 240 V 8 A 1920 VA");
     expect(row).toContain("Sum of branch breakers 20 A");
   });
+
+  it("prints the structural block with what is missing named", () => {
+    const g003 = pagesOf(pdf, text, "G-003");
+    expect(g003).toContain("STRUCTURAL AND ATTACHMENT");
+    expect(g003).toContain("Racking product NOT GIVEN: Racking product (Site section of the design)");
+    expect(g003).toContain("Footing detail NOT GIVEN: attach a footing or attachment detail");
+  });
+});
+
+describe("structural block of a roof mount with its documents", () => {
+  it("names the racking, its listing and the attached detail and letter", async () => {
+    const roof = projectRecordSchema.parse({
+      ...record,
+      site: { ...record.site, mounting: "roof", rackingProduct: "Kestrel RR-4 rail", rackingListing: "UL 2703" },
+      jurisdiction: { ...record.jurisdiction, requiredDocuments: ["structural-letter"] },
+      attachments: [{ kind: "attachment-detail", fileName: "l-foot-detail.pdf" }],
+    });
+    const pdf = await renderPacketPdf(fixtureInput({ record: roof }));
+    const text = await readPdfText(pdf.bytes);
+    const g003 = pagesOf(pdf, text, "G-003");
+    expect(g003).toContain("Mounting Roof mount");
+    expect(g003).toContain("Racking product Kestrel RR-4 rail");
+    expect(g003).toContain("Racking listing UL 2703");
+    expect(g003).toContain("Roof attachment detail attached, merged after the sheets: l-foot-detail.pdf");
+    expect(g003).toContain("Structural letter NOT GIVEN: Quillon County Building Division requires a structural letter for a roof mount");
+  }, 60_000);
 });

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { TemplateEditor } from "@/components/jurisdictions/template-editor";
 import { PageHeader, Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
+import { DEFAULT_VOLTAGE_DROP_LIMIT_PCT } from "@/lib/schemas/vocabulary";
 import { can } from "@/lib/auth/permissions";
 import { ServiceError } from "@/lib/services/errors";
 import { getJurisdiction } from "@/lib/services/jurisdictions/get";
@@ -65,7 +66,7 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
             </Field>
             <Field label="Residential code">{j.residentialCode === "none" ? "—" : j.residentialCode}</Field>
             <Field label="Voltage-drop limit">
-              <span className="figure">{j.voltageDropLimitPct != null ? `${j.voltageDropLimitPct} %` : "3 % (default)"}</span>
+              <span className="figure">{j.voltageDropLimitPct != null ? `${j.voltageDropLimitPct} %` : `${DEFAULT_VOLTAGE_DROP_LIMIT_PCT} % (default)`}</span>
             </Field>
             <Field label="Storage limit per location">
               <span className="figure">{j.storageAggregateLimitKWh != null ? `${j.storageAggregateLimitKWh} kWh` : "per the code table"}</span>
