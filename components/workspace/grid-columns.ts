@@ -77,6 +77,8 @@ export function circuitColumns(tags: TagLists): GridColumn[] {
     { key: "designCurrentA", header: "Design current", unit: "A", type: "number", width: "w-16" },
     { key: "nominalVoltageV", header: "Nominal voltage", unit: "V", type: "number", width: "w-16" },
     { key: "phases", header: "Phases (AC)", type: "number-select", options: PHASE_OPTIONS, width: "w-20" },
+    { key: "feedsOtherBuilding", header: "Enters another building (AC)", type: "tri-state", width: "w-16" },
+    { key: "buildingDisconnectTag", header: "Building disconnect", type: "select", options: tags.byKinds(["disconnect", "breaker", "ac-panel"]), width: "w-24" },
   ];
 }
 

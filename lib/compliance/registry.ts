@@ -9,6 +9,8 @@ import { conductorAmpacityCheck } from "./checks/conductor-ampacity";
 import { deviceRatings } from "./checks/device-ratings";
 import { disconnects } from "./checks/disconnects";
 import { grounding } from "./checks/grounding";
+import { generatorDisconnects } from "./checks/generator-disconnects";
+import { groundingElectrode } from "./checks/grounding-electrode";
 import { inverterCapacity } from "./checks/inverter-capacity";
 import { labelsRequired } from "./checks/labels-required";
 import { maxPvVoltage } from "./checks/max-pv-voltage";
@@ -19,6 +21,7 @@ import { pvArcFault } from "./checks/pv-arc-fault";
 import { pvGrounding } from "./checks/pv-grounding";
 import { pvWiringMethods } from "./checks/pv-wiring-methods";
 import { rapidShutdown } from "./checks/rapid-shutdown";
+import { standAloneOutput } from "./checks/stand-alone-output";
 import { standAloneSizing } from "./checks/stand-alone-sizing";
 import { standAloneSupply } from "./checks/stand-alone-supply";
 import { storageSiting } from "./checks/storage-siting";
@@ -35,6 +38,7 @@ export const CHECKS: readonly CheckDefinition[] = [
   overcurrentProtection,
   disconnects,
   grounding,
+  groundingElectrode,
   voltageDrop,
   batteryTerminals,
   inverterCapacity,
@@ -42,6 +46,8 @@ export const CHECKS: readonly CheckDefinition[] = [
   labelsRequired,
   storageSiting,
   standAloneSupply,
+  standAloneOutput,
+  generatorDisconnects,
   rapidShutdown,
   pvArcFault,
   pvGrounding,
