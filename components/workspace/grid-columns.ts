@@ -83,11 +83,13 @@ export function circuitColumns(tags: TagLists): GridColumn[] {
 }
 
 export const LOAD_COLUMNS: GridColumn[] = [
-  { key: "name", header: "Load", type: "text", width: "w-48" },
-  { key: "watts", header: "Power", unit: "W", type: "number", width: "w-20" },
+  { key: "name", header: "Load", type: "text", width: "w-36" },
+  { key: "watts", header: "Power", unit: "W", type: "number", width: "w-16" },
   { key: "quantity", header: "Qty", type: "integer", width: "w-14" },
   { key: "hoursPerDay", header: "Hours a day", unit: "h", type: "number", width: "w-16" },
-  { key: "surgeW", header: "Surge", unit: "W", type: "number", width: "w-20" },
+  { key: "dutyPct", header: "Duty", unit: "%", type: "number", width: "w-14", placeholder: "100" },
+  { key: "daysPerWeek", header: "Days a week", type: "integer", width: "w-12", placeholder: "7" },
+  { key: "surgeW", header: "Surge", unit: "W", type: "number", width: "w-16" },
   {
     key: "voltageV",
     header: "Voltage",

@@ -469,6 +469,13 @@ export const loadSchema = z.object({
   watts: numberIn(0, 100000, "W"),
   quantity: integerIn(1, 1000).default(1),
   hoursPerDay: numberIn(0, 24, "h"),
+  /**
+   * Share of those hours it draws its rated power, for a load that cycles (a refrigerator's compressor runs
+   * about a third of the time); empty is 100 %.
+   */
+  dutyPct: numberIn(1, 100, "%").optional(),
+  /** Days a week it runs, for a load not used every day; the week's energy is averaged per day. Empty is 7. */
+  daysPerWeek: integerIn(1, 7, "days").optional(),
   surgeW: numberIn(0, 300000, "W").optional(),
   voltageV: z.union([z.literal(120), z.literal(240)]).default(120),
   /** Runs at the same time as the others (for the peak simultaneous power). */
