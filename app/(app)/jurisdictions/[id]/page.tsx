@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { JurisdictionForm } from "@/components/jurisdictions/jurisdiction-form";
 import { NotesLog } from "@/components/jurisdictions/notes-log";
+import { SummaryCard } from "@/components/jurisdictions/summary-card";
 import { TemplateEditor } from "@/components/jurisdictions/template-editor";
 import { PageHeader, Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
@@ -11,6 +12,7 @@ import { ServiceError } from "@/lib/services/errors";
 import type { JurisdictionEditInput } from "@/lib/schemas/jurisdiction";
 import { getJurisdiction } from "@/lib/services/jurisdictions/get";
 import { listJurisdictionNotes } from "@/lib/services/jurisdictions/notes";
+import { jurisdictionSummary } from "@/lib/services/jurisdictions/summary";
 import { listSheetTemplates } from "@/lib/services/jurisdictions/templates";
 
 export const metadata: Metadata = { title: "Jurisdiction" };
@@ -56,6 +58,7 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
   const labelRules = j.labelRules ?? {};
   const canEdit = can(ctx.roles, "jurisdiction:edit");
   const notes = listJurisdictionNotes(ctx, id);
+  const summary = can(ctx.roles, "submission:read") ? jurisdictionSummary(ctx, id) : null;
   return (
     <>
       <PageHeader title={j.name} sheet={`Jurisdiction · ${j.region || "region not recorded"}`}>
@@ -84,7 +87,10 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
               version: j.version,
             }}
           />
-          <NotesLog jurisdictionId={j.id} notes={notes} canWrite />
+          <div className="space-y-4">
+            {summary ? <SummaryCard summary={summary} /> : null}
+            <NotesLog jurisdictionId={j.id} notes={notes} canWrite />
+          </div>
         </div>
       ) : null}
       <div className={canEdit ? "" : "grid gap-4 lg:grid-cols-[20rem_1fr]"}>
@@ -125,6 +131,7 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
             </Field>
           </dl>
         </section>
+        {summary ? <SummaryCard summary={summary} /> : null}
         <NotesLog jurisdictionId={j.id} notes={notes} canWrite={false} />
         </div>
         )}
