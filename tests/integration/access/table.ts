@@ -405,6 +405,13 @@ export const ENTRIES: Entry[] = [
     call: (_w, { submissionId, eventId }) => action(submissionActions.voidEventAction(null, form({ submissionId: submissionId!, eventId: eventId!, reason: "Entered twice." }))),
   },
   {
+    name: "sendDigestAction",
+    // The office's own digest of overdue permits, sent to its own people.
+    allowed: OFFICE,
+    scoped: false,
+    call: () => action(submissionActions.sendDigestAction()),
+  },
+  {
     name: "saveSheetTemplateAction",
     allowed: OFFICE,
     scoped: true,
