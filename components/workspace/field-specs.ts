@@ -142,7 +142,7 @@ export const SITE_FIELDS: FieldSpec[] = [
     label: "Battery location",
     type: "select",
     options: BATTERY_LOCATION_OPTIONS,
-    help: "Drives the storage siting limits (IRC R328 / R330, NFPA 855 chapter 15). Never a habitable room.",
+    help: "Required when the design has a battery: it drives the storage siting limits (IRC R328 / R330, NFPA 855 chapter 15). Never a habitable room.",
   },
   { path: "site.batteryLocationNote", label: "Battery location note", type: "text" },
   {

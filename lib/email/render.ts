@@ -11,6 +11,12 @@ export const EMAIL_TEMPLATES = [
   "permit-issued",
   "invitation",
   "password-reset",
+  "ready-to-submit",
+  "plan-review-started",
+  "inspection-result",
+  "submission-cancelled",
+  "checklist-complete",
+  "overdue-digest",
 ] as const;
 export type EmailTemplate = (typeof EMAIL_TEMPLATES)[number];
 

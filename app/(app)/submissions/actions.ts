@@ -2,7 +2,9 @@
 
 import { revalidatePath } from "next/cache";
 import { defineAction, formText } from "@/lib/auth/action";
+import { z } from "zod";
 import { formFieldsSchema } from "@/lib/schemas/edges";
+import { sendOverdueDigest } from "@/lib/services/submissions/digest";
 import { createSubmission, recordSubmissionEvent, voidSubmissionEvent } from "@/lib/services/submissions";
 
 /**
@@ -55,4 +57,13 @@ export const voidEventAction = defineAction({
   run: (ctx, input) => voidSubmissionEvent(ctx, { ...input, version: input.version || undefined }),
   message: (data) => data.message,
   after: (input) => refreshSubmission(input.submissionId),
+});
+
+/** The permit office's digest of overdue submissions and expiring permits, sent now rather than at the scheduled hour. */
+export const sendDigestAction = defineAction({
+  access: "user",
+  read: () => ({}),
+  schema: z.object({}),
+  run: (ctx) => sendOverdueDigest(ctx),
+  message: (data) => data.message,
 });

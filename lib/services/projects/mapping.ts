@@ -9,6 +9,7 @@ import type {
   PvArrayRow,
 } from "../../../db/schema";
 import type { ProjectRecordInput } from "../../schemas/project-record";
+import { withKnownWiringCodes } from "../../schemas/wiring-codes";
 
 /** Site and project fields held in columns; anything else of the record lands in `extra`. */
 const SITE_COLUMNS = [
@@ -103,7 +104,7 @@ export function rowsToRecord(rows: ProjectRows): ProjectRecordInput {
       })),
     circuits: [...rows.circuits]
       .sort((a, b) => a.position - b.position)
-      .map((c) => ({ ...c.data, tag: c.tag, fromTag: c.fromTag, toTag: c.toTag, kind: c.kind }) as never),
+      .map((c) => ({ ...withKnownWiringCodes(c.data), tag: c.tag, fromTag: c.fromTag, toTag: c.toTag, kind: c.kind }) as never),
     loads: [...rows.loads]
       .sort((a, b) => a.position - b.position)
       .map((l) => ({
@@ -111,6 +112,8 @@ export function rowsToRecord(rows: ProjectRows): ProjectRecordInput {
         watts: l.watts,
         quantity: l.quantity,
         hoursPerDay: l.hoursPerDay,
+        dutyPct: nullToUndefined(l.dutyPct),
+        daysPerWeek: nullToUndefined(l.daysPerWeek),
         surgeW: nullToUndefined(l.surgeW),
         voltageV: l.voltageV as 120 | 240,
         simultaneous: l.simultaneous,
@@ -136,7 +139,7 @@ type Parsed = {
   equipment: Array<{ tag: string; kind: string; quantity: number; libraryItemId?: string } & Record<string, unknown>>;
   arrays: Array<{ tag: string; moduleTag: string; modulesInSeries: number; stringsInParallel: number; feedsTag: string; mpptInputId?: string }>;
   circuits: Array<{ tag: string; fromTag: string; toTag: string; kind: string } & Record<string, unknown>>;
-  loads: Array<{ name: string; watts: number; quantity: number; hoursPerDay: number; surgeW?: number; voltageV: number; simultaneous: boolean }>;
+  loads: Array<{ name: string; watts: number; quantity: number; hoursPerDay: number; dutyPct?: number; daysPerWeek?: number; surgeW?: number; voltageV: number; simultaneous: boolean }>;
 } & Record<string, unknown>;
 
 /** Splits a validated record into the project columns and child rows (without ids). */
@@ -174,6 +177,6 @@ export function recordToRows(record: Parsed) {
       const { tag, fromTag, toTag, kind, ...data } = c;
       return { tag, fromTag, toTag, kind, position, data };
     }),
-    loads: record.loads.map((l, position) => ({ ...l, surgeW: l.surgeW ?? null, position })),
+    loads: record.loads.map((l, position) => ({ ...l, surgeW: l.surgeW ?? null, dutyPct: l.dutyPct ?? null, daysPerWeek: l.daysPerWeek ?? null, position })),
   };
 }
