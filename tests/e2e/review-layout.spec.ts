@@ -17,13 +17,14 @@ test("on the review page, each figure's name and value stand apart: a label's wo
     divs.map((d) => {
       const dt = d.querySelector("dt")!.getBoundingClientRect();
       const dd = d.querySelector("dd")!.getBoundingClientRect();
-      return { name: d.querySelector("dt")!.textContent, dtRight: dt.right, ddLeft: dd.left, dtWidth: dt.width };
+      return { name: d.querySelector("dt")!.textContent, dtRight: dt.right, ddLeft: dd.left, dtWidth: dt.width, ddWidth: dd.width };
     }),
   );
   expect(rows.length).toBeGreaterThan(0);
   for (const r of rows) {
     // The name keeps room to be read, and its box ends before the value's begins.
     expect(r.dtWidth, `${r.name}`).toBeGreaterThan(100);
+    expect(r.ddWidth, `${r.name}`).toBeGreaterThan(150);
     expect(r.dtRight, `${r.name}`).toBeLessThanOrEqual(r.ddLeft);
   }
   await card.screenshot({ path: path.join(ARTIFACTS, "review-labels-card-1440.png") });
