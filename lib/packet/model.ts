@@ -11,7 +11,7 @@ import { groundingBlocks } from "./sheets/grounding";
 import { reviewBlocks } from "./sheets/review-record";
 import { sitePlanBlocks } from "./sheets/site-plan";
 import { storageBlocks } from "./sheets/storage";
-import { readableResult } from "./record-words";
+import { fieldName, readableResult } from "./record-words";
 import { renderSheetTemplate } from "./templates";
 import type { PacketInput } from "./types";
 
@@ -42,7 +42,7 @@ function draftReasons(input: PacketInput, missingDocs: string[]): string[] {
   for (const r of labelGaps) reasons.push(`required label missing or incomplete: ${r.subject ?? r.title}`);
   for (const l of input.labels) {
     if (l.lines.length === 0) reasons.push(`required label ${l.id} has no wording`);
-    else if (l.missing?.length) reasons.push(`label ${l.id} incomplete: ${l.missing.join(", ")} missing`);
+    else if (l.missing?.length) reasons.push(`label ${l.id} incomplete: ${l.missing.map((p) => fieldName(input.record, p)).join(", ")} missing`);
   }
   const overfilled = racewayFillRows(input.record).filter((r) => r.status === "fail").map((r) => r.circuit);
   if (overfilled.length) reasons.push(`raceway fill over the Chapter 9 limit: ${overfilled.join(", ")}`);

@@ -218,6 +218,11 @@ export const protectiveDeviceSchema = z.object({
   interruptingRatingA: numberIn(100, 300000, "A").optional(),
   /** Distance from the battery terminals, for devices protecting a battery circuit. */
   distanceFromBatteryFt: numberIn(0, 1000, "ft").optional(),
+  /**
+   * For a fuse or breaker protecting a battery circuit: its clearing time at the battery's available
+   * short-circuit current, read from the device's time-current curve; the storage disconnect label carries it.
+   */
+  clearingTimeMs: numberIn(0.1, 100000, "ms").optional(),
   /** A device listed for PV ground-fault protection (690.41(B)), e.g. a ground-fault breaker on the PV circuits. */
   providesPvGroundFaultProtection: z.boolean().optional(),
 });
