@@ -1,4 +1,7 @@
+import fs from "node:fs";
+import sharp from "sharp";
 import { beforeAll, describe, expect, it } from "vitest";
+import { parseProjectFile, runChecks } from "@/lib/compliance/index";
 import { imageSize, renderPacketDocx } from "@/lib/packet/docx";
 import { formatNumber } from "@/lib/packet/format";
 import { AHJ_FOOTER, REVIEW_MARKING, SHEET_PLAN } from "@/lib/packet/model";
@@ -103,4 +106,35 @@ describe("permit packet DOCX", () => {
     expect(extent).not.toBeNull();
     expect(Number(extent![1]) / Number(extent![2])).toBeCloseTo(2.5, 2);
   });
+});
+
+describe("the DOCX carries the drawings", () => {
+  it("embeds the hut's one-line as a picture, with its failing battery circuit marked in red", async () => {
+    const parsed = parseProjectFile(JSON.parse(fs.readFileSync("examples/tamarack-hut.json", "utf8")));
+    if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
+    const bytes = await renderPacketDocx(fixtureInput({ record: parsed.record, run: runChecks(parsed.record), labels: [] }));
+    const z = readZip(bytes);
+    const xml = z.get("word/document.xml")!.toString("utf8");
+    expect(xml).toContain('descr="One-line diagram of Tamarack backcountry hut');
+    const media = [...z].filter(([name]) => /^word\/media\/.+\.png$/.test(name));
+    expect(media.length).toBe(1);
+    const png = media[0]![1];
+    const meta = await sharp(png).metadata();
+    // Drawn at 200 dpi: the layout is several hundred points wide, so well over 1,000 pixels.
+    expect(meta.width).toBeGreaterThan(1000);
+    // The drawing is there, not a blank page: dark linework and text, and the signal red of the FAIL marks on C-2.
+    const { data, info } = await sharp(png).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+    let dark = 0;
+    let red = 0;
+    for (let i = 0; i < data.length; i += info.channels) {
+      const [r, g, b] = [data[i]!, data[i + 1]!, data[i + 2]!];
+      if (r < 80 && g < 80 && b < 80) dark += 1;
+      if (r > 150 && g < 80 && b < 80) red += 1;
+    }
+    expect(dark).toBeGreaterThan(5000);
+    expect(red).toBeGreaterThan(500);
+    // The picture sits at the text width of the page: 9 in = 8,229,600 EMU.
+    const extent = [...xml.matchAll(/<wp:extent cx="(\d+)" cy="(\d+)"/g)].map((m) => [Number(m[1]), Number(m[2])]);
+    expect(extent.some(([cx, cy]) => cx! <= 9 * 914400 + 9525 && cy! <= 5.5 * 914400 + 9525 && (cx! > 8 * 914400 || cy! > 5 * 914400))).toBe(true);
+  }, 60_000);
 });
