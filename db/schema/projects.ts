@@ -51,6 +51,8 @@ export const projects = sqliteTable(
     index("projects_org_idx").on(t.orgId, t.status),
     // The projects list pages by (updated_at, id) newest first; this index serves each page without sorting the organisation.
     index("projects_org_updated_idx").on(t.orgId, t.updatedAt, t.id),
+    // Sorted by name, the list pages by (name, id) A to Z.
+    index("projects_org_name_idx").on(t.orgId, t.name, t.id),
   ],
 );
 export type Project = typeof projects.$inferSelect;

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq, lt, or, type SQL } from "drizzle-orm";
+import { and, eq, gt, lt, or, type SQL } from "drizzle-orm";
 import type { SQLiteColumn } from "drizzle-orm/sqlite-core";
 import { z } from "zod";
 import { ServiceError } from "./errors";
@@ -48,6 +48,19 @@ export function afterCursor(request: PageRequest, at: SQLiteColumn, id: SQLiteCo
   }
   const [atValue, idValue] = parsed;
   return or(lt(at, atValue), and(eq(at, atValue), lt(id, idValue)));
+}
+
+/** The condition "after the cursor" for a list ordered by (key asc, id asc), such as names A to Z. */
+export function afterCursorAscending(request: PageRequest, key: SQLiteColumn, id: SQLiteColumn): SQL | undefined {
+  if (!request.cursor) return undefined;
+  let parsed: [string, string];
+  try {
+    parsed = cursorSchema.parse(JSON.parse(Buffer.from(request.cursor, "base64url").toString("utf8")));
+  } catch {
+    throw invalidCursor();
+  }
+  const [keyValue, idValue] = parsed;
+  return or(gt(key, keyValue), and(eq(key, keyValue), gt(id, idValue)));
 }
 
 /** Cuts the one extra row fetched (limit + 1) into the next cursor. */

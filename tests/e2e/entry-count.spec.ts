@@ -275,6 +275,8 @@ test("from the firm's cabin template the same system needs only the site, the le
   await fill(page.getByLabel("Project name"), name);
   await select(page.getByLabel("Start from"), { label: "template: Cabin: series modules, inverter-charger and generator" });
   await expect(page.getByText(/^Stand-alone with generator\. Two modules in series/)).toBeVisible();
+  fs.mkdirSync(ARTIFACTS, { recursive: true });
+  await page.screenshot({ path: path.join(ARTIFACTS, "new-project-from-template-1440.png") });
   await select(page.getByLabel("Jurisdiction"), { label: `${jurisdiction.name} (NEC ${jurisdiction.necEdition})` });
   await page.getByRole("button", { name: "Create project" }).click();
   await expect(page).toHaveURL(/\/projects\/(?!new$)[^/]+$/);

@@ -4,6 +4,7 @@ import { ProjectsTable } from "@/components/projects/projects-table";
 import { PageHeader, Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
+import { listJurisdictions } from "@/lib/services/jurisdictions/list";
 
 export const metadata: Metadata = { title: "Projects" };
 
@@ -27,7 +28,9 @@ export default async function ProjectsPage() {
           </>
         ) : null}
       </PageHeader>
-      {allowed ? <ProjectsTable /> : <Refusal message="Projects are open to designers, reviewers and the permit office." />}
+      {allowed ? (
+        <ProjectsTable jurisdictions={listJurisdictions(ctx).map((j) => ({ id: j.id, name: j.name }))} canEdit={can(ctx.roles, "project:edit")} />
+      ) : <Refusal message="Projects are open to designers, reviewers and the permit office." />}
     </>
   );
 }

@@ -10,6 +10,8 @@ export interface StoredProjectRecord {
   version: number;
   status: string;
   jurisdictionId: string | null;
+  /** When the project was archived; null while it is on the projects list. */
+  archivedAt: string | null;
   record: ProjectRecord;
 }
 
@@ -26,6 +28,7 @@ export function getProjectRecord(ctx: ServiceContext, projectId: string): Stored
     version: rows.project.version,
     status: rows.project.status,
     jurisdictionId: rows.project.jurisdictionId,
+    archivedAt: rows.project.archivedAt,
     record: parsed.data,
   };
 }

@@ -1,7 +1,9 @@
+import { ArchiveControl } from "@/components/workspace/archive-control";
 import { ProjectTabs } from "@/components/workspace/project-tabs";
 import { TitleBlock } from "@/components/workspace/title-block";
 import { Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
+import { can } from "@/lib/auth/permissions";
 import { approvalDrift } from "@/lib/services/projects/approval";
 import { loadProject } from "./load-project";
 
@@ -25,6 +27,7 @@ export default async function ProjectLayout({ children, params }: { children: Re
           drift={approvalDrift(ctx, id)}
         />
       ) : null}
+      {loaded.ok ? <ArchiveControl projectId={id} archivedAt={loaded.stored.archivedAt} canEdit={can(ctx.roles, "project:edit")} /> : null}
       <ProjectTabs projectId={id} />
       {children}
     </>

@@ -1,0 +1,1 @@
+CREATE INDEX `projects_org_name_idx` ON `projects` (`org_id`,`name`,`id`);
