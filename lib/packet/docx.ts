@@ -225,6 +225,8 @@ function blockChildren(block: Block, input: PacketInput, figures: DocxFigures): 
       }
       if (block.figure === "split-phase") {
         const [inverter, panel] = block.caption.split("|");
+        const image = figures.threeLine.get(block.caption);
+        if (image) return [new Paragraph({ children: [imageRun(image, "Three-line detail", `Three-line detail: ${inverter} (120 V) feeding ${panel} (120/240 V), L1–L2 jumper, neutral and EGC`)] })];
         return [new Paragraph({ children: [run(`Three-line detail (${inverter} to ${panel}, L1–L2 jumper and neutral) is drawn on sheet E-007 of the PDF packet.`)] })];
       }
       if (figures.oneLine) {
@@ -257,7 +259,7 @@ export async function renderPacketDocx(input: PacketInput, options: DocxOptions 
     (options.sheetPages ?? []).map((s) => [s.sheet, s.pageCount > 1 ? `${s.firstPage}–${s.firstPage + s.pageCount - 1}` : String(s.firstPage)]),
   );
   const model = buildPacketModel(input, { sheetPages: pages });
-  const figures = await docxFigures(input);
+  const figures = await docxFigures(input, model);
   const t = model.titleBlock;
   const children: FileChild[] = [];
   model.sheets.forEach((sheet, i) => {

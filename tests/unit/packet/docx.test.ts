@@ -24,7 +24,8 @@ describe("permit packet DOCX", () => {
     zip = readZip(bytes);
     documentXml = zip.get("word/document.xml")!.toString("utf8");
     rows = wordTableRows(documentXml);
-  });
+    // The one-line is laid out and drawn as a picture: seconds on a loaded machine.
+  }, 60_000);
 
   it("is a Word document with every sheet as a heading, in order", () => {
     expect(zip.has("[Content_Types].xml")).toBe(true);
@@ -95,7 +96,7 @@ describe("permit packet DOCX", () => {
     expect(header).toContain("PE-E 40417");
     expect(footer).toContain(AHJ_FOOTER);
     expect(header + footer + body).not.toContain(REVIEW_MARKING);
-  });
+  }, 60_000);
 
   it("embeds a site photo at its own proportions", async () => {
     expect(imageSize(makePng(300, 120, [10, 20, 30]), "png")).toEqual({ width: 300, height: 120 });
@@ -105,7 +106,7 @@ describe("permit packet DOCX", () => {
     const extent = /<wp:extent cx="(\d+)" cy="(\d+)"/.exec(z.get("word/document.xml")!.toString("utf8"));
     expect(extent).not.toBeNull();
     expect(Number(extent![1]) / Number(extent![2])).toBeCloseTo(2.5, 2);
-  });
+  }, 60_000);
 });
 
 describe("the DOCX carries the drawings", () => {
@@ -116,9 +117,13 @@ describe("the DOCX carries the drawings", () => {
     const z = readZip(bytes);
     const xml = z.get("word/document.xml")!.toString("utf8");
     expect(xml).toContain('descr="One-line diagram of Tamarack backcountry hut');
-    const media = [...z].filter(([name]) => /^word\/media\/.+\.png$/.test(name));
-    expect(media.length).toBe(1);
-    const png = media[0]![1];
+    // The hut's 120 V inverter feeds a 120/240 V panel, so E-007 carries the three-line detail as a second picture.
+    expect(xml).toContain('descr="Three-line detail: INV-1 (120 V) feeding P-1 (120/240 V)');
+    const media = [...z].filter(([name]) => /^word\/media\/.+\.png$/.test(name)).map(([, b]) => b);
+    expect(media.length).toBe(2);
+    // The one-line is the taller picture; the three-line detail is a wide strip.
+    const heights = await Promise.all(media.map(async (b) => (await sharp(b).metadata()).height!));
+    const png = media[heights.indexOf(Math.max(...heights))]!;
     const meta = await sharp(png).metadata();
     // Drawn at 200 dpi: the layout is several hundred points wide, so well over 1,000 pixels.
     expect(meta.width).toBeGreaterThan(1000);
