@@ -4,11 +4,11 @@ import { useId } from "react";
 import { Bar, BarChart, CartesianGrid, Cell, LabelList, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
 import { loadSummary } from "@/lib/compliance";
 import type { ProjectRecord } from "@/lib/schemas/project-record";
+import { isInverter } from "@/lib/schemas/vocabulary";
 
 /** Days of autonomy when the record names none: two to three by common practice; the check engine takes 2. */
 const COMMON_PRACTICE_DAYS = 2;
 
-const INVERTER_KINDS = new Set(["inverter", "inverter-charger", "hybrid-inverter"]);
 
 // Palette of app/globals.css: slate for loads, brass for the inverter's own losses (conversion, idle draw),
 // caution for a shortfall (sizing is common practice, not code, so it warns rather than fails).
@@ -43,7 +43,7 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
   const uid = useId();
   const s = loadSummary(record);
 
-  const idleInverters = record.equipment.filter((e) => INVERTER_KINDS.has(e.kind) && "idleW" in e && e.idleW !== undefined);
+  const idleInverters = record.equipment.filter((e) => isInverter(e) && e.idleW !== undefined);
   const idleDetail = idleInverters
     .map((e) => `${e.tag}: ${"idleW" in e ? e.idleW : 0} W × 24 h${e.quantity > 1 ? ` × ${e.quantity}` : ""}`)
     .join("; ");

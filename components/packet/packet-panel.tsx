@@ -199,7 +199,12 @@ function RevisionsTable({ rows, canSend }: { rows: RevisionView[]; canSend: bool
                 {r.state === "failed" ? "—" : <StateTag>{REVIEW_STATE_LABELS[r.reviewState] ?? r.reviewState}</StateTag>}
                 {canSend && r.state === "ready" ? (
                   <div className="mt-1">
-                    <SendForReviewButton revisionId={r.id} reviewState={r.reviewState} number={r.number} />
+                    <SendForReviewButton
+                      revisionId={r.id}
+                      reviewState={r.reviewState}
+                      number={r.number}
+                      supersededBy={rows.filter((o) => o.number > r.number && o.state !== "failed").reduce<number | null>((n, o) => (n === null || o.number > n ? o.number : n), null)}
+                    />
                   </div>
                 ) : null}
               </td>
@@ -235,7 +240,7 @@ function RevisionsTable({ rows, canSend }: { rows: RevisionView[]; canSend: bool
   );
 }
 
-export function PacketPanel({ projectId, canGenerate }: { projectId: string; canGenerate: boolean }) {
+export function PacketPanel({ projectId, canGenerate, canDecide = false }: { projectId: string; canGenerate: boolean; canDecide?: boolean }) {
   const client = useQueryClient();
   const preflight = useQuery({
     queryKey: ["packet-preflight", projectId],
@@ -313,7 +318,7 @@ export function PacketPanel({ projectId, canGenerate }: { projectId: string; can
       )}
 
       <h2 className="mb-2 mt-6 text-sm font-semibold tracking-tight">Review record</h2>
-      <ReviewHistory projectId={projectId} />
+      <ReviewHistory projectId={projectId} asDesigner={canGenerate} asReviewer={canDecide} />
     </div>
   );
 }

@@ -4,13 +4,27 @@ import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { fetchJson } from "@/lib/fetch-json";
 import type { ReviewEntry } from "@/lib/services/reviews/history";
+import { NoteThreadControls } from "./note-thread";
 
 function when(iso: string): string {
   return iso.slice(0, 16).replace("T", " ");
 }
 
 /** The decisions on a revision or a project, newest first, each with its notes grouped as the reviewer left them. */
-export function ReviewHistoryList({ entries, showRevision = false, linkToReview = false }: { entries: ReviewEntry[]; showRevision?: boolean; linkToReview?: boolean }) {
+export function ReviewHistoryList({
+  entries,
+  showRevision = false,
+  linkToReview = false,
+  asDesigner = false,
+  asReviewer = false,
+}: {
+  entries: ReviewEntry[];
+  showRevision?: boolean;
+  linkToReview?: boolean;
+  /** The reader answers notes as the designer (reply, mark addressed) or the reviewer (reply, close, reopen). */
+  asDesigner?: boolean;
+  asReviewer?: boolean;
+}) {
   if (entries.length === 0) return <p className="text-sm text-ink-soft">No review decisions yet.</p>;
   return (
     <ol className="space-y-4" aria-label="Review decisions">
@@ -51,9 +65,18 @@ export function ReviewHistoryList({ entries, showRevision = false, linkToReview 
             {e.notes.length ? (
               <ul className="mt-2 space-y-1.5" aria-label={`Notes, revision ${e.revisionNumber}`}>
                 {e.notes.map((n) => (
-                  <li key={n.id} className="text-sm leading-relaxed">
+                  <li key={n.id} className="text-sm leading-relaxed" aria-label={`Note on ${n.targetLabel}`}>
                     <span className="field-label mr-1.5">{n.targetLabel}</span>
                     <span className="whitespace-pre-line">{n.text}</span>
+                    <NoteThreadControls
+                      key={`${n.id}-${n.replies.length}`}
+                      noteId={n.id}
+                      label={n.targetLabel}
+                      state={n.state}
+                      replies={n.replies}
+                      asDesigner={asDesigner}
+                      asReviewer={asReviewer}
+                    />
                   </li>
                 ))}
               </ul>
@@ -69,7 +92,7 @@ export function ReviewHistoryList({ entries, showRevision = false, linkToReview 
  * A project's review decisions and notes for the designer's packet tab,
  * fetched from /api/reviews so it refreshes with the rest of the tab.
  */
-export function ReviewHistory({ projectId }: { projectId: string }) {
+export function ReviewHistory({ projectId, asDesigner = false, asReviewer = false }: { projectId: string; asDesigner?: boolean; asReviewer?: boolean }) {
   const query = useQuery({
     queryKey: ["reviews", projectId],
     queryFn: () => fetchJson<{ reviews: ReviewEntry[] }>(`/api/reviews?projectId=${encodeURIComponent(projectId)}`),
@@ -84,7 +107,7 @@ export function ReviewHistory({ projectId }: { projectId: string }) {
             The review record could not be loaded: {query.error.message}
           </p>
         ) : null}
-        {query.data ? <ReviewHistoryList entries={query.data.reviews} showRevision linkToReview /> : null}
+        {query.data ? <ReviewHistoryList entries={query.data.reviews} showRevision linkToReview asDesigner={asDesigner} asReviewer={asReviewer} /> : null}
       </div>
     </section>
   );

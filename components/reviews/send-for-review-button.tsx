@@ -12,7 +12,20 @@ import type { SentForReview } from "@/lib/services/reviews/send";
  * why a failing set is sent). A returned revision may go back unchanged,
  * after saying what that means; other states show nothing to press.
  */
-export function SendForReviewButton({ revisionId, reviewState, number, failCount = 0 }: { revisionId: string; reviewState: string; number?: number; failCount?: number }) {
+export function SendForReviewButton({
+  revisionId,
+  reviewState,
+  number,
+  failCount = 0,
+  supersededBy = null,
+}: {
+  revisionId: string;
+  reviewState: string;
+  number?: number;
+  failCount?: number;
+  /** A later revision replaces this one: it is not offered for sending again. */
+  supersededBy?: number | null;
+}) {
   const router = useRouter();
   const queryClient = useQueryClient();
   const id = useId();
@@ -39,6 +52,7 @@ export function SendForReviewButton({ revisionId, reviewState, number, failCount
     );
   }
   if (reviewState !== "draft" && reviewState !== "returned") return null;
+  if (supersededBy !== null) return <span className="text-xs text-ink-soft">Superseded by revision {supersededBy}</span>;
   const rev = number ? `revision ${number}` : "this revision";
   const returned = reviewState === "returned";
   const label = returned ? "Send again unchanged" : "Send for review";

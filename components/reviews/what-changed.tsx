@@ -1,14 +1,11 @@
 import { describeChange } from "@/lib/record-diff";
 import type { RevisionDelta } from "@/lib/services/reviews/delta";
+import { STATUS_WORDS } from "@/lib/schemas/vocabulary";
 
-const STATUS_WORDS: Record<string, string> = {
-  fail: "fail",
-  "needs-input": "needs input",
-  warning: "warning",
-  attest: "attest",
-  pass: "pass",
-  "not-applicable": "not applicable",
-};
+/** A stored status in words; a status this version no longer knows is shown as stored. */
+function statusText(status: string | null | undefined): string | null | undefined {
+  return (STATUS_WORDS as Record<string, string | undefined>)[status ?? ""] ?? status;
+}
 
 /**
  * What changed since the earlier revision a reviewer decided on: record fields
@@ -65,11 +62,11 @@ export function WhatChanged({ delta, message }: { delta: RevisionDelta; message:
                     <span className="font-semibold">{r.subject && !r.title.includes(r.subject) ? `${r.title} (${r.subject})` : r.title}</span>{" "}
                     <span className="figure">
                       {r.kind === "added"
-                        ? `new: ${STATUS_WORDS[r.statusAfter ?? ""] ?? r.statusAfter}`
+                        ? `new: ${statusText(r.statusAfter)}`
                         : r.kind === "removed"
-                          ? `no longer run (was ${STATUS_WORDS[r.statusBefore ?? ""] ?? r.statusBefore})`
+                          ? `no longer run (was ${statusText(r.statusBefore)})`
                           : r.statusBefore !== r.statusAfter
-                            ? `${STATUS_WORDS[r.statusBefore ?? ""] ?? r.statusBefore} → ${STATUS_WORDS[r.statusAfter ?? ""] ?? r.statusAfter}`
+                            ? `${statusText(r.statusBefore)} → ${statusText(r.statusAfter)}`
                             : "figures changed"}
                     </span>
                   </p>

@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { startTransition, useActionState, useEffect, useState } from "react";
 import { recordEventAction } from "@/app/(app)/submissions/actions";
 import { EVENT_LABELS, INSPECTION_EVENT_KINDS, INSPECTION_KINDS, INSPECTION_LABELS, type EventKind } from "@/lib/schemas/submission";
+import { CorrectionsFields } from "./corrections-fields";
 import { FormField } from "./field";
 
 /** The usual next step after each state, offered first when the event rules allow it. */
@@ -51,6 +52,8 @@ export function EventForm({
   today,
   allowedNext,
   resubmittable,
+  assignable = [],
+  defaultAssigneeId = "",
 }: {
   submissionId: string;
   version: number;
@@ -58,6 +61,9 @@ export function EventForm({
   today: string;
   allowedNext: EventKind[];
   resubmittable: { id: string; number: number }[];
+  /** Designers and reviewers who can take the AHJ's comments. */
+  assignable?: { id: string; name: string; roles: string[] }[];
+  defaultAssigneeId?: string;
 }) {
   const router = useRouter();
   const [state, action, pending] = useActionState(recordEventAction, null);
@@ -73,7 +79,7 @@ export function EventForm({
     // Only a new result resets the form.
   }, [state]);
 
-  const issueFor = (name: string) => (state && !state.ok ? state.issues.find((i) => i.path === name)?.message : undefined);
+  const issueFor = (name: string) => (state && !state.ok ? state.issues.find((i) => i.path === name || i.path.startsWith(`${name}.`))?.message : undefined);
   const bind = (name: keyof Values) => ({
     name,
     value: values[name],
@@ -152,6 +158,7 @@ export function EventForm({
           )}
         </FormField>
       ) : null}
+      {kind === "corrections-requested" ? <CorrectionsFields key={state?.ok ? `${state.data?.eventId}` : "new"} assignable={assignable} defaultAssigneeId={defaultAssigneeId || assignable[0]?.id || ""} issueFor={issueFor} /> : null}
       {kind === "fee-paid" ? (
         <FormField id="event-amount" label="Amount (USD)" hint="As on the receipt." issue={issueFor("amountUsd")}>
           {(d, bad) => (
@@ -162,7 +169,7 @@ export function EventForm({
       <FormField
         id="event-note"
         label="Note"
-        hint={kind === "corrections-requested" ? "What the AHJ asks for; the designer receives it by e-mail." : "Who said what, and what comes next."}
+        hint={kind === "corrections-requested" ? "Anything beside the comments; the designer receives both by e-mail." : "Who said what, and what comes next."}
         issue={issueFor("note")}
         className="sm:col-span-3"
       >

@@ -13,10 +13,10 @@ import { useQuery } from "@tanstack/react-query";
 import { useMemo, useRef } from "react";
 import { useFormContext, useWatch } from "react-hook-form";
 import { StatusBadge } from "@/components/ui/status-badge";
-import { worst } from "@/lib/compliance/result";
 import { circuitKindFromEnds, insulationRatingFor, suggestCircuit, type CircuitSuggestion } from "@/lib/compliance/derive/suggest";
 import type { CheckStatus } from "@/lib/compliance";
 import type { EquipmentKind } from "@/lib/schemas/project-record";
+import { conductorSizeText, worst } from "@/lib/schemas/vocabulary";
 import { EditableGrid, nextTag, type GridColumn } from "./editable-grid";
 import { TAG_PREFIX, changeKind } from "./equipment-fields";
 import { CIRCUIT_PRIMARY_KEYS, circuitColumns } from "./grid-columns";
@@ -34,7 +34,6 @@ interface LibraryDevice {
   ratings: Record<string, unknown>;
 }
 
-const sizeWords = (s: string) => (Number(s) >= 250 ? `${s} kcmil` : `${s} AWG`);
 
 function endKind(tags: RecordTags, tag: unknown): EquipmentKind | "array" | undefined {
   if (typeof tag !== "string" || !tag) return undefined;
@@ -190,10 +189,10 @@ export function CircuitsSection() {
       }
       case "size":
         if (!s?.size || s.size === row.size) return s?.size ? <Hint>as suggested</Hint> : null;
-        return <Accept label={`suggested ${sizeWords(s.size)}`} title={s.basis} onClick={() => set(`circuits.${i}.size`, s.size)} />;
+        return <Accept label={`suggested ${conductorSizeText(s.size)}`} title={s.basis} onClick={() => set(`circuits.${i}.size`, s.size)} />;
       case "egcSize":
         if (!s?.egcSize || s.egcSize === row.egcSize) return s?.egcSize ? <Hint>as suggested (Table 250.122)</Hint> : null;
-        return <Accept label={`suggested ${sizeWords(s.egcSize)}`} title={`Table 250.122 for a ${s.ocpdA} A device`} onClick={() => set(`circuits.${i}.egcSize`, s.egcSize)} />;
+        return <Accept label={`suggested ${conductorSizeText(s.egcSize)}`} title={`Table 250.122 for a ${s.ocpdA} A device`} onClick={() => set(`circuits.${i}.egcSize`, s.egcSize)} />;
       case "ocpdTag": {
         if (!s?.ocpdA) return null;
         if (s.ocpdRequired === false && !row.ocpdTag) return <Hint>none needed (690.9(A))</Hint>;

@@ -3,6 +3,7 @@
  * appear on a datasheet. Names and units follow the project record schema.
  */
 import { EQUIPMENT_KIND_LABELS, EQUIPMENT_KINDS, type EquipmentKind } from "@/lib/schemas/project-record";
+import { isInverterKind } from "@/lib/schemas/vocabulary";
 import type { GridColumn } from "./editable-grid";
 import type { FieldType, Option } from "./field-control";
 
@@ -143,7 +144,7 @@ export function changeKind(row: Record<string, unknown>, kind: EquipmentKind): R
   const { tag, manufacturer, model, quantity, listing } = row;
   const base: Record<string, unknown> = { tag, manufacturer, model, quantity, listing, kind };
   if (kind === "charge-controller") Object.assign(base, { batteryVoltagesV: [], hasPvDisconnect: false, hasOvercurrentProtection: false });
-  if (kind === "inverter" || kind === "inverter-charger" || kind === "hybrid-inverter") {
+  if (isInverterKind(kind)) {
     Object.assign(base, { mpptInputs: [], acOutputPhases: 1, hasPvDisconnect: false, hasOvercurrentProtection: false });
   }
   if (kind === "battery") base.largeScaleFireTested = false;

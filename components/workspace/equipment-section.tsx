@@ -4,6 +4,7 @@ import { useQuery } from "@tanstack/react-query";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { useFormContext, useWatch } from "react-hook-form";
 import { EQUIPMENT_KINDS, type EquipmentKind } from "@/lib/schemas/project-record";
+import { isInverterKind } from "@/lib/schemas/vocabulary";
 import { FormField, type Option } from "./field-control";
 import { EditableGrid, nextTag, type GridColumn } from "./editable-grid";
 import { EQUIPMENT_COLUMNS, EQUIPMENT_KIND_LABELS, MPPT_INPUT_COLUMNS, RATING_FIELDS, TAG_PREFIX, changeKind } from "./equipment-fields";
@@ -15,7 +16,6 @@ import { Section } from "./site-section";
 import { useRecordTags } from "./use-record-tags";
 
 const KIND_OPTIONS: Option[] = EQUIPMENT_KINDS.map((k) => ({ value: k, label: EQUIPMENT_KIND_LABELS[k] }));
-const INVERTER_KINDS = new Set(["inverter", "inverter-charger", "hybrid-inverter"]);
 const AUTO_TAG = new RegExp(`^(${[...new Set(Object.values(TAG_PREFIX))].join("|")})-\\d+$`);
 
 interface LibraryItem {
@@ -123,7 +123,7 @@ function RatingsPanel({ index, onClose }: { index: number; onClose: () => void }
         {fields.map((f) => (
           <FormField key={`${kind}-${f.key}`} path={`equipment.${index}.${f.key}`} label={f.label} unit={f.unit} type={f.type} options={f.options} help={f.help} />
         ))}
-        {kind && INVERTER_KINDS.has(kind) ? <MpptInputs index={index} /> : null}
+        {kind && isInverterKind(kind) ? <MpptInputs index={index} /> : null}
       </div>
     </div>
   );

@@ -3,14 +3,14 @@
  * pick-list. The same labels name a field in every message (record-labels).
  */
 import { CIRCUIT_KINDS, CONDUCTOR_SIZES } from "@/lib/schemas/project-record";
-import { CIRCUIT_KIND_TITLES } from "@/lib/schemas/vocabulary";
+import { CIRCUIT_KIND_TITLES, conductorSizeText } from "@/lib/schemas/vocabulary";
 import { INSULATION_TYPES, RACEWAY_TYPES } from "@/lib/compliance/tables/wiring-types";
 import type { GridColumn } from "./editable-grid";
 import type { Option } from "./field-control";
 import type { RecordTags } from "./use-record-tags";
 
 export const PV_FED = ["charge-controller", "inverter", "inverter-charger", "hybrid-inverter"] as const;
-const SIZE_OPTIONS: Option[] = CONDUCTOR_SIZES.map((s) => ({ value: s, label: Number(s) >= 250 ? `${s} kcmil` : `${s} AWG` }));
+const SIZE_OPTIONS: Option[] = CONDUCTOR_SIZES.map((s) => ({ value: s, label: conductorSizeText(s) }));
 const KIND_OPTIONS: Option[] = CIRCUIT_KINDS.map((k) => ({ value: k, label: CIRCUIT_KIND_TITLES[k] }));
 const INSULATION_OPTIONS: Option[] = INSULATION_TYPES.map((t) => ({ value: t.code === "PV WIRE" ? "PV wire" : t.code, label: t.label }));
 const RACEWAY_OPTIONS: Option[] = RACEWAY_TYPES.map((t) => ({ value: t.code, label: t.label }));

@@ -3,13 +3,16 @@
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 
-export function ProjectTabs({ projectId }: { projectId: string }) {
+/** `openCorrections`: the AHJ comments still open, counted on the tab so they are not missed. */
+export function ProjectTabs({ projectId, openCorrections = 0 }: { projectId: string; openCorrections?: number }) {
   const pathname = usePathname();
   const base = `/projects/${projectId}`;
   const tabs = [
     { href: base, label: "Design" },
     { href: `${base}/attachments`, label: "Attachments" },
     { href: `${base}/packet`, label: "Packet" },
+    { href: `${base}/corrections`, label: openCorrections > 0 ? `Corrections (${openCorrections} open)` : "Corrections" },
+    { href: `${base}/history`, label: "History" },
   ];
   return (
     <nav aria-label="Project" className="no-print mb-4 flex gap-0 border-b border-rule">

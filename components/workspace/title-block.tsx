@@ -25,6 +25,8 @@ export function TitleBlock(p: {
   version: number;
   /** Set when the record changed after the latest approval: the approved revision and the delta. */
   drift?: { revisionNumber: number; groups: ChangeGroup[]; changeCount: number } | null;
+  /** Reviewer notes still waiting: open ones on the designer, addressed ones on the reviewer. */
+  notes?: { open: number; addressed: number };
 }) {
   return (
     <header className="sheet mb-3 border-2 border-ink">
@@ -32,6 +34,11 @@ export function TitleBlock(p: {
         <h1 className="text-xl font-semibold tracking-tight">{p.name}</h1>
         <span className="flex flex-wrap items-center gap-2">
           <StateTag>{isProjectStatus(p.status) ? PROJECT_STATUS_LABELS[p.status] : p.status}</StateTag>
+          {p.notes && p.notes.open + p.notes.addressed > 0 ? (
+            <span className="text-xs text-ink-soft" data-testid="review-notes-count">
+              Review notes: {p.notes.open} open{p.notes.addressed ? `, ${p.notes.addressed} addressed` : ""}
+            </span>
+          ) : null}
           {p.drift ? (
             <span className="inline-flex items-center whitespace-nowrap rounded-[2px] border border-caution bg-caution-soft px-1.5 py-0.5 text-xs font-semibold text-caution">
               ▲ Changed since approval

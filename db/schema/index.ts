@@ -18,3 +18,6 @@ export * from "./installations";
 export * from "./signing";
 export * from "./jobs";
 export * from "./project-templates";
+export * from "./corrections";
+export * from "./review-threads";
+export * from "./jurisdiction-notes";

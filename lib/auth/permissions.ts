@@ -24,6 +24,10 @@ export const PERMISSIONS = {
   "submission:read": ["designer", "office", "admin"],
   "submission:create": ["office"],
   "submission:record-event": ["office"],
+  /** Corrections an AHJ asked for, worked as items: read by the project's roles, answered by design and review. */
+  "correction:read": ["designer", "reviewer", "office", "admin"],
+  "correction:resolve": ["designer", "reviewer"],
+  "correction:assign": ["designer", "reviewer", "office"],
   "install:read": ["installer", "office", "admin"],
   "install:confirm": ["installer"],
   "users:manage": ["admin"],

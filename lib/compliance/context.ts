@@ -4,6 +4,7 @@
  * stays linear in the number of circuits.
  */
 import type { Circuit, Equipment, NecEdition, ProjectRecord, PvArray } from "../schemas/project-record";
+import { conductorSizeText, isInverterKind } from "../schemas/vocabulary";
 import type { CheckInput, CheckValue } from "./types";
 
 export interface Indexed<T> {
@@ -43,7 +44,6 @@ function push<K, V>(map: Map<K, V[]>, key: K, value: V): void {
 
 export const PV_CIRCUIT_KINDS: readonly Circuit["kind"][] = ["pv-source", "pv-output"];
 export const DC_CIRCUIT_KINDS: readonly Circuit["kind"][] = ["pv-source", "pv-output", "battery", "inverter-dc-input"];
-export const INVERTER_KIND_LIST: readonly Equipment["kind"][] = ["inverter", "inverter-charger", "hybrid-inverter"];
 
 export function isPvCircuit(c: Circuit): boolean {
   return PV_CIRCUIT_KINDS.includes(c.kind);
@@ -52,7 +52,7 @@ export function isDcCircuit(c: Circuit): boolean {
   return DC_CIRCUIT_KINDS.includes(c.kind);
 }
 export function isInverter(e: Equipment): e is EquipmentOf<"inverter" | "inverter-charger" | "hybrid-inverter"> {
-  return INVERTER_KIND_LIST.includes(e.kind);
+  return isInverterKind(e.kind);
 }
 
 export function buildContext(record: ProjectRecord, edition: NecEdition): CheckContext {
@@ -194,8 +194,7 @@ export function v(key: string, label: string, value: number | string | boolean, 
 
 /** "10 AWG", "3/0 AWG", "250 kcmil" — as written on a conductor schedule. */
 export function sizeLabel(size: string, material?: "cu" | "al"): string {
-  const unit = /^\d+$/.test(size) && Number(size) >= 250 ? "kcmil" : "AWG";
-  return `${size} ${unit}${material ? (material === "cu" ? " Cu" : " Al") : ""}`;
+  return conductorSizeText(size, material);
 }
 
 export function tagLabel(e: { tag: string; manufacturer?: string; model?: string }): string {

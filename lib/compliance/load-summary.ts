@@ -1,5 +1,6 @@
 /** Daily energy, peak power and storage of a stand-alone system (common practice sizing). */
 import type { ProjectRecord } from "../schemas/project-record";
+import { batteryKWh, isInverter } from "../schemas/vocabulary";
 
 export interface LoadSummary {
   /** Σ watts × quantity × hours per day, Wh. */
@@ -29,8 +30,6 @@ export interface LoadSummary {
   inverterEfficiencyMissing: string[];
 }
 
-const INVERTER_KINDS = new Set(["inverter", "inverter-charger", "hybrid-inverter"]);
-
 export function loadSummary(record: ProjectRecord): LoadSummary {
   let dailyLoadWh = 0;
   let peakSimultaneousW = 0;
@@ -52,17 +51,17 @@ export function loadSummary(record: ProjectRecord): LoadSummary {
   let efficiencyPct: number | null = null;
   let usable: number | null = 0;
   for (const e of record.equipment) {
-    if (INVERTER_KINDS.has(e.kind)) {
-      const idleW = (e as { idleW?: number }).idleW;
+    if (isInverter(e)) {
+      const idleW = e.idleW;
       if (idleW === undefined) inverterIdleMissing.push(e.tag);
       else idleWh += idleW * 24 * e.quantity;
-      const eff = (e as { efficiencyPct?: number }).efficiencyPct;
+      const eff = e.efficiencyPct;
       if (eff === undefined) inverterEfficiencyMissing.push(e.tag);
       // Several inverters: the lowest efficiency, so the need is never understated.
       else efficiencyPct = efficiencyPct === null ? eff : Math.min(efficiencyPct, eff);
     }
     if (e.kind === "battery") {
-      const kwh = e.capacityKWh ?? (e.capacityAh !== undefined && e.nominalVoltageV !== undefined ? (e.capacityAh * e.nominalVoltageV) / 1000 : undefined);
+      const kwh = batteryKWh(e);
       if (kwh === undefined || e.usableDodPct === undefined || usable === null) usable = null;
       else usable += kwh * 1000 * e.quantity * (e.usableDodPct / 100);
     }

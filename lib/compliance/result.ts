@@ -81,10 +81,4 @@ export function needsInput(
   });
 }
 
-/** The most severe of several statuses, in the order the results are sorted. */
-export function worst(...statuses: CheckStatus[]): CheckStatus {
-  const order: CheckStatus[] = ["fail", "needs-input", "warning", "attest", "pass", "not-applicable"];
-  let best = order.length - 1;
-  for (const s of statuses) best = Math.min(best, order.indexOf(s));
-  return order[best]!;
-}
+export { worst } from "../schemas/vocabulary";

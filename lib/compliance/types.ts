@@ -3,9 +3,10 @@
  * command line, route handlers) reads these types and nothing else.
  */
 import type { NecEdition } from "../schemas/project-record";
+import type { CheckStatus } from "../schemas/vocabulary";
 
-export const CHECK_STATUSES = ["fail", "needs-input", "warning", "attest", "pass", "not-applicable"] as const;
-export type CheckStatus = (typeof CHECK_STATUSES)[number];
+// The statuses and their order are the product's vocabulary, shared with the packet and the pages.
+export { CHECK_STATUSES, type CheckStatus } from "../schemas/vocabulary";
 
 /** A figure the check computed, with its unit ("" for a pure number or ratio). */
 export interface CheckValue {

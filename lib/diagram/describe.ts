@@ -5,7 +5,7 @@
  * for line by a reviewer.
  */
 import type { Circuit, Equipment, ProjectRecord, PvArray } from "../schemas/project-record";
-import { CIRCUIT_KIND_WORDS } from "../schemas/vocabulary";
+import { CIRCUIT_KIND_WORDS, isInverter, isKcmilSize } from "../schemas/vocabulary";
 
 export const CIRCUIT_KIND_LABELS: Record<Circuit["kind"], string> = CIRCUIT_KIND_WORDS;
 
@@ -186,8 +186,7 @@ export function arrayLines(a: PvArray, module: Equipment | undefined): string[] 
 
 /** "#10 AWG", "1/0 AWG", "250 kcmil" — as written on a conductor schedule. */
 export function sizeText(size: string, withUnit = true): string {
-  const kcmil = Number(size) >= 250;
-  if (kcmil) return `${size} kcmil`;
+  if (isKcmilSize(size)) return `${size} kcmil`;
   const awg = size.includes("/") ? size : `#${size}`;
   return withUnit ? `${awg} AWG` : awg;
 }
@@ -207,7 +206,7 @@ export function conductorsPerSet(c: Circuit, record: ProjectRecord): number | un
   let phases = 1;
   for (const e of ends) {
     if (spec) break;
-    if (e.kind === "inverter" || e.kind === "inverter-charger" || e.kind === "hybrid-inverter") {
+    if (isInverter(e)) {
       spec = e.acOutput;
       phases = e.acOutputPhases;
     } else if (e.kind === "generator") {

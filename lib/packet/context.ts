@@ -1,7 +1,8 @@
 import type { ProjectRecord } from "../schemas/project-record";
 import { dash, datedTime, formatNumber, isoDate } from "./format";
 import { SHEET_PLAN, type PacketDatasheet } from "./plan";
-import { KIND_LABEL, LOCATION_LABEL, OCCUPANCY_LABEL, SYSTEM_KIND_LABEL, batteryKWh, describe, equipmentByTag } from "./sheets/shared";
+import { batteryKWh, DEFAULT_VOLTAGE_DROP_LIMIT_PCT, isInverter } from "../schemas/vocabulary";
+import { KIND_LABEL, LOCATION_LABEL, OCCUPANCY_LABEL, SYSTEM_KIND_LABEL, describe, equipmentByTag } from "./sheets/shared";
 import type { TemplateContext } from "./templates";
 import type { PacketInput } from "./types";
 
@@ -23,7 +24,7 @@ function systemFigures(record: ProjectRecord) {
       batteryUnits += e.quantity;
       storageKWh += (batteryKWh(e) ?? 0) * e.quantity;
     }
-    if ((e.kind === "inverter" || e.kind === "inverter-charger" || e.kind === "hybrid-inverter") && e.continuousW) {
+    if (isInverter(e) && e.continuousW) {
       inverterW += e.continuousW * e.quantity;
     }
   }
@@ -49,7 +50,7 @@ function scopeLines(record: ProjectRecord): string[] {
       lines.push(
         `Energy storage ${e.tag}: ${e.quantity} × ${describe(e) || "battery"}${e.chemistry ? ` (${e.chemistry.toUpperCase()})` : ""}${kwh !== undefined ? `, ${formatNumber(kwh * e.quantity)} kWh total` : ""}${record.site.batteryLocation ? `, in the ${LOCATION_LABEL[record.site.batteryLocation]}` : ""}.`,
       );
-    } else if (e.kind === "inverter" || e.kind === "inverter-charger" || e.kind === "hybrid-inverter") {
+    } else if (isInverter(e)) {
       lines.push(`${KIND_LABEL[e.kind]} ${e.tag}: ${describe(e) || e.kind}, ${dash(e.continuousW, "W")} continuous, ${e.acOutput ?? dash(e.acOutputVoltageV)} V AC output.`);
     } else if (e.kind === "charge-controller") {
       lines.push(`Charge controller ${e.tag}: ${describe(e) || "controller"}${e.controllerType ? ` (${e.controllerType.toUpperCase()})` : ""}.`);
@@ -95,7 +96,7 @@ export function templateContext(input: PacketInput, sheet: { code: string; title
       name: record.jurisdiction.name,
       necEdition: run.edition,
       residentialCode: record.jurisdiction.residentialCode,
-      voltageDropLimitPct: formatNumber(record.jurisdiction.voltageDropLimitPct ?? 3),
+      voltageDropLimitPct: formatNumber(record.jurisdiction.voltageDropLimitPct ?? DEFAULT_VOLTAGE_DROP_LIMIT_PCT),
       requiredDocuments: record.jurisdiction.requiredDocuments,
     },
     revision: { number: String(revision.number), date: isoDate(revision.createdAt), createdAt: datedTime(revision.createdAt) },

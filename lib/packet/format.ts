@@ -1,14 +1,13 @@
-import type { CheckStatus, CheckValue, CheckInput } from "../compliance/types";
+import type { CheckValue, CheckInput } from "../compliance/types";
+import { CHECK_STATUSES, STATUS_WORDS, type CheckStatus } from "../schemas/vocabulary";
 
-/** Each status is a word and a shape as well as a colour, so it survives grey-scale printing. */
-export const STATUS_WORD: Record<CheckStatus, string> = {
-  fail: "FAIL",
-  "needs-input": "NEEDS INPUT",
-  warning: "WARNING",
-  attest: "ATTEST",
-  pass: "PASS",
-  "not-applicable": "N/A",
-};
+/**
+ * Each status is a word and a shape as well as a colour, so it survives grey-scale printing. The sheets set
+ * the words in capitals, and "not applicable" as N/A to fit the narrow status column.
+ */
+export const STATUS_WORD = Object.fromEntries(
+  CHECK_STATUSES.map((s) => [s, s === "not-applicable" ? "N/A" : STATUS_WORDS[s].toUpperCase()]),
+) as Record<CheckStatus, string>;
 
 export const STATUS_SHAPE: Record<CheckStatus, string> = {
   fail: "■",

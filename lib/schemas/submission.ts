@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { correctionListSchema } from "./corrections";
 
 /**
  * What the permit office enters: a new submission of an approved revision and
@@ -124,10 +125,15 @@ export const recordEventSchema = z
     inspectionKind: z.preprocess(emptyToUndefined, z.enum(INSPECTION_KINDS, { error: "must be rough, final or fire-final" }).optional()),
     /** The approved revision sent again with a resubmission; it must differ from every revision already before the AHJ. */
     revisionId: z.preprocess(emptyToUndefined, z.string().trim().max(64).optional()),
+    /** The plan-review letter's comments, with "corrections requested": each becomes an item to work. */
+    corrections: correctionListSchema,
+    /** Who takes the comments first: a designer or reviewer; the revision's designer when not named. */
+    assigneeId: z.preprocess(emptyToUndefined, z.string().trim().max(64).optional()),
     /** The version of the submission the form read; a stale form is refused. */
     version: z.coerce.number().int().min(1).optional(),
   })
   .superRefine((v, ctx) => {
+    if (v.corrections?.length && v.kind !== "corrections-requested") ctx.addIssue({ code: "custom", path: ["corrections"], message: "go with corrections requested only" });
     if (v.kind === "permit-issued" && !v.permitNumber) ctx.addIssue({ code: "custom", path: ["permitNumber"], message: "is required when the permit is issued" });
     if (v.kind === "permit-issued" && v.expiresOn && v.expiresOn <= v.occurredOn) {
       ctx.addIssue({ code: "custom", path: ["expiresOn"], message: "must be after the date the permit was issued" });

@@ -1,10 +1,13 @@
 /**
- * The product's words for the record's kinds and counts, shared by the
- * editor, the engine's messages, the diagram and the packet, so a circuit is
- * "an inverter DC input circuit" everywhere and never "a inverter-dc-input".
- * Pure: no imports beyond types.
+ * The product's vocabulary, written once and read by the editor, the engine's
+ * messages, the diagram, the packet and the pages: the words for the record's
+ * kinds and counts (a circuit is "an inverter DC input circuit" everywhere and
+ * never "a inverter-dc-input"), the order of the check statuses, the figures
+ * every view derives the same way (battery energy, conductor sizes), the
+ * documents a jurisdiction asks for, and when a packet is a draft.
+ * Pure: no framework, no clock; it reads the record's schema for its kinds.
  */
-import type { Circuit } from "./project-record";
+import { INVERTER_KINDS, type Circuit, type Equipment, type JurisdictionRules } from "./project-record";
 
 /** Circuit kinds in running text (lower case except for acronyms). */
 export const CIRCUIT_KIND_WORDS: Record<Circuit["kind"], string> = {
@@ -49,4 +52,129 @@ export function pluralNoun(noun: string): string {
   if (/[^aeiou]y$/i.test(noun)) return `${noun.slice(0, -1)}ies`;
   if (/(s|x|ch|sh)$/i.test(noun)) return `${noun}es`;
   return `${noun}s`;
+}
+
+/* ---------------------------------------------------------------- statuses */
+
+/** Every status a check result can take, most severe first: results are listed in this order, and "worst" reads it. */
+export const CHECK_STATUSES = ["fail", "needs-input", "warning", "attest", "pass", "not-applicable"] as const;
+export type CheckStatus = (typeof CHECK_STATUSES)[number];
+
+const SEVERITY = new Map<CheckStatus, number>(CHECK_STATUSES.map((s, i) => [s, i]));
+
+/** The most severe of the statuses, or undefined when there are none. */
+export function worstStatus(statuses: Iterable<CheckStatus>): CheckStatus | undefined {
+  let worst: CheckStatus | undefined;
+  for (const s of statuses) if (worst === undefined || SEVERITY.get(s)! < SEVERITY.get(worst)!) worst = s;
+  return worst;
+}
+
+/** The most severe of several statuses; with none, "not-applicable" (nothing to report). */
+export function worst(...statuses: CheckStatus[]): CheckStatus {
+  return worstStatus(statuses) ?? "not-applicable";
+}
+
+/** Statuses in running text ("2 results need input", "was needs input"). */
+export const STATUS_WORDS: Record<CheckStatus, string> = {
+  fail: "fail",
+  "needs-input": "needs input",
+  warning: "warning",
+  attest: "attest",
+  pass: "pass",
+  "not-applicable": "not applicable",
+};
+
+/* --------------------------------------------------------------- equipment */
+
+export type InverterKind = (typeof INVERTER_KINDS)[number];
+export type InverterEquipment = Extract<Equipment, { kind: InverterKind }>;
+const INVERTER_KIND_SET: ReadonlySet<string> = new Set(INVERTER_KINDS);
+
+/** Inverters, inverter-chargers and hybrid inverters: everything that turns the battery's DC into AC. */
+export function isInverterKind(kind: string): kind is InverterKind {
+  return INVERTER_KIND_SET.has(kind);
+}
+
+export function isInverter(e: Equipment): e is InverterEquipment {
+  return INVERTER_KIND_SET.has(e.kind);
+}
+
+/** One battery unit's energy: its rated kWh, else Ah × nominal V ÷ 1000; undefined while neither is known. */
+export function batteryKWh(e: Extract<Equipment, { kind: "battery" }>): number | undefined {
+  if (e.capacityKWh !== undefined) return e.capacityKWh;
+  if (e.capacityAh !== undefined && e.nominalVoltageV !== undefined) return (e.capacityAh * e.nominalVoltageV) / 1000;
+  return undefined;
+}
+
+/* -------------------------------------------------------------- conductors */
+
+/**
+ * Voltage drop a circuit is held to where the jurisdiction sets none: 3 %, the figure of the
+ * informational notes to 210.19(A) and 215.2(A) (NEC 2020; not a requirement) — common practice.
+ */
+export const DEFAULT_VOLTAGE_DROP_LIMIT_PCT = 3;
+
+/** Sizes from 250 up are in kcmil (circular mils ÷ 1000); smaller ones, including 1/0 to 4/0, are AWG. */
+export function isKcmilSize(size: string): boolean {
+  return /^\d+$/.test(size) && Number(size) >= 250;
+}
+
+/** "10 AWG", "3/0 AWG", "250 kcmil", with "Cu" or "Al" when the material is given, as a conductor schedule writes it. */
+export function conductorSizeText(size: string, material?: "cu" | "al"): string {
+  return `${size} ${isKcmilSize(size) ? "kcmil" : "AWG"}${material ? (material === "cu" ? " Cu" : " Al") : ""}`;
+}
+
+/** A device rating with its unit ("40 A"), or a dash while it is not recorded. */
+export function ratingText(value: number | undefined | null, unit: string): string {
+  if (value === undefined || value === null || !Number.isFinite(value)) return "—";
+  const rounded = Math.round(value * 1000) / 1000;
+  return `${Object.is(rounded, -0) ? 0 : rounded} ${unit}`;
+}
+
+/* --------------------------------------------------------------- documents */
+
+export type RequiredDocument = JurisdictionRules["requiredDocuments"][number];
+
+/** What a permit office asks for when the project has no jurisdiction record yet. */
+export const DEFAULT_REQUIRED_DOCUMENTS: readonly RequiredDocument[] = ["equipment-datasheets", "storage-listing", "site-plan"];
+
+/** A required document as a jurisdiction's list names it. */
+export const REQUIRED_DOCUMENT_LABELS: Record<RequiredDocument, string> = {
+  "equipment-datasheets": "Datasheet for each major piece of equipment",
+  "storage-listing": "Listing of the energy storage units",
+  "site-plan": "Site plan",
+  "structural-letter": "Structural letter (roof mounts)",
+};
+
+/* ------------------------------------------------------------------- draft */
+
+/** What a packet's draft verdict reads: the run's counts, and the gaps already put in words. */
+export interface DraftFacts {
+  counts: Readonly<Record<CheckStatus, number>>;
+  /** Required labels that cannot be printed as they stand ("label X (Title) lacks …"). */
+  labelGaps: readonly string[];
+  /** Required documents not on file ("no datasheet for INV-1"). */
+  missingDocuments: readonly string[];
+}
+
+/**
+ * Why a packet is a draft; empty when it is not. A packet is a draft while any check fails or needs
+ * input, a required label cannot be printed, or a required document is missing. The preflight shows
+ * these lines to the designer and the cover prints them, so both say the same.
+ */
+export function draftReasons(f: DraftFacts): string[] {
+  const reasons: string[] = [];
+  const fail = f.counts.fail;
+  const needs = f.counts["needs-input"];
+  if (fail > 0) reasons.push(`${plural(fail, "check")} ${fail === 1 ? "fails" : "fail"}`);
+  if (needs > 0) reasons.push(`${plural(needs, "check")} ${needs === 1 ? "needs" : "need"} input`);
+  reasons.push(...f.labelGaps, ...f.missingDocuments);
+  return reasons;
+}
+
+/** A required label's gap in words, or undefined when it can be printed. */
+export function labelGap(label: { id: string; title: string; lines: readonly string[]; missing?: readonly string[] }): string | undefined {
+  if (label.lines.length === 0) return `label ${label.id} (${label.title}) has no wording`;
+  if (label.missing?.length) return `label ${label.id} (${label.title}) lacks ${label.missing.join(", ")}`;
+  return undefined;
 }

@@ -27,6 +27,8 @@ const dirs = await vi.hoisted(async () => {
 let session: unknown = null;
 vi.mock("@/auth", () => ({ auth: async () => session, signIn: async () => undefined, signOut: async () => undefined, handlers: {} }));
 vi.mock("next/cache", () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
+// Server actions may read the request's Origin and Host; these calls stand for the app's own pages.
+vi.mock("next/headers", () => ({ headers: async () => new Headers({ origin: "http://localhost:3000", host: "localhost:3000", "sec-fetch-site": "same-origin" }) }));
 
 const { getDb } = await import("../../db/client");
 const { buildWorld, sessionOf } = await import("./access/world");
@@ -34,6 +36,9 @@ const { hostileFileBytes, hostileFormFields, hostileJsonText, hostileValue, clai
 const { action, form, http } = await import("./access/requests");
 type Outcome = import("./access/requests").Outcome;
 type Role = import("../../lib/auth/roles").Role;
+
+/** A route module, or null once the route is gone (the access table's own test says which handlers exist). */
+const optional = <T,>(load: Promise<T>): Promise<T | null> => load.catch(() => null);
 
 const routes = {
   projects: await import("../../app/api/projects/route"),
@@ -46,16 +51,18 @@ const routes = {
   libraryRetire: await import("../../app/api/library/[id]/retire/route"),
   libraryRestore: await import("../../app/api/library/[id]/restore/route"),
   libraryImport: await import("../../app/api/library/import/route"),
-  send: await import("../../app/api/revisions/[id]/send/route"),
-  submissions: await import("../../app/api/submissions/route"),
-  events: await import("../../app/api/submissions/[id]/events/route"),
-  voidEvent: await import("../../app/api/submissions/[id]/events/[eventId]/void/route"),
+  send: await optional(import("../../app/api/revisions/[id]/send/route")),
+  submissions: await optional(import("../../app/api/submissions/route")),
+  events: await optional(import("../../app/api/submissions/[id]/events/route")),
+  voidEvent: await optional(import("../../app/api/submissions/[id]/events/[eventId]/void/route")),
   uploads: await import("../../app/api/uploads/route"),
   stamp: await import("../../app/api/reviews/licence/stamp/route"),
   verify: await import("../../app/api/verify/route"),
-  templates: await import("../../app/api/templates/route"),
-  template: await import("../../app/api/templates/[id]/route"),
+  templates: await optional(import("../../app/api/templates/route")),
+  template: await optional(import("../../app/api/templates/[id]/route")),
 };
+const reviewsRoute = await import("../../app/api/reviews/route");
+const labelsRoute = await import("../../app/api/install/[revisionId]/labels/route");
 const actions = {
   admin: await import("../../app/(app)/admin/users/actions"),
   submissions: await import("../../app/(app)/submissions/actions"),
@@ -112,11 +119,11 @@ interface JsonTarget {
   name: string;
   role: Role | null;
   keys: readonly string[];
-  send: (text: string) => Promise<Outcome>;
+  send: ((text: string) => Promise<Outcome>) | null;
 }
 
-const json = (handler: unknown, method: string, url: string, params: Record<string, string> = {}) => (text: string) =>
-  http(handler, method, url, { text: { body: text, type: "application/json" }, params });
+const json = (handler: unknown, method: string, url: string, params: Record<string, string> = {}) =>
+  handler ? (text: string) => http(handler, method, url, { text: { body: text, type: "application/json" }, params }) : null;
 
 const JSON_TARGETS: JsonTarget[] = [
   { name: "POST /api/projects", role: "designer", keys: ["name", "client", "systemKind", "jurisdictionId", "address"], send: json(routes.projects.POST, "POST", "/api/projects") },
@@ -138,30 +145,31 @@ const JSON_TARGETS: JsonTarget[] = [
   },
   { name: "POST /api/library/[id]/retire", role: "designer", keys: ["version"], send: json(routes.libraryRetire.POST, "POST", `/api/library/${world.libraryItemId}/retire`, { id: world.libraryItemId }) },
   { name: "POST /api/library/[id]/restore", role: "designer", keys: ["version"], send: json(routes.libraryRestore.POST, "POST", `/api/library/${retiredItemId}/restore`, { id: retiredItemId }) },
-  { name: "POST /api/templates", role: "designer", keys: ["projectId", "name", "description", "replaceTemplateId", "expectedVersion"], send: json(routes.templates.POST, "POST", "/api/templates") },
-  { name: "PATCH /api/templates/[id]", role: "designer", keys: ["version", "name", "description"], send: json(routes.template.PATCH, "PATCH", `/api/templates/${templateId}`, { id: templateId }) },
-  { name: "POST /api/revisions/[id]/send", role: "designer", keys: ["message"], send: json(routes.send.POST, "POST", `/api/revisions/${draftRevisionId}/send`, { id: draftRevisionId }) },
-  { name: "POST /api/submissions", role: "office", keys: ["revisionId", "method", "referenceNumber", "occurredOn", "note"], send: json(routes.submissions.POST, "POST", "/api/submissions") },
+  { name: "POST /api/templates", role: "designer", keys: ["projectId", "name", "description", "replaceTemplateId", "expectedVersion"], send: json(routes.templates?.POST, "POST", "/api/templates") },
+  { name: "PATCH /api/templates/[id]", role: "designer", keys: ["version", "name", "description"], send: json(routes.template?.PATCH, "PATCH", `/api/templates/${templateId}`, { id: templateId }) },
+  { name: "POST /api/revisions/[id]/send", role: "designer", keys: ["message"], send: json(routes.send?.POST, "POST", `/api/revisions/${draftRevisionId}/send`, { id: draftRevisionId }) },
+  { name: "POST /api/submissions", role: "office", keys: ["revisionId", "method", "referenceNumber", "occurredOn", "note"], send: json(routes.submissions?.POST, "POST", "/api/submissions") },
   {
     name: "POST /api/submissions/[id]/events",
     role: "office",
     keys: ["kind", "occurredOn", "note", "permitNumber", "expiresOn", "amountUsd", "inspectionKind", "revisionId", "version", "submissionId"],
-    send: json(routes.events.POST, "POST", `/api/submissions/${world.submissionId}/events`, { id: world.submissionId }),
+    send: json(routes.events?.POST, "POST", `/api/submissions/${world.submissionId}/events`, { id: world.submissionId }),
   },
   {
     name: "POST /api/submissions/[id]/events/[eventId]/void",
     role: "office",
     keys: ["reason", "version", "eventId", "submissionId"],
-    send: json(routes.voidEvent.POST, "POST", `/api/submissions/${world.submissionId}/events/${world.submissionEventId}/void`, { id: world.submissionId, eventId: world.submissionEventId }),
+    send: json(routes.voidEvent?.POST, "POST", `/api/submissions/${world.submissionId}/events/${world.submissionEventId}/void`, { id: world.submissionId, eventId: world.submissionEventId }),
   },
   { name: "POST /api/verify", role: null, keys: ["sha256"], send: (text) => http(routes.verify.POST, "POST", "/api/verify", { text: { body: text, type: "application/json" }, headers: { "x-forwarded-for": `192.0.2.${Math.floor(Math.random() * 250)}` } }) },
 ];
 
 describe("hostile JSON bodies", () => {
-  for (const target of JSON_TARGETS) {
+  for (const { send, ...target } of JSON_TARGETS) {
+    if (!send) continue;
     it(`${target.name}: ${HOSTILE_RUNS} generated bodies, none a 5xx, none refused with a change`, async () => {
       await fc.assert(
-        fc.asyncProperty(hostileJsonText(target.keys), async (text) => hostile(target.name, target.role, () => target.send(text))),
+        fc.asyncProperty(hostileJsonText(target.keys), async (text) => hostile(target.name, target.role, () => send(text))),
         { numRuns: HOSTILE_RUNS },
       );
     }, 180_000);
@@ -169,7 +177,7 @@ describe("hostile JSON bodies", () => {
     it(`${target.name}: a 3 MB body is refused with 413 before it is parsed`, async () => {
       const big = JSON.stringify({ [target.keys[0]!]: "x".repeat(3 * 1024 * 1024) });
       await hostile(target.name, target.role, async () => {
-        const outcome = await target.send(big);
+        const outcome = await send(big);
         expect(outcome.status, outcome.text).toBe(413);
         return outcome;
       });
@@ -298,6 +306,33 @@ describe("hostile uploads", () => {
       { numRuns: HOSTILE_RUNS },
     );
   }, 180_000);
+});
+
+describe("hostile query strings on the routes that read them", () => {
+  const TARGETS: { name: string; role: Role | null; url: (q: string) => string; handler: unknown; params?: Record<string, string> }[] = [
+    { name: "GET /api/projects?cursor&limit", role: "designer", handler: routes.projects.GET, url: (q) => `/api/projects?cursor=${q}&limit=${q}` },
+    { name: "GET /api/submissions?cursor&limit", role: "office", handler: routes.submissions?.GET, url: (q) => `/api/submissions?cursor=${q}&limit=${q}` },
+    { name: "GET /api/library?kind", role: "designer", handler: routes.library.GET, url: (q) => `/api/library?kind=${q}&includeRetired=${q}` },
+    { name: "GET /api/reviews?projectId&revisionId", role: "reviewer", handler: reviewsRoute.GET, url: (q) => `/api/reviews?projectId=${q}&revisionId=${q}` },
+    { name: "GET /api/install/[revisionId]/labels?stock&only", role: "installer", handler: labelsRoute.GET, url: (q) => `/api/install/${world.approvedRevisionId}/labels?stock=${q}&only=${q}`, params: { revisionId: world.approvedRevisionId } },
+    { name: "GET /api/verify?sha256", role: null, handler: routes.verify.GET, url: (q) => `/api/verify?sha256=${q}` },
+    { name: "POST /api/checks?edition", role: "designer", handler: routes.checks.POST, url: (q) => `/api/checks?edition=${q}` },
+  ];
+  for (const target of TARGETS) {
+    if (!target.handler) continue;
+    it(`${target.name}: ${HOSTILE_RUNS} generated values`, async () => {
+      const value = fc.oneof(fc.string({ unit: "grapheme", maxLength: 80 }), fc.string({ unit: "binary", maxLength: 80 }), fc.constantFrom("-1", "0", "1e9", "NaN", "__proto__", "constructor", "%", "%00", "..%2F..%2F"));
+      await fc.assert(
+        fc.asyncProperty(value, async (q) => {
+          const url = target.url(encodeURIComponent(q));
+          const headers = { "x-forwarded-for": `198.18.0.${Math.floor(Math.random() * 250)}` };
+          const send = target.handler === routes.checks.POST ? () => http(target.handler, "POST", url, { json: world.record, headers }) : () => http(target.handler, "GET", url, { params: target.params ?? {}, headers });
+          await hostile(target.name, target.role, send);
+        }),
+        { numRuns: HOSTILE_RUNS },
+      );
+    }, 180_000);
+  }
 });
 
 describe("the run", () => {

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { EmptyState, PageHeader, Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
+import { DEFAULT_VOLTAGE_DROP_LIMIT_PCT } from "@/lib/schemas/vocabulary";
 import { listJurisdictions } from "@/lib/services/jurisdictions/list";
 
 export const metadata: Metadata = { title: "Jurisdictions" };
@@ -41,7 +42,7 @@ export default async function JurisdictionsPage() {
                   <td>{j.region}</td>
                   <td className="figure">{j.necEdition}</td>
                   <td className="figure">{j.residentialCode === "none" ? "—" : j.residentialCode}</td>
-                  <td className="figure">{j.voltageDropLimitPct != null ? `${j.voltageDropLimitPct} %` : "3 % (default)"}</td>
+                  <td className="figure">{j.voltageDropLimitPct != null ? `${j.voltageDropLimitPct} %` : `${DEFAULT_VOLTAGE_DROP_LIMIT_PCT} % (default)`}</td>
                   <td>{j.submissionMethod}</td>
                   <td className="figure text-right">{j.typicalReviewDays != null ? `${j.typicalReviewDays} d` : "—"}</td>
                   <td className="max-w-sm text-xs text-ink-soft">{j.amendments}</td>

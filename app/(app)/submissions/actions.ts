@@ -44,6 +44,8 @@ export async function recordEventAction(_prev: ActionResult<RecordedEvent> | nul
       amountUsd: text("amountUsd"),
       inspectionKind: text("inspectionKind"),
       revisionId: text("revisionId"),
+      corrections: text("corrections"),
+      assigneeId: text("assigneeId"),
       version: text("version") || undefined,
     }),
   );

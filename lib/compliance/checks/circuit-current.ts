@@ -1,4 +1,5 @@
 /** 3. Circuit current (690.8(A)): the figure every conductor and device on the circuit is sized from. */
+import { isInverterKind } from "../../schemas/vocabulary";
 import { endpoint, kindIs, Trace, v, type CheckContext } from "../context";
 import { batteries } from "../derive/battery";
 import { circuitCurrent } from "../derive/circuit-current";
@@ -29,7 +30,7 @@ export const circuitCurrentCheck: CheckDefinition = {
       // A battery that cannot supply the inverter's draw trips its management system under full load.
       if (c.kind === "inverter-dc-input" || c.kind === "battery") {
         const bat = endpoint(ctx, c, kindIs("battery")) ?? batteries(ctx)[0];
-        const inverterEnd = c.kind === "inverter-dc-input" || ["inverter", "inverter-charger", "hybrid-inverter"].some((k) => ctx.equipment.get(c.toTag)?.item.kind === k || ctx.equipment.get(c.fromTag)?.item.kind === k);
+        const inverterEnd = c.kind === "inverter-dc-input" || [c.toTag, c.fromTag].some((tag) => isInverterKind(ctx.equipment.get(tag)?.item.kind ?? ""));
         if (bat && inverterEnd && bat.item.maxContinuousDischargeA !== undefined) {
           const avail = bat.item.maxContinuousDischargeA * bat.item.quantity;
           t.read(`${bat.path}.maxContinuousDischargeA`, `Continuous discharge of ${bat.item.tag}`, bat.item.maxContinuousDischargeA, "A");

@@ -7,13 +7,12 @@ import { CONDUCTOR_SIZES_ASCENDING, compareConductorSize, dcResistanceOhmPerKft 
 import type { Circuit, ConductorSize } from "../../schemas/project-record";
 import { circuitArrayTag, isPvCircuit, sizeLabel, Trace, v, type CheckContext, type Indexed } from "../context";
 import { arrayParts } from "../derive/pv";
+import { DEFAULT_VOLTAGE_DROP_LIMIT_PCT } from "../../schemas/vocabulary";
 import { circuitCurrent } from "../derive/circuit-current";
 import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
 import { makeResult, needsInput, type CheckDefinition } from "../result";
 import type { CheckResult, Remedy } from "../types";
-
-export const DEFAULT_VOLTAGE_DROP_LIMIT_PCT = 3;
 
 /**
  * Drop, V, through the conductor's resistance (Chapter 9 Table 8 at 75 °C): out and back (2 × I × R × L) on DC and

@@ -1,5 +1,6 @@
 /** String voltage and current of a PV array, per 690.7(A) and 690.8(A). */
 import type { Equipment, PvArray } from "../../schemas/project-record";
+import { isInverter } from "../../schemas/vocabulary";
 import { crystallineVoltageCorrectionFactorOrUndefined } from "../tables";
 import { memo, Trace, v, type CheckContext, type Derived, type EquipmentOf, type Indexed } from "../context";
 import type { CheckValue } from "../types";
@@ -153,7 +154,7 @@ export function pvInputOf(ctx: CheckContext, parts: ArrayParts): PvInputLimits |
       isController: true,
     };
   }
-  if (e.kind === "inverter" || e.kind === "inverter-charger" || e.kind === "hybrid-inverter") {
+  if (isInverter(e)) {
     const id = parts.array.item.mpptInputId;
     let idx = id !== undefined && id !== "" ? e.mpptInputs.findIndex((m) => m.id === id) : -1;
     if (idx < 0 && e.mpptInputs.length === 1 && (id === undefined || id === "")) idx = 0;

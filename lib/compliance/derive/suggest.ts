@@ -5,7 +5,8 @@
  * smallest conductor, the standard overcurrent rating and the equipment
  * grounding conductor that would pass.
  */
-import type { Circuit, ConductorSize, Equipment, ProjectRecord } from "../../schemas/project-record";
+import { INVERTER_KINDS, type Circuit, type ConductorSize, type Equipment, type ProjectRecord } from "../../schemas/project-record";
+import { DEFAULT_VOLTAGE_DROP_LIMIT_PCT } from "../../schemas/vocabulary";
 import { buildContext, type Indexed } from "../context";
 import {
   CONDUCTOR_SIZES_ASCENDING,
@@ -22,7 +23,7 @@ import { conductorAmpacity } from "./conductor";
 type CircuitKind = Circuit["kind"];
 type EndKind = Equipment["kind"] | "array";
 
-const INVERTERS: readonly EndKind[] = ["inverter", "inverter-charger", "hybrid-inverter"];
+const INVERTERS: readonly EndKind[] = INVERTER_KINDS;
 const DC_BUS: readonly EndKind[] = ["battery", "busbar", "fuse", "disconnect"];
 const AC_SIDE: readonly EndKind[] = ["ac-panel", "breaker"];
 
@@ -79,8 +80,6 @@ export interface CircuitSuggestion {
 /** Insulation and raceway figures assumed where the row leaves them empty, named in the basis. */
 const ASSUMED_INSULATION_C = 90;
 const ASSUMED_CONDUCTORS = 2;
-/** The voltage-drop figure the suggestion keeps to: 3 % by common practice unless the jurisdiction sets one. */
-const DEFAULT_DROP_PCT = 3;
 
 export function suggestCircuit(record: ProjectRecord, index: number): CircuitSuggestion {
   const ctx = buildContext(record, record.jurisdiction.necEdition);
@@ -97,7 +96,7 @@ export function suggestCircuit(record: ProjectRecord, index: number): CircuitSug
   const insulationC = c.insulationTempRatingC ?? insulationRatingFor(c.insulation);
   if (insulationC === undefined) assumptions.push(`${ASSUMED_INSULATION_C} °C insulation`);
   if (c.currentCarryingConductors === undefined) assumptions.push(`${ASSUMED_CONDUCTORS} current-carrying conductors`);
-  const dropLimit = record.jurisdiction.voltageDropLimitPct ?? DEFAULT_DROP_PCT;
+  const dropLimit = record.jurisdiction.voltageDropLimitPct ?? DEFAULT_VOLTAGE_DROP_LIMIT_PCT;
 
   let size: ConductorSize | undefined;
   let maxOcpdA: number | undefined;

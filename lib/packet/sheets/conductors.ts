@@ -1,8 +1,9 @@
 import type { Equipment } from "../../schemas/project-record";
+import { CIRCUIT_KIND_TITLES, conductorSizeText } from "../../schemas/vocabulary";
 import { dash, formatNumber } from "../format";
 import type { Block, Cell } from "../markup";
 import type { PacketInput } from "../types";
-import { CIRCUIT_KIND_LABEL, KIND_LABEL, describe, equipmentByTag, findValue, resultsFor, statusCell, table } from "./shared";
+import { KIND_LABEL, describe, equipmentByTag, findValue, resultsFor, statusCell, table } from "./shared";
 
 /** Checks whose failure on a circuit is also its overcurrent device's. */
 const OCPD_CHECK = /overcurrent|ocpd|ampacity/;
@@ -17,8 +18,8 @@ export function conductorBlocks(input: PacketInput): Block[] {
     return [
       { text: c.tag, bold: true },
       `${c.fromTag} → ${c.toTag}`,
-      CIRCUIT_KIND_LABEL[c.kind],
-      `${c.parallelSets > 1 ? `${c.parallelSets} × ` : ""}${c.size ? (Number(c.size) >= 250 ? `${c.size} kcmil` : `${c.size} AWG`) : "—"} ${c.material === "cu" ? "Cu" : "Al"}`,
+      CIRCUIT_KIND_TITLES[c.kind],
+      `${c.parallelSets > 1 ? `${c.parallelSets} × ` : ""}${c.size ? conductorSizeText(c.size, c.material) : `— ${c.material === "cu" ? "Cu" : "Al"}`}`,
       [c.insulation, c.insulationTempRatingC ? `${c.insulationTempRatingC} °C` : ""].filter(Boolean).join(" ") || "—",
       dash(c.currentCarryingConductors),
       [c.racewayType, c.racewaySize].filter(Boolean).join(" ") || "—",
@@ -31,7 +32,7 @@ export function conductorBlocks(input: PacketInput): Block[] {
         : findValue(results, "circuit-current", ["currentA"]),
       findValue(results, "conductor-ampacity", ["allowedA", "correctedA"]),
       c.ocpdTag ? `${c.ocpdTag} ${rating}` : "—",
-      c.egcSize ? `${c.egcSize} AWG ${c.egcMaterial === "cu" ? "Cu" : "Al"}` : "—",
+      c.egcSize ? conductorSizeText(c.egcSize, c.egcMaterial) : "—",
       statusCell(results),
     ];
   });

@@ -4,7 +4,8 @@ import { dash, formatNumber } from "../format";
 import type { Block, Cell } from "../markup";
 import type { PacketDatasheet } from "../plan";
 import type { PacketInput } from "../types";
-import { KIND_LABEL, batteryKWh, describe, equipmentByTag, resultsFor, statusCell, table } from "./shared";
+import { batteryKWh } from "../../schemas/vocabulary";
+import { KIND_LABEL, describe, equipmentByTag, resultsFor, statusCell, table } from "./shared";
 
 /** Equipment whose datasheet a permit office asks for (the submittal check's list). */
 const DATASHEET_KINDS = new Set<string>(DATASHEET_KIND_LIST);

@@ -1,4 +1,5 @@
 import { GROUNDING_ELECTRODE_KINDS, type Equipment, type ProjectRecord } from "../../schemas/project-record";
+import { conductorSizeText, isInverter } from "../../schemas/vocabulary";
 import type { Block, Cell } from "../markup";
 import { notGiven } from "../record-words";
 import type { PacketInput } from "../types";
@@ -17,12 +18,11 @@ const ELECTRODE_LABEL: Record<(typeof GROUNDING_ELECTRODE_KINDS)[number], string
 type Source = Extract<Equipment, { kind: "inverter" | "inverter-charger" | "hybrid-inverter" | "generator" | "ac-panel" }>;
 
 function isBondable(e: Equipment): e is Source {
-  return e.kind === "inverter" || e.kind === "inverter-charger" || e.kind === "hybrid-inverter" || e.kind === "generator" || e.kind === "ac-panel";
+  return isInverter(e) || e.kind === "generator" || e.kind === "ac-panel";
 }
 
 function sizeText(size: string | undefined, material: "cu" | "al" | undefined): string {
-  if (!size) return "";
-  return `${Number(size) >= 250 ? `${size} kcmil` : `${size} AWG`} ${material === "al" ? "Al" : "Cu"}`;
+  return size ? conductorSizeText(size, material ?? "cu") : "";
 }
 
 /** A 120 V-only inverter feeding a 120/240 V panel: the panel's two legs are jumpered and its neutral carries both. */
@@ -33,7 +33,7 @@ export function splitPhaseFeeds(record: ProjectRecord): { inverter: string; pane
     const from = eq.get(c.fromTag);
     const to = eq.get(c.toTag);
     if (!from || !to || to.kind !== "ac-panel" || to.voltage !== "120/240") continue;
-    if ((from.kind === "inverter" || from.kind === "inverter-charger" || from.kind === "hybrid-inverter") && from.acOutput === "120") {
+    if (isInverter(from) && from.acOutput === "120") {
       out.push({ inverter: from.tag, panel: to.tag, circuit: c.tag });
     }
   }

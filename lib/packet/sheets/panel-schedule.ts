@@ -1,8 +1,9 @@
 import type { Equipment, ProjectRecord } from "../../schemas/project-record";
+import { CIRCUIT_KIND_TITLES } from "../../schemas/vocabulary";
 import { dash, formatNumber } from "../format";
 import type { Block, Cell } from "../markup";
 import type { PacketInput } from "../types";
-import { CIRCUIT_KIND_LABEL, describe, equipmentByTag, resultsFor, statusCell, table } from "./shared";
+import { describe, equipmentByTag, resultsFor, statusCell, table } from "./shared";
 
 type Panel = Extract<Equipment, { kind: "ac-panel" | "busbar" }>;
 
@@ -36,7 +37,7 @@ function panelBlocks(panel: Panel, record: ProjectRecord, input: PacketInput): B
         ["Bus rating", dash(panel.busRatingA, "A")],
         ["Main breaker", panel.mainBreakerA !== undefined ? `${formatNumber(panel.mainBreakerA)} A` : "none (main lug)"],
         ["Neutral bus", dash(panel.neutralBusRatingA, "A")],
-        ["Fed by", feeds.length ? feeds.map((c) => `${c.fromTag} over ${c.tag} (${CIRCUIT_KIND_LABEL[c.kind]})`).join("; ") : "no circuit into the panel entered"],
+        ["Fed by", feeds.length ? feeds.map((c) => `${c.fromTag} over ${c.tag} (${CIRCUIT_KIND_TITLES[c.kind]})`).join("; ") : "no circuit into the panel entered"],
       ],
     },
   ];

@@ -1,5 +1,6 @@
-import type { CheckResult, CheckStatus } from "../../compliance/types";
-import { EQUIPMENT_KIND_LABELS, type Circuit, type Equipment, type ProjectRecord } from "../../schemas/project-record";
+import type { CheckResult } from "../../compliance/types";
+import { EQUIPMENT_KIND_LABELS, type Equipment, type ProjectRecord } from "../../schemas/project-record";
+import { worstStatus } from "../../schemas/vocabulary";
 import { formatNumber } from "../format";
 import type { Block, Cell, TableColumn } from "../markup";
 import type { PacketInput } from "../types";
@@ -33,26 +34,6 @@ export const KIND_LABEL: Record<Equipment["kind"], string> = {
   "ac-panel": "AC distribution panel",
 };
 
-export const CIRCUIT_KIND_LABEL: Record<Circuit["kind"], string> = {
-  "pv-source": "PV source",
-  "pv-output": "PV output",
-  battery: "Battery",
-  "inverter-dc-input": "Inverter DC input",
-  "inverter-ac-output": "Inverter AC output",
-  "generator-output": "Generator output",
-  "ac-branch": "AC branch",
-};
-
-
-const STATUS_ORDER: CheckStatus[] = ["fail", "needs-input", "warning", "attest", "pass", "not-applicable"];
-
-export function worstStatus(results: CheckResult[]): CheckStatus | null {
-  let worst: CheckStatus | null = null;
-  for (const r of results) {
-    if (worst === null || STATUS_ORDER.indexOf(r.status) < STATUS_ORDER.indexOf(worst)) worst = r.status;
-  }
-  return worst;
-}
 
 export function equipmentByTag(record: ProjectRecord): Map<string, Equipment> {
   return new Map(record.equipment.map((e) => [e.tag, e]));
@@ -61,12 +42,6 @@ export function equipmentByTag(record: ProjectRecord): Map<string, Equipment> {
 export function describe(e: Equipment | undefined): string {
   if (!e) return "";
   return [e.manufacturer, e.model].filter(Boolean).join(" ");
-}
-
-export function batteryKWh(e: Extract<Equipment, { kind: "battery" }>): number | undefined {
-  if (e.capacityKWh !== undefined) return e.capacityKWh;
-  if (e.capacityAh !== undefined && e.nominalVoltageV !== undefined) return (e.capacityAh * e.nominalVoltageV) / 1000;
-  return undefined;
 }
 
 export function table(columns: [string, number, ("left" | "right" | "center")?][], rows: Cell[][], caption?: string): Block {
@@ -79,7 +54,7 @@ export function resultsFor(run: PacketInput["run"], subject: string): CheckResul
 }
 
 export function statusCell(results: CheckResult[]): Cell {
-  const worst = worstStatus(results);
+  const worst = worstStatus(results.map((r) => r.status));
   return worst ? { text: "", status: worst } : "—";
 }
 

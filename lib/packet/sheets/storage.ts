@@ -2,7 +2,8 @@ import type { Equipment } from "../../schemas/project-record";
 import { dash, formatNumber } from "../format";
 import type { Block, Cell } from "../markup";
 import type { PacketInput } from "../types";
-import { LOCATION_LABEL, batteryKWh, describe, table } from "./shared";
+import { batteryKWh } from "../../schemas/vocabulary";
+import { LOCATION_LABEL, describe, table } from "./shared";
 
 export function storageBlocks(input: PacketInput): Block[] {
   const { record, run } = input;

@@ -29,6 +29,9 @@ const ACTION_WORDS: Record<string, string> = {
   "submission.created": "Submitted to the AHJ",
   "submission.event": "Submission event recorded",
   "submission.voided": "Submission entry voided",
+  "correction.resolved": "AHJ comment answered",
+  "correction.reopened": "AHJ comment reopened",
+  "correction.assigned": "AHJ comment assigned",
   "site.confirmed": "Confirmed on site",
   "site.unconfirmed": "Site confirmation withdrawn",
 };
@@ -37,9 +40,16 @@ function summary(action: string, d: Record<string, unknown>): string {
   const words = ACTION_WORDS[action] ?? action;
   const n = typeof d.number === "number" ? ` (revision ${d.number})` : "";
   if (action === "project.status") return `${words}: ${String(d.from)} → ${String(d.to)}`;
-  if (action === "submission.event") return `${words}: ${String(d.kind)} on ${String(d.occurredOn)}`;
+  if (action === "submission.event") return `${words}: ${String(d.kind)} on ${String(d.occurredOn)}${typeof d.comments === "number" ? ` (${d.comments} comments)` : ""}`;
+  if (action === "correction.resolved") return `${words}: comment ${String(d.number)}; "${String(d.response)}"`;
+  if (action === "correction.assigned") return `${words}: comment ${String(d.number)} to ${String(d.to)}`;
+  if (action === "correction.reopened") return `${words}: comment ${String(d.number)}`;
   if (action === "submission.voided") return `${words}: ${String(d.kind)}; ${String(d.reason ?? "")}`;
   if (action === "review.sent" && typeof d.message === "string") return `${words}${n}: "${d.message}"`;
+  if ((action === "attachment.uploaded" || action === "attachment.deleted") && typeof d.fileName === "string") {
+    return `${words}: ${d.fileName} (${String(d.kind).replace(/-/g, " ")}${typeof d.equipmentTag === "string" && d.equipmentTag ? `, ${d.equipmentTag}` : ""})`;
+  }
+  if (action === "attachment.linked") return `${words}: ${String(d.from ?? "none")} → ${String(d.to ?? "none")}`;
   if (action.startsWith("site.")) return `${words}: ${String(d.itemKind)} ${String(d.itemId)}`;
   return `${words}${n}`;
 }

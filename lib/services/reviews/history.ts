@@ -3,6 +3,8 @@ import { and, desc, eq, inArray } from "drizzle-orm";
 import { packetRevisions, reviewNotes, reviews, users, type LicenceSnapshot, type PacketRevision } from "../../../db/schema";
 import { requirePermission, type ServiceContext } from "../context";
 import { findProjectInOrg } from "../projects/load";
+import type { NoteState } from "../../schemas/review-thread";
+import { threadsFor, type NoteReplyView } from "./note-thread";
 import { findRevisionForReview, noteTargetLabel, snapshotRun } from "./shared";
 
 export interface ReviewNoteView {
@@ -12,6 +14,9 @@ export interface ReviewNoteView {
   /** "Check: Conductor ampacity (PV-1)", "Sheet E-003 Calculations", "General". */
   targetLabel: string;
   text: string;
+  /** Open until the designer marks it addressed; closed or reopened by the reviewer. */
+  state: NoteState;
+  replies: NoteReplyView[];
 }
 
 export interface ReviewEntry {
@@ -48,6 +53,7 @@ function entriesFor(ctx: ServiceContext, revisions: Pick<PacketRevision, "id" | 
         .all()
     : [];
   const runs = new Map(revisions.map((r) => [r.id, snapshotRun(r)]));
+  const threads = threadsFor(ctx, notes.map((n) => n.id));
   return rows.map(({ review, reviewerName }) => {
     const revision = byId.get(review.revisionId)!;
     const run = runs.get(review.revisionId) ?? null;
@@ -61,7 +67,7 @@ function entriesFor(ctx: ServiceContext, revisions: Pick<PacketRevision, "id" | 
       generalNotes: review.generalNotes,
       notes: notes
         .filter((n) => n.reviewId === review.id)
-        .map((n) => ({ id: n.id, targetKind: n.targetKind, targetId: n.targetId, targetLabel: noteTargetLabel(n.targetKind, n.targetId, run), text: n.text })),
+        .map((n) => ({ id: n.id, targetKind: n.targetKind, targetId: n.targetId, targetLabel: noteTargetLabel(n.targetKind, n.targetId, run), text: n.text, ...threads.get(n.id)! })),
       licence: review.licenceSnapshot ?? null,
       approvedSha256: review.approvedSha256,
       boundToRevision: review.decision === "approved" && review.approvedSha256 === revision.recordSha256,

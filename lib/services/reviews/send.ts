@@ -7,7 +7,7 @@ import { deliverLater } from "../../jobs";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid } from "../errors";
 import { moveProjectStatus } from "../projects/status";
-import { activeReviewers, deliverAfterCommit, findRevisionForReview, snapshotRun } from "./shared";
+import { activeReviewers, deliverAfterCommit, findRevisionForReview, snapshotRun, supersedingRevision } from "./shared";
 
 /** Long enough to answer a reviewer's notes point by point. */
 export const SEND_MESSAGE_MAX_CHARS = 4000;
@@ -42,6 +42,8 @@ export async function sendForReview(ctx: ServiceContext, revisionId: string, opt
   if (row.state === "failed") throw conflict(`Revision ${row.number} failed to generate and has no packet to review; generate a new revision.`);
   if (row.reviewState === "in-review") throw conflict(`Revision ${row.number} is already waiting for review.`);
   if (row.reviewState === "approved") throw conflict(`Revision ${row.number} is already approved and stamped.`);
+  const later = supersedingRevision(ctx, row);
+  if (later) throw conflict(`Revision ${row.number} is superseded by revision ${later.number}; send revision ${later.number} instead.`);
   const reviewers = activeReviewers(ctx.db, ctx.orgId);
   if (reviewers.length === 0) {
     throw conflict("Your organisation has no active reviewer to send this to; ask an administrator to give a licensed professional the reviewer role.");

@@ -1,7 +1,7 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
+import { and, desc, eq, gt, ne } from "drizzle-orm";
 import type { Db } from "../../../db/client";
-import { attachments, projects, reviewerLicences, userRoles, users, type PacketRevision, type ReviewerLicence } from "../../../db/schema";
+import { attachments, packetRevisions, projects, reviewerLicences, userRoles, users, type PacketRevision, type ReviewerLicence } from "../../../db/schema";
 import { canonicalJson, sha256Hex } from "../../canonical-json";
 import type { CheckResult, CheckRun } from "../../compliance/types";
 import { SHEET_PLAN } from "../../packet/model";
@@ -132,4 +132,19 @@ export async function deliverAfterCommit(deliver: (db: Db, orgId: string) => Pro
   } catch (error) {
     console.error("mail delivery after a review hand-off failed", error);
   }
+}
+
+/**
+ * The newest later revision of the same project that has a packet or is
+ * being rendered: once it exists, the earlier one is superseded and is not
+ * sent for review again.
+ */
+export function supersedingRevision(ctx: ServiceContext, row: Pick<PacketRevision, "projectId" | "number">): { id: string; number: number } | null {
+  const later = ctx.db
+    .select({ id: packetRevisions.id, number: packetRevisions.number })
+    .from(packetRevisions)
+    .where(and(eq(packetRevisions.orgId, ctx.orgId), eq(packetRevisions.projectId, row.projectId), gt(packetRevisions.number, row.number), ne(packetRevisions.state, "failed")))
+    .orderBy(desc(packetRevisions.number))
+    .get();
+  return later ?? null;
 }

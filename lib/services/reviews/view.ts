@@ -12,7 +12,7 @@ import { listRevisionReviews, type ReviewEntry } from "./history";
 import { toLicenceView, type LicenceView } from "./licence";
 import { currentCertificateRow } from "./certificate";
 import { independenceRefusal, licenceCoverageRefusal } from "./independence";
-import { findOwnLicence, findRevisionForReview, PACKET_SHEETS, snapshotIntact, snapshotRun } from "./shared";
+import { findOwnLicence, findRevisionForReview, PACKET_SHEETS, snapshotIntact, snapshotRun, supersedingRevision } from "./shared";
 
 export type ReviewCheck = Pick<CheckResult, "id" | "checkId" | "title" | "status" | "message" | "values" | "formula" | "codeRefs"> & {
   subject: string | null;
@@ -56,6 +56,8 @@ export interface ReviewWorkspace {
   /** Why the actor's licence does not cover the project's jurisdiction, or null; it blocks approval only. */
   licenceCoverage: string | null;
   maySend: boolean;
+  /** The later revision that replaces this one; a superseded revision is not sent again. */
+  supersededBy: number | null;
   /** What changed since the earlier revision a reviewer decided on; null for a first review. */
   delta: RevisionDelta | null;
   /** The designer's message sent with this revision. */
@@ -118,7 +120,9 @@ export function getReviewWorkspace(ctx: ServiceContext, revisionId: string, opti
   const stampedByActor =
     row.reviewState === "approved" &&
     Boolean(ctx.db.select({ id: reviews.id }).from(reviews).where(and(eq(reviews.revisionId, row.id), eq(reviews.decision, "approved"), eq(reviews.reviewerId, ctx.user.id))).get());
+  const superseding = supersedingRevision(ctx, row);
   return {
+    supersededBy: superseding?.number ?? null,
     revision: {
       id: row.id,
       number: row.number,

@@ -9,6 +9,8 @@ import { EVENT_LABELS, INSPECTION_EVENT_KINDS, PERMIT_VALID_MAX_DAYS, recordEven
 import { CLOSED_KINDS, nextEventVerdict, type StandingKind } from "../../schemas/submission-rules";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { conflict, invalid } from "../errors";
+import { insertCorrectionItems } from "../corrections/record";
+import { assignableUsers, checkedAssignee, standingItems } from "../corrections/shared";
 import { liveRecord, revisionMatchesLive } from "../projects/approval";
 import { effectiveEvents, loadEventRows, moveProjectForEvents, standingOf, type EffectiveEvent } from "./events";
 import { activeInstallers, addDays, deliverAfterCommit, findSubmissionInOrg, isoDay, revisionDesigner } from "./shared";
@@ -36,7 +38,7 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
   requirePermission(ctx, "submission:record-event", "record submission events");
   const parsed = recordEventSchema.safeParse(input);
   if (!parsed.success) throw invalid("The event was not recorded: some fields are not valid.", formatIssues(parsed.error));
-  const { submissionId, kind, occurredOn, note, permitNumber, expiresOn, amountUsd, inspectionKind, revisionId, version } = parsed.data;
+  const { submissionId, kind, occurredOn, note, permitNumber, expiresOn, amountUsd, inspectionKind, revisionId, version, corrections, assigneeId } = parsed.data;
   const now = options.now ?? new Date();
   const { submission, project, jurisdiction, revision } = findSubmissionInOrg(ctx, submissionId);
   const events = effectiveEvents(loadEventRows(ctx.db, ctx.orgId, submission.id));
@@ -75,6 +77,21 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
   if (kind === "fee-paid") data.amount = amountUsd;
   if (INSPECTION_EVENT_KINDS.includes(kind)) data.inspectionKind = inspectionKind;
 
+  if (kind === "resubmitted") {
+    const open = standingItems(ctx.db, ctx.orgId, submission.id).filter((i) => i.resolvedAt === null);
+    if (open.length > 0) {
+      const numbers = open.map((i) => i.number).join(", ");
+      const message = `The AHJ's comment${open.length === 1 ? "" : "s"} ${numbers} ${open.length === 1 ? "is" : "are"} still open; a resubmittal answers every comment. Resolve ${open.length === 1 ? "it" : "them"} on the project's Corrections tab first.`;
+      throw invalid(message, [{ path: "kind", message: `${open.length} comment${open.length === 1 ? "" : "s"} still open` }]);
+    }
+  }
+  const correctionAssignee =
+    kind === "corrections-requested" && corrections?.length
+      ? assigneeId
+        ? checkedAssignee(ctx.db, ctx.orgId, assigneeId).id
+        : (assignableUsers(ctx.db, ctx.orgId).find((u) => u.id === revision.createdBy)?.id ?? null)
+      : null;
+
   const designer = revisionDesigner(ctx.db, ctx.orgId, revision.createdBy);
   const createdAt = now.toISOString();
 
@@ -90,6 +107,9 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
       .values({ orgId: ctx.orgId, submissionId: submission.id, kind, occurredOn, userId: ctx.user.id, note, data, createdAt })
       .returning({ id: submissionEvents.id })
       .get();
+    if (kind === "corrections-requested" && corrections?.length) {
+      insertCorrectionItems(tx, { orgId: ctx.orgId, projectId: project.id, submissionId: submission.id, eventId: event.id, assigneeId: correctionAssignee, createdAt }, corrections);
+    }
     const stored = tx.select().from(submissionEvents).where(eq(submissionEvents.id, event.id)).get()!;
     moveProjectForEvents(tx, ctx, project.id, [...events, stored as EffectiveEvent], { reason: `submission.${kind}`, now });
     const reference = submission.referenceNumber || "not yet given";
@@ -98,7 +118,7 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
         jurisdictionName: jurisdiction.name,
         projectName: project.name,
         referenceNumber: reference,
-        note: note || "(no details recorded; ask the permit office)",
+        note: [note, ...(corrections ?? []).map((c, i) => `${i + 1}. ${c.comment}`)].filter(Boolean).join("\n") || "(no details recorded; ask the permit office)",
       });
     }
     if (kind === "permit-issued") {
@@ -114,7 +134,7 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
         });
       }
     }
-    audit(tx, ctx, "submission.event", "submission", submission.id, { eventId: event.id, kind, occurredOn, data });
+    audit(tx, ctx, "submission.event", "submission", submission.id, { eventId: event.id, kind, occurredOn, data, ...(corrections?.length ? { comments: corrections.length } : {}) });
     return { eventId: event.id, version: submission.version + 1 };
   });
 

@@ -3,6 +3,9 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { runAction, type ActionResult } from "@/lib/auth/action";
+import { previewJurisdictionEdit, updateJurisdiction, type JurisdictionSaved } from "@/lib/services/jurisdictions/update";
+import type { KnockOnProject } from "@/lib/services/jurisdictions/knock-on";
+import { addJurisdictionNote } from "@/lib/services/jurisdictions/notes";
 import { previewSheetTemplate, saveSheetTemplate, type TemplatePreview } from "@/lib/services/jurisdictions/templates";
 
 /** Sheet templates are short text; the bound keeps one save from filling the database. */
@@ -38,4 +41,23 @@ export async function previewSheetTemplateAction(input: z.input<typeof previewIn
   if (!parsed.success) return refused(parsed.error);
   const { jurisdictionId, name, source } = parsed.data;
   return runAction((ctx) => previewSheetTemplate(ctx, jurisdictionId, name, source));
+}
+
+export async function saveJurisdictionAction(id: string, input: unknown): Promise<ActionResult<JurisdictionSaved>> {
+  const result = await runAction((ctx) => updateJurisdiction(ctx, id, input));
+  if (result.ok) {
+    revalidatePath(`/jurisdictions/${id}`);
+    revalidatePath("/jurisdictions");
+  }
+  return result;
+}
+
+export async function previewJurisdictionAction(id: string, input: unknown): Promise<ActionResult<KnockOnProject[]>> {
+  return runAction((ctx) => previewJurisdictionEdit(ctx, id, input));
+}
+
+export async function addJurisdictionNoteAction(input: { jurisdictionId: string; text: string }): Promise<ActionResult<{ id: string; message: string }>> {
+  const result = await runAction((ctx) => addJurisdictionNote(ctx, input));
+  if (result.ok) revalidatePath(`/jurisdictions/${input.jurisdictionId}`);
+  return result;
 }

@@ -1,11 +1,16 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { JurisdictionForm } from "@/components/jurisdictions/jurisdiction-form";
+import { NotesLog } from "@/components/jurisdictions/notes-log";
 import { TemplateEditor } from "@/components/jurisdictions/template-editor";
 import { PageHeader, Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
+import { DEFAULT_VOLTAGE_DROP_LIMIT_PCT } from "@/lib/schemas/vocabulary";
 import { can } from "@/lib/auth/permissions";
 import { ServiceError } from "@/lib/services/errors";
+import type { JurisdictionEditInput } from "@/lib/schemas/jurisdiction";
 import { getJurisdiction } from "@/lib/services/jurisdictions/get";
+import { listJurisdictionNotes } from "@/lib/services/jurisdictions/notes";
 import { listSheetTemplates } from "@/lib/services/jurisdictions/templates";
 
 export const metadata: Metadata = { title: "Jurisdiction" };
@@ -49,6 +54,8 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
   const templates = listSheetTemplates(ctx, id);
   const contact = j.contact ?? {};
   const labelRules = j.labelRules ?? {};
+  const canEdit = can(ctx.roles, "jurisdiction:edit");
+  const notes = listJurisdictionNotes(ctx, id);
   return (
     <>
       <PageHeader title={j.name} sheet={`Jurisdiction · ${j.region || "region not recorded"}`}>
@@ -56,7 +63,33 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
           All jurisdictions
         </Link>
       </PageHeader>
-      <div className="grid gap-4 lg:grid-cols-[20rem_1fr]">
+      {canEdit ? (
+        <div className="mb-4 grid items-start gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+          <JurisdictionForm
+            id={j.id}
+            initial={{
+              name: j.name,
+              region: j.region,
+              necEdition: j.necEdition,
+              residentialCode: j.residentialCode,
+              amendments: j.amendments,
+              voltageDropLimitPct: j.voltageDropLimitPct?.toString() ?? "",
+              storageAggregateLimitKWh: j.storageAggregateLimitKWh?.toString() ?? "",
+              submissionMethod: j.submissionMethod,
+              contact: { name: contact.name ?? "", email: contact.email ?? "", phone: contact.phone ?? "", portalUrl: contact.portalUrl ?? "", address: contact.address ?? "" },
+              typicalReviewDays: j.typicalReviewDays?.toString() ?? "",
+              feeNotes: j.feeNotes,
+              requiredDocuments: j.requiredDocuments as JurisdictionEditInput["requiredDocuments"],
+              labelRules: { material: labelRules.material ?? "", reflective: Boolean(labelRules.reflective), minLetterHeightIn: labelRules.minLetterHeightIn?.toString() ?? "", colours: labelRules.colours ?? "" },
+              version: j.version,
+            }}
+          />
+          <NotesLog jurisdictionId={j.id} notes={notes} canWrite />
+        </div>
+      ) : null}
+      <div className={canEdit ? "" : "grid gap-4 lg:grid-cols-[20rem_1fr]"}>
+        {canEdit ? null : (
+        <div className="space-y-4">
         <section aria-label="Jurisdiction record" className="sheet px-4 py-3">
           <h2 className="mb-1 text-sm font-semibold">Record</h2>
           <dl>
@@ -65,7 +98,7 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
             </Field>
             <Field label="Residential code">{j.residentialCode === "none" ? "—" : j.residentialCode}</Field>
             <Field label="Voltage-drop limit">
-              <span className="figure">{j.voltageDropLimitPct != null ? `${j.voltageDropLimitPct} %` : "3 % (default)"}</span>
+              <span className="figure">{j.voltageDropLimitPct != null ? `${j.voltageDropLimitPct} %` : `${DEFAULT_VOLTAGE_DROP_LIMIT_PCT} % (default)`}</span>
             </Field>
             <Field label="Storage limit per location">
               <span className="figure">{j.storageAggregateLimitKWh != null ? `${j.storageAggregateLimitKWh} kWh` : "per the code table"}</span>
@@ -92,6 +125,9 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
             </Field>
           </dl>
         </section>
+        <NotesLog jurisdictionId={j.id} notes={notes} canWrite={false} />
+        </div>
+        )}
         <TemplateEditor
           jurisdictionId={j.id}
           version={j.version}

@@ -4,6 +4,8 @@ import { TitleBlock } from "@/components/workspace/title-block";
 import { Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
+import { openCorrectionCount } from "@/lib/services/corrections";
+import { openNoteCount } from "@/lib/services/reviews/note-thread";
 import { approvalDrift } from "@/lib/services/projects/approval";
 import { loadProject } from "./load-project";
 
@@ -25,10 +27,11 @@ export default async function ProjectLayout({ children, params }: { children: Re
           status={loaded.stored.status}
           version={loaded.stored.version}
           drift={approvalDrift(ctx, id)}
+          notes={openNoteCount(ctx, id)}
         />
       ) : null}
       {loaded.ok ? <ArchiveControl projectId={id} archivedAt={loaded.stored.archivedAt} canEdit={can(ctx.roles, "project:edit")} /> : null}
-      <ProjectTabs projectId={id} />
+      <ProjectTabs projectId={id} openCorrections={loaded.ok ? openCorrectionCount(ctx, id) : 0} />
       {children}
     </>
   );

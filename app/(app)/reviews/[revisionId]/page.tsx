@@ -46,7 +46,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
       <PageHeader title={project.name} sheet={`Review · Revision ${rev.number}`}>
         <StateTag>{REVIEW_STATE_LABELS[rev.reviewState] ?? rev.reviewState}</StateTag>
         {/* Kept mounted after sending, so its confirmation stays on screen once the state has moved on. */}
-        {can(ctx.roles, "review:send") && rev.state === "ready" ? <SendForReviewButton revisionId={rev.id} reviewState={rev.reviewState} number={rev.number} failCount={ws.counts?.fail ?? 0} /> : null}
+        {can(ctx.roles, "review:send") && rev.state === "ready" ? <SendForReviewButton revisionId={rev.id} reviewState={rev.reviewState} number={rev.number} failCount={ws.counts?.fail ?? 0} supersededBy={ws.supersededBy} /> : null}
         {ws.licence !== null || ws.mayDecide ? (
           <Link href="/reviews/licence" className="btn-quiet">
             Your licence and stamp
@@ -199,7 +199,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ revisio
                 Decisions on this revision
               </h2>
               <div className="sheet px-5 py-4">
-                <ReviewHistoryList entries={ws.history} />
+                <ReviewHistoryList entries={ws.history} asDesigner={can(ctx.roles, "review:send")} asReviewer={can(ctx.roles, "review:decide")} />
               </div>
             </section>
           ) : null}

@@ -9,6 +9,7 @@ import { orNotFound, pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
 import { isProjectStatus, PROJECT_STATUS_LABELS } from "@/lib/schemas/project-status";
 import { EVENT_LABELS } from "@/lib/schemas/submission";
+import { listSubmissionCorrections } from "@/lib/services/corrections";
 import { getSubmission } from "@/lib/services/submissions";
 
 export const metadata: Metadata = { title: "Submission" };
@@ -22,6 +23,7 @@ export default async function SubmissionPage({ params }: { params: Promise<{ sub
   const s = orNotFound(() => getSubmission(ctx, submissionId));
   const today = new Date().toISOString().slice(0, 10);
   const mayRecord = can(ctx.roles, "submission:record-event");
+  const corrections = listSubmissionCorrections(ctx, s.id);
 
   return (
     <>
@@ -59,13 +61,51 @@ export default async function SubmissionPage({ params }: { params: Promise<{ sub
       <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-soft">Timeline</h2>
       <SubmissionTimeline events={s.events} submissionId={s.id} version={s.version} mayVoid={mayRecord} revisionNumbers={s.revisionNumbers} />
 
+      {corrections.items.length > 0 ? (
+        <section aria-label="The AHJ's comments" className="mt-6">
+          <div className="mb-2 flex flex-wrap items-center gap-3">
+            <h2 className="text-sm font-semibold uppercase tracking-wide text-ink-soft">The AHJ&apos;s comments</h2>
+            <span className="text-sm">{corrections.open === 0 ? "all answered" : `${corrections.open} of ${corrections.items.length} open`}</span>
+            <a href={`/api/submissions/${s.id}/response-sheet`} className="btn-quiet no-print text-xs" target="_blank" rel="noreferrer">
+              Response sheet (PDF)
+            </a>
+            <Link href={`/projects/${s.projectId}/corrections`} className="btn-quiet no-print text-xs">
+              Work them on the project
+            </Link>
+          </div>
+          <table className="data-table sheet" aria-label="Comments">
+            <thead>
+              <tr>
+                <th>No.</th>
+                <th>Comment</th>
+                <th>Assigned to</th>
+                <th>Response</th>
+              </tr>
+            </thead>
+            <tbody>
+              {corrections.items.map((c) => (
+                <tr key={c.id}>
+                  <td className="figure">{c.number}</td>
+                  <td className="text-sm">
+                    {c.comment}
+                    {c.sheet || c.citation ? <span className="figure block text-xs text-ink-soft">{[c.sheet && `Sheet ${c.sheet}`, c.citation].filter(Boolean).join(" · ")}</span> : null}
+                  </td>
+                  <td className="text-sm">{c.assigneeName ?? "—"}</td>
+                  <td className="text-sm">{c.open ? <span className="font-semibold text-signal">Open</span> : c.response}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </section>
+      ) : null}
+
       {mayRecord ? (
         <section aria-label="Next event" className="no-print mt-6">
           <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-soft">Record the next event</h2>
           {s.allowedNext.length === 0 ? (
             <p className="sheet px-4 py-4 text-sm text-ink-soft">This submission is {EVENT_LABELS[s.status].toLowerCase()}; a new application starts with a new submission.</p>
           ) : (
-            <EventForm submissionId={s.id} version={s.version} status={s.status} today={today} allowedNext={s.allowedNext} resubmittable={s.resubmittable} />
+            <EventForm submissionId={s.id} version={s.version} status={s.status} today={today} allowedNext={s.allowedNext} resubmittable={s.resubmittable} assignable={corrections.assignable} defaultAssigneeId={corrections.assignable.find((a) => a.name === s.designerName)?.id} />
           )}
         </section>
       ) : null}

@@ -10,5 +10,5 @@ export default async function ProjectPacketPage({ params }: { params: Promise<{ 
   const { ctx, allowed } = await pageContext("packet:read");
   if (!allowed) return <Refusal message="Permit packets are open to designers, reviewers, the permit office and installers." />;
   const { id } = await params;
-  return <PacketPanel projectId={id} canGenerate={can(ctx.roles, "packet:generate")} />;
+  return <PacketPanel projectId={id} canGenerate={can(ctx.roles, "packet:generate")} canDecide={can(ctx.roles, "review:decide")} />;
 }
