@@ -4,7 +4,7 @@ import Uppy, { type Body, type Meta, type UppyFile } from "@uppy/core";
 import Dashboard from "@uppy/react/dashboard";
 import XHRUpload from "@uppy/xhr-upload";
 import { useRouter } from "next/navigation";
-import { useEffect, useId, useState } from "react";
+import { useEffect, useId, useRef, useState } from "react";
 import "@uppy/core/css/style.min.css";
 import "@uppy/dashboard/css/style.min.css";
 import "./uploader.css";
@@ -14,7 +14,9 @@ import { describeAccepted, KIND_RULES, type AttachmentKind } from "@/lib/uploads
 export interface EquipmentOption {
   tag: string;
   description: string;
-  hasDatasheet: boolean;
+  kind: string;
+  /** Kinds of document already linked to it. */
+  documented: string[];
 }
 
 interface UploadMeta extends Meta {
@@ -28,9 +30,6 @@ interface UploadAnswer extends Body {
   message?: string;
   attachment?: { id: string; pageCount: number | null };
 }
-
-/** Kinds that usually show or document one piece of equipment; the tag carries over when switching among them. */
-const EQUIPMENT_KINDS: readonly AttachmentKind[] = ["datasheet", "storage-listing", "photo"];
 
 type Outcome = { id: string; fileName: string; target: string; state: "attached" | "duplicate" | "refused"; message: string };
 
@@ -74,9 +73,27 @@ export function AttachmentUploader({
 }) {
   const router = useRouter();
   const ids = useId();
-  const firstMissing = equipment.find((e) => !e.hasDatasheet)?.tag ?? equipment[0]?.tag ?? "";
-  const [kind, setKind] = useState<AttachmentKind>(kinds[0] ?? "other");
-  const [equipmentTag, setEquipmentTag] = useState<string>(kinds[0] === "datasheet" ? firstMissing : "");
+  // The equipment a document of this kind can be linked to, and the first of them still without one.
+  const optionsFor = (k: AttachmentKind) => {
+    const allowed = KIND_RULES[k].equipmentKinds;
+    return allowed ? equipment.filter((e) => allowed.includes(e.kind)) : equipment;
+  };
+  const nextFor = (k: AttachmentKind) => {
+    if (KIND_RULES[k].equipment !== "required") return "";
+    const options = optionsFor(k);
+    return (options.find((e) => !e.documented.includes(k)) ?? options[0])?.tag ?? "";
+  };
+  const firstKind = kinds[0] ?? "other";
+  const [kind, setKind] = useState<AttachmentKind>(firstKind);
+  const [equipmentTag, setEquipmentTag] = useState<string>(() => nextFor(firstKind));
+  // After an upload the choice moves on to the next equipment lacking this document, rather than keeping the last one.
+  const advance = useRef(false);
+  const documentedKey = equipment.map((e) => `${e.tag}:${e.documented.join(",")}`).join(";");
+  useEffect(() => {
+    if (!advance.current) return;
+    advance.current = false;
+    setEquipmentTag(nextFor(kind));
+  }, [documentedKey]);
   const [outcomes, setOutcomes] = useState<Outcome[]>([]);
 
   // One instance for the component's life (React may run effects twice in development, so it is not destroyed in a cleanup).
@@ -89,7 +106,7 @@ export function AttachmentUploader({
         logger: { debug: () => {}, warn: (...args: unknown[]) => console.warn(...args), error: (...args: unknown[]) => console.warn(...args) },
         allowMultipleUploadBatches: true,
         restrictions: { maxFileSize: maxBytes, allowedFileTypes: allowedTypes(kinds[0] ?? "other") },
-        meta: { projectId, kind: kinds[0] ?? "other", equipmentTag: kinds[0] === "datasheet" ? firstMissing : "" },
+        meta: { projectId, kind: firstKind, equipmentTag: nextFor(firstKind) },
       }).use(XHRUpload<UploadMeta, UploadAnswer>, {
         endpoint: "/api/uploads",
         fieldName: "file",
@@ -149,6 +166,7 @@ export function AttachmentUploader({
         // The status bar would still say "Upload failed" for files no longer shown; retryable failures keep it.
         if (!uppy.getFiles().some((f) => f.error)) uppy.setState({ error: null });
       }
+      advance.current = true;
       router.refresh();
     };
     uppy.on("upload-success", onSuccess);
@@ -165,9 +183,8 @@ export function AttachmentUploader({
 
   function chooseKind(next: AttachmentKind) {
     setKind(next);
-    if (KIND_RULES[next].equipment === "required" && !equipmentTag) setEquipmentTag(firstMissing);
-    // Site plans, letters, stamps and the like document the job, not one piece of equipment.
-    if (!EQUIPMENT_KINDS.includes(next)) setEquipmentTag("");
+    // A new kind starts from its own first undocumented equipment (a storage listing from a battery), never the last kind's choice.
+    setEquipmentTag(nextFor(next));
   }
 
   const refused = outcomes.filter((o) => o.state === "refused");
@@ -211,18 +228,20 @@ export function AttachmentUploader({
           >
             {needsTag ? null : <option value="">— not linked to equipment —</option>}
             {needsTag && !equipmentTag ? <option value="">— choose equipment —</option> : null}
-            {equipment.map((e) => (
+            {optionsFor(kind).map((e) => (
               <option key={e.tag} value={e.tag}>
                 {e.tag} · {e.description}
-                {kind === "datasheet" && e.hasDatasheet ? " (has a datasheet)" : ""}
+                {needsTag && e.documented.includes(kind) ? ` (has a ${rule.label.toLowerCase()})` : ""}
               </option>
             ))}
           </select>
           <p id={`${ids}-tag-help`} className="mt-1 text-xs text-ink-soft">
-            {equipment.length === 0
-              ? "This project has no equipment yet: add it on the Design tab to attach datasheets."
+            {optionsFor(kind).length === 0
+              ? rule.equipmentKinds
+                ? `This project has no ${rule.equipmentKinds.join(" or ")} yet: add it on the Design tab first.`
+                : "This project has no equipment yet: add it on the Design tab to attach datasheets."
               : needsTag
-                ? "The submittal check counts one datasheet per equipment tag."
+                ? `The submittal check counts one ${rule.label.toLowerCase()} per ${rule.equipmentKinds ? rule.equipmentKinds.join(" or ") : "equipment tag"}.`
                 : "Link a photo or listing to the equipment it shows, if any."}
           </p>
         </div>

@@ -2,7 +2,7 @@
 
 import { useId } from "react";
 import { Bar, BarChart, CartesianGrid, Cell, LabelList, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
-import { loadSummary } from "@/lib/compliance";
+import { loadEnergyFormula, loadSummary } from "@/lib/compliance";
 import type { ProjectRecord } from "@/lib/schemas/project-record";
 import { isInverter } from "@/lib/schemas/vocabulary";
 
@@ -51,7 +51,7 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
   const bars: EnergyBar[] = record.loads.map((l, i) => ({
     name: l.name,
     wh: s.perLoad[i]?.dailyWh ?? 0,
-    detail: `${l.watts} W${l.quantity > 1 ? ` × ${l.quantity}` : ""} × ${l.hoursPerDay} h`,
+    detail: loadEnergyFormula(l),
     idle: false,
   }));
   if (s.conversionLossWh > 0) {
@@ -129,7 +129,7 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
             <thead>
               <tr>
                 <th>Load</th>
-                <th>W × qty × h</th>
+                <th>How it adds up</th>
                 <th className="text-right">Wh/day</th>
               </tr>
             </thead>
@@ -140,7 +140,7 @@ export function LoadsChart({ record, className }: LoadsChartProps) {
                     {b.idle ? <span aria-hidden="true" className="mr-1 text-brass">◆</span> : null}
                     {b.name}
                   </td>
-                  <td className="figure whitespace-nowrap text-xs text-ink-soft">{b.detail}</td>
+                  <td className="figure text-xs text-ink-soft">{b.detail}</td>
                   <td className="figure whitespace-nowrap text-right">{wh(b.wh)}</td>
                 </tr>
               ))}

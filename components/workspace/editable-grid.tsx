@@ -35,6 +35,8 @@ export interface GridColumn {
   required?: boolean;
   /** Tailwind width class for the cell's control. */
   width?: string;
+  /** What an empty cell means ("100" for a duty left empty); the unit when not given. */
+  placeholder?: string;
   /** Told after the designer changes the cell, with the value it held before. */
   onValueChange?: (rowIndex: number, value: unknown, previous: unknown) => void;
 }
@@ -344,7 +346,7 @@ export function EditableGrid({
                             label={`${col.header}${col.unit ? ` (${col.unit})` : ""}, ${noun} row ${index + 1}`}
                             options={options}
                             required={col.required}
-                            placeholder={col.unit}
+                            placeholder={col.placeholder ?? col.unit}
                             className="px-1.5 py-1 text-sm"
                             grid={{ name, row: visual, col: colIndex }}
                             onValueChange={col.onValueChange ? (v, previous) => col.onValueChange?.(index, v, previous) : undefined}
@@ -388,7 +390,7 @@ export function EditableGrid({
                                 label={`${col.header}${unit}, ${noun} row ${index + 1}`}
                                 options={options}
                                 required={col.required}
-                                placeholder={col.unit}
+                                placeholder={col.placeholder ?? col.unit}
                                 className="px-1.5 py-1 text-sm"
                                 onValueChange={col.onValueChange ? (v, previous) => col.onValueChange?.(index, v, previous) : undefined}
                               />

@@ -54,6 +54,7 @@ const inverterFields: RatingField[] = [
   { key: "hasPvDisconnect", label: "PV disconnect built in", type: "checkbox" },
   { key: "hasOvercurrentProtection", label: "Overcurrent devices built in", type: "checkbox" },
   { key: "providesPvArcFaultProtection", label: "PV arc-fault protection (UL 1699B)", type: "tri-state" },
+  { key: "neutralBonded", label: "Neutral bonded to ground", type: "tri-state", help: "Its bonding jumper or relay joins neutral and ground; only one unit in the system does." },
   { key: "providesPvGroundFaultProtection", label: "PV ground-fault protection (690.41(B))", type: "tri-state" },
 ];
 
@@ -63,6 +64,9 @@ const protectiveFields: RatingField[] = [
   { key: "currentType", label: "Current", type: "select", options: [{ value: "ac", label: "AC" }, { value: "dc", label: "DC" }, { value: "ac-dc", label: "AC and DC" }] },
   { key: "interruptingRatingA", label: "Interrupting rating", unit: "A", type: "number" },
   { key: "distanceFromBatteryFt", label: "Distance from battery", unit: "ft", type: "number", help: "For a device protecting a battery circuit." },
+  { key: "breakerMounting", label: "Breaker mounting", type: "select", options: opts("plug-in", "bolt-on"), help: "A back-fed plug-in breaker needs a hold-down (408.36(D))." },
+  { key: "hasHoldDown", label: "Hold-down fastener", type: "tri-state" },
+  { key: "locatedAtTag", label: "Stands at (tag)", type: "text", help: "The equipment it stands beside, e.g. the generator it disconnects (445.18)." },
   {
     key: "providesPvGroundFaultProtection",
     label: "PV ground-fault protection (690.41(B))",
@@ -78,6 +82,7 @@ const panelFields: RatingField[] = [
   { key: "voltage", label: "Voltage", type: "select", options: opts("12", "24", "48", "120", "240", "120/240", "208", "277/480", "other") },
   { key: "sumOfBreakersA", label: "Sum of breakers", unit: "A", type: "number" },
   { key: "hasMultiwireBranchCircuits", label: "Multiwire branch circuits", type: "tri-state" },
+  { key: "neutralBonded", label: "Main bonding jumper (neutral to ground)", type: "tri-state" },
 ];
 
 export const RATING_FIELDS: Record<EquipmentKind, RatingField[]> = {
@@ -127,6 +132,9 @@ export const RATING_FIELDS: Record<EquipmentKind, RatingField[]> = {
     { key: "fuel", label: "Fuel", type: "select", options: opts("gasoline", "diesel", "propane", "natural-gas", "other") },
     { key: "outputBreakerA", label: "Output breaker", unit: "A", type: "number" },
     { key: "hasOutputDisconnect", label: "Output disconnect built in", type: "checkbox" },
+    { key: "installation", label: "Installation", type: "select", options: opts("portable", "stationary"), help: "Empty takes it from the listing: UL 2201 portable, UL 2200 stationary." },
+    { key: "connectedByInlet", label: "Connects through a power inlet", type: "tri-state", help: "A portable generator by cord and plug; the plug then disconnects it (445.18(A))." },
+    { key: "neutralBonded", label: "Neutral bonded to ground", type: "tri-state", help: "Its bonding jumper or relay joins neutral and ground; only one unit in the system does." },
   ],
   disconnect: protectiveFields,
   fuse: protectiveFields,

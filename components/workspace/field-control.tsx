@@ -108,6 +108,24 @@ export function FieldControl({
         ))}
       </select>
     );
+  } else if (type === "multi") {
+    const chosen = draft.split(/[,\s]+/).filter(Boolean);
+    control = (
+      <select
+        {...common}
+        multiple
+        size={Math.min(Math.max(options.length, 2), 7)}
+        className={`input ${className}`}
+        value={chosen}
+        onChange={(e) => change(Array.from(e.target.selectedOptions, (o) => o.value).join(", "))}
+      >
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+    );
   } else if (type === "textarea") {
     control = (
       <textarea {...common} className={`input ${className}`} rows={2} value={draft} placeholder={placeholder} onChange={(e) => change(e.target.value)} />

@@ -2,7 +2,7 @@
  * The project and site fields of the editor with their labels, units and
  * help: what the form draws and what a message calls a field.
  */
-import { BATTERY_LOCATIONS } from "@/lib/schemas/project-record";
+import { BATTERY_LOCATIONS, CONDUCTOR_SIZES, GROUNDING_ELECTRODE_KINDS } from "@/lib/schemas/project-record";
 import type { FieldControlProps, Option } from "./field-control";
 
 const SYSTEM_KIND_OPTIONS: Option[] = [
@@ -142,7 +142,7 @@ export const SITE_FIELDS: FieldSpec[] = [
     label: "Battery location",
     type: "select",
     options: BATTERY_LOCATION_OPTIONS,
-    help: "Drives the storage siting limits (IRC R328 / R330, NFPA 855 chapter 15). Never a habitable room.",
+    help: "Required when the design has a battery: it drives the storage siting limits (IRC R328 / R330, NFPA 855 chapter 15). Never a habitable room.",
   },
   { path: "site.batteryLocationNote", label: "Battery location note", type: "text" },
   {
@@ -159,5 +159,52 @@ export const SITE_FIELDS: FieldSpec[] = [
     label: "PV circuits enter a PV-only building",
     type: "tri-state",
     help: "Yes only where the building the ground array's circuits enter houses PV equipment and nothing else (690.12 exception).",
+  },
+];
+
+const ELECTRODE_LABELS: Record<(typeof GROUNDING_ELECTRODE_KINDS)[number], string> = {
+  "ground-rod": "Ground rod",
+  "concrete-encased": "Concrete-encased electrode",
+  "ground-ring": "Ground ring",
+  "metal-water-pipe": "Metal underground water pipe",
+  "building-steel": "Building steel",
+  plate: "Plate electrode",
+  "existing-building-system": "The building's existing electrode system",
+};
+
+/**
+ * The grounding electrode system and the bond. The bond's options are the record's inverters, generators and AC
+ * panels, filled in by the section from the live tag lists.
+ */
+export const GROUNDING_FIELDS: FieldSpec[] = [
+  {
+    path: "grounding.electrodes",
+    label: "Grounding electrodes",
+    type: "multi",
+    options: GROUNDING_ELECTRODE_KINDS.map((k) => ({ value: k, label: ELECTRODE_LABELS[k] })),
+    help: "Every electrode present at the building, bonded together (250.50). Hold Ctrl or ⌘ to choose several.",
+  },
+  {
+    path: "grounding.gecSize",
+    label: "Grounding electrode conductor",
+    type: "select",
+    options: CONDUCTOR_SIZES.map((s) => ({ value: s, label: Number(s) >= 250 ? `${s} kcmil` : `${s} AWG` })),
+    help: "At least the largest DC conductor (250.166) and the Table 250.66 size for the largest AC supply conductor; rods alone need no more than 6 AWG Cu.",
+  },
+  {
+    path: "grounding.gecMaterial",
+    label: "GEC material",
+    type: "select",
+    options: [
+      { value: "cu", label: "Cu" },
+      { value: "al", label: "Al" },
+    ],
+    required: true,
+  },
+  {
+    path: "grounding.neutralGroundBondTag",
+    label: "Neutral-to-ground bond at",
+    type: "select",
+    help: "The one inverter, generator or panel where neutral and ground are joined (250.30, 250.6); every other unit floats its neutral.",
   },
 ];

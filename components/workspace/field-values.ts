@@ -12,6 +12,8 @@ export type FieldType =
   | "checkbox"
   | "tri-state"
   | "tags"
+  /** Several values from a fixed list (the electrodes of a grounding system). */
+  | "multi"
   | "numbers";
 
 export interface Option {
@@ -37,6 +39,7 @@ export function parseInput(type: FieldType, raw: string | boolean, required = fa
     case "tri-state":
       return s === "yes" ? true : s === "no" ? false : undefined;
     case "tags":
+    case "multi":
       return s.split(/[,\s]+/).map((x) => x.trim()).filter(Boolean);
     case "numbers":
       return s
@@ -52,7 +55,7 @@ export function parseInput(type: FieldType, raw: string | boolean, required = fa
 export function formatValue(type: FieldType, value: unknown): string {
   if (value === undefined || value === null) return "";
   if (type === "tri-state") return value === true ? "yes" : value === false ? "no" : "";
-  if (type === "tags" || type === "numbers") return Array.isArray(value) ? value.join(", ") : "";
+  if (type === "tags" || type === "multi" || type === "numbers") return Array.isArray(value) ? value.join(", ") : "";
   if (typeof value === "number" && Number.isNaN(value)) return "";
   return String(value);
 }

@@ -73,15 +73,19 @@ export function circuitColumns(tags: TagLists): GridColumn[] {
     { key: "designCurrentA", header: "Design current", unit: "A", type: "number", width: "w-16" },
     { key: "nominalVoltageV", header: "Nominal voltage", unit: "V", type: "number", width: "w-16" },
     { key: "phases", header: "Phases (AC)", type: "number-select", options: PHASE_OPTIONS, width: "w-20" },
+    { key: "feedsOtherBuilding", header: "Enters another building (AC)", type: "tri-state", width: "w-16" },
+    { key: "buildingDisconnectTag", header: "Building disconnect", type: "select", options: tags.byKinds(["disconnect", "breaker", "ac-panel"]), width: "w-24" },
   ];
 }
 
 export const LOAD_COLUMNS: GridColumn[] = [
-  { key: "name", header: "Load", type: "text", width: "w-48" },
-  { key: "watts", header: "Power", unit: "W", type: "number", width: "w-20" },
+  { key: "name", header: "Load", type: "text", width: "w-36" },
+  { key: "watts", header: "Power", unit: "W", type: "number", width: "w-16" },
   { key: "quantity", header: "Qty", type: "integer", width: "w-14" },
   { key: "hoursPerDay", header: "Hours a day", unit: "h", type: "number", width: "w-16" },
-  { key: "surgeW", header: "Surge", unit: "W", type: "number", width: "w-20" },
+  { key: "dutyPct", header: "Duty", unit: "%", type: "number", width: "w-14", placeholder: "100" },
+  { key: "daysPerWeek", header: "Days a week", type: "integer", width: "w-12", placeholder: "7" },
+  { key: "surgeW", header: "Surge", unit: "W", type: "number", width: "w-16" },
   {
     key: "voltageV",
     header: "Voltage",

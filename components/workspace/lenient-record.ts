@@ -54,6 +54,14 @@ export function parseLenient(values: unknown): LenientParse {
           omitted.push(`site.${second}`);
           changed = true;
         }
+      } else if (head === "grounding" && typeof second === "string" && second !== "gecMaterial") {
+        // Every grounding field but the material is optional: leave the bad one out, the check asks for it.
+        const grounding = working.grounding as Record<string, unknown> | undefined;
+        if (grounding && second in grounding && grounding[second] !== undefined) {
+          delete grounding[second];
+          omitted.push(`grounding.${second}`);
+          changed = true;
+        }
       } else if (typeof head === "string" && OPTIONAL_TOP.has(head) && issue.path.length === 1) {
         delete working[head];
         omitted.push(head);

@@ -18,7 +18,7 @@ import { EquipmentSection } from "./equipment-section";
 import { LiveChecksProvider } from "./live-checks";
 import { LoadsSection } from "./loads-section";
 import { ArraysSection, CircuitsSection } from "./row-sections";
-import { ProjectSection, SiteSection } from "./site-section";
+import { GroundingSection, ProjectSection, SiteSection } from "./site-section";
 import { useUnsavedGuard } from "./unsaved-guard";
 import { useRecordHistory } from "./use-record-history";
 import { SaveTemplateButton } from "./save-template-button";
@@ -206,6 +206,7 @@ export function ProjectEditor({
               <EquipmentSection />
               <ArraysSection />
               <CircuitsSection />
+              <GroundingSection />
               <LoadsSection />
               <DiagramSection />
             </fieldset>

@@ -11,8 +11,9 @@ type Values = Record<string, unknown>;
 /** Fields that hold one tag, per row list. */
 const SINGLE_REFS: Record<string, readonly string[]> = {
   arrays: ["moduleTag", "feedsTag"],
-  circuits: ["fromTag", "toTag", "arrayTag", "ocpdTag"],
+  circuits: ["fromTag", "toTag", "arrayTag", "ocpdTag", "buildingDisconnectTag"],
   attachments: ["equipmentTag"],
+  equipment: ["locatedAtTag"],
 };
 /** Fields that hold a list of tags. */
 const LIST_REFS: Record<string, readonly string[]> = { circuits: ["disconnectTags"] };
@@ -28,7 +29,7 @@ export interface Referrer {
 export function referrersOf(values: Values, tag: string): Referrer[] {
   if (!tag) return [];
   const out: Referrer[] = [];
-  for (const section of ["arrays", "circuits", "attachments"]) {
+  for (const section of ["equipment", "arrays", "circuits", "attachments"]) {
     const rows = (values[section] ?? []) as Row[];
     rows.forEach((row, i) => {
       for (const key of SINGLE_REFS[section] ?? []) if (row?.[key] === tag) out.push({ path: `${section}.${i}.${key}`, label: describePath(values, `${section}.${i}.${key}`) });
@@ -50,7 +51,7 @@ export function referrersOf(values: Values, tag: string): Referrer[] {
  */
 export function repointReferences(values: Values, from: string, to: string | undefined): Values {
   const next: Values = { ...values };
-  for (const section of ["arrays", "circuits", "attachments"]) {
+  for (const section of ["equipment", "arrays", "circuits", "attachments"]) {
     const rows = values[section];
     if (!Array.isArray(rows)) continue;
     next[section] = (rows as Row[]).map((row) => {

@@ -1,9 +1,12 @@
 "use client";
 
 import { FormField } from "./field-control";
-import { PROJECT_FIELDS, SITE_FIELDS } from "./field-specs";
+import { GROUNDING_FIELDS, PROJECT_FIELDS, SITE_FIELDS } from "./field-specs";
+import { useRecordTags } from "./use-record-tags";
 
-export { PROJECT_FIELDS, SITE_FIELDS };
+export { GROUNDING_FIELDS, PROJECT_FIELDS, SITE_FIELDS };
+
+const BOND_KINDS = ["inverter", "inverter-charger", "hybrid-inverter", "generator", "ac-panel"] as const;
 
 export function Section({ id, title, sheet, children, aside }: { id: string; title: string; sheet: string; children: React.ReactNode; aside?: React.ReactNode }) {
   return (
@@ -46,6 +49,19 @@ export function SiteSection({ jurisdiction }: { jurisdiction: { name: string; ne
       <div className="grid gap-4 sm:grid-cols-2">
         {SITE_FIELDS.map((f) => (
           <FormField key={f.path} {...f} />
+        ))}
+      </div>
+    </Section>
+  );
+}
+
+export function GroundingSection() {
+  const tags = useRecordTags();
+  return (
+    <Section id="grounding" title="Grounding and bonding" sheet="A · 7">
+      <div className="grid gap-4 sm:grid-cols-2">
+        {GROUNDING_FIELDS.map((f) => (
+          <FormField key={f.path} {...f} options={f.path === "grounding.neutralGroundBondTag" ? tags.byKinds(BOND_KINDS) : f.options} />
         ))}
       </div>
     </Section>

@@ -11,6 +11,10 @@ export const loads = sqliteTable("loads", {
   watts: real("watts").notNull(),
   quantity: integer("quantity").notNull().default(1),
   hoursPerDay: real("hours_per_day").notNull(),
+  /** Share of its hours a cycling load draws its power, %; null is 100 %. */
+  dutyPct: real("duty_pct"),
+  /** Days a week it runs; null is every day. */
+  daysPerWeek: integer("days_per_week"),
   surgeW: real("surge_w"),
   voltageV: integer("voltage_v").notNull().default(120),
   simultaneous: integer("simultaneous", { mode: "boolean" }).notNull().default(true),

@@ -26,10 +26,9 @@ export function missingDocuments(
     for (const e of record.equipment) if (DATASHEET_KINDS.includes(e.kind) && !has("datasheet", e.tag)) missing.push(`no datasheet for ${e.tag}`);
   }
   if (need.has("storage-listing")) {
-    // A listing filed without an equipment tag covers every battery of the project.
-    const untagged = documents.some((d) => d.kind === "storage-listing" && !d.equipmentTag);
+    // A listing counts for the battery it is linked to: one filed against nothing shows no reviewer which battery is listed.
     for (const e of record.equipment) {
-      if (e.kind === "battery" && !untagged && !has("storage-listing", e.tag)) missing.push(`no storage listing for ${e.tag}`);
+      if (e.kind === "battery" && !has("storage-listing", e.tag)) missing.push(`no storage listing for ${e.tag}`);
     }
   }
   if (need.has("site-plan") && !has("site-plan")) missing.push("no site plan");

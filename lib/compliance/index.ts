@@ -15,7 +15,7 @@ import { CHECK_STATUSES, type CheckResult, type CheckRun, type CheckRunOptions, 
 
 export type { CheckInput, CheckResult, CheckRun, CheckRunOptions, CheckStatus, CheckValue, Remedy, RemedyChange } from "./types";
 export { CHECK_STATUSES } from "./types";
-export { loadSummary, type LoadSummary } from "./load-summary";
+export { loadDailyWh, loadEnergyFormula, loadSummary, type LoadSummary } from "./load-summary";
 export { CHECKS } from "./registry";
 
 export function runChecks(record: ProjectRecord, options: CheckRunOptions = {}): CheckRun {

@@ -3,7 +3,7 @@ import type { ProjectRecord } from "../schemas/project-record";
 import { batteryKWh, isInverter } from "../schemas/vocabulary";
 
 export interface LoadSummary {
-  /** Σ watts × quantity × hours per day, Wh. */
+  /** Σ watts × quantity × hours per day × duty × days a week ÷ 7, Wh. */
   dailyLoadWh: number;
   /** Inverter idle draw over 24 h, Wh (0 where no idle figure is recorded). */
   idleWh: number;
@@ -30,13 +30,33 @@ export interface LoadSummary {
   inverterEfficiencyMissing: string[];
 }
 
+/**
+ * A load's average daily energy, Wh: watts × quantity × hours a day × duty × days a week ÷ 7, the load
+ * worksheet of stand-alone design practice, where a load used some days a week is averaged over the week.
+ */
+export function loadDailyWh(load: ProjectRecord["loads"][number]): number {
+  const duty = (load.dutyPct ?? 100) / 100;
+  const week = (load.daysPerWeek ?? 7) / 7;
+  return load.watts * load.quantity * load.hoursPerDay * duty * week;
+}
+
+/** The load's energy in words, for a reader following the figure: "150 W × 24 h × 33 % duty". */
+export function loadEnergyFormula(load: ProjectRecord["loads"][number]): string {
+  const parts = [`${load.watts} W`];
+  if (load.quantity > 1) parts.push(`${load.quantity}`);
+  parts.push(`${load.hoursPerDay} h`);
+  if (load.dutyPct !== undefined && load.dutyPct !== 100) parts.push(`${load.dutyPct} % duty`);
+  const formula = parts.join(" × ");
+  return load.daysPerWeek !== undefined && load.daysPerWeek !== 7 ? `${formula} × ${load.daysPerWeek}/7 days` : formula;
+}
+
 export function loadSummary(record: ProjectRecord): LoadSummary {
   let dailyLoadWh = 0;
   let peakSimultaneousW = 0;
   let largestSurgeW = 0;
   let largestSingleLoadW = 0;
   const perLoad = record.loads.map((l) => {
-    const dailyWh = l.watts * l.quantity * l.hoursPerDay;
+    const dailyWh = loadDailyWh(l);
     dailyLoadWh += dailyWh;
     if (l.simultaneous) peakSimultaneousW += l.watts * l.quantity;
     largestSurgeW = Math.max(largestSurgeW, l.surgeW ?? l.watts);

@@ -9,6 +9,8 @@ import { conductorAmpacityCheck } from "./checks/conductor-ampacity";
 import { deviceRatings } from "./checks/device-ratings";
 import { disconnects } from "./checks/disconnects";
 import { grounding } from "./checks/grounding";
+import { generatorDisconnects } from "./checks/generator-disconnects";
+import { groundingElectrode } from "./checks/grounding-electrode";
 import { inverterCapacity } from "./checks/inverter-capacity";
 import { labelsRequired } from "./checks/labels-required";
 import { maxPvVoltage } from "./checks/max-pv-voltage";
@@ -18,6 +20,7 @@ import { panelBusbar } from "./checks/panel-busbar";
 import { pvArcFault } from "./checks/pv-arc-fault";
 import { pvGrounding } from "./checks/pv-grounding";
 import { rapidShutdown } from "./checks/rapid-shutdown";
+import { standAloneOutput } from "./checks/stand-alone-output";
 import { standAloneSizing } from "./checks/stand-alone-sizing";
 import { standAloneSupply } from "./checks/stand-alone-supply";
 import { storageSiting } from "./checks/storage-siting";
@@ -33,6 +36,7 @@ export const CHECKS: readonly CheckDefinition[] = [
   overcurrentProtection,
   disconnects,
   grounding,
+  groundingElectrode,
   voltageDrop,
   batteryTerminals,
   inverterCapacity,
@@ -40,6 +44,8 @@ export const CHECKS: readonly CheckDefinition[] = [
   labelsRequired,
   storageSiting,
   standAloneSupply,
+  standAloneOutput,
+  generatorDisconnects,
   rapidShutdown,
   pvArcFault,
   pvGrounding,

@@ -177,6 +177,11 @@ export const inverterSchema = z.object({
   /** Listed to detect PV array ground faults and isolate the faulted circuits (690.41(B)); unset when not known. */
   providesPvGroundFaultProtection: z.boolean().optional(),
   listedMode: z.enum(["stand-alone", "multimode", "interactive"]).optional(),
+  /**
+   * The unit bonds its AC neutral to its equipment ground (a bonding jumper, or a bonding relay, in place). The
+   * system has exactly one such bond (250.30, 250.6); unset when not known.
+   */
+  neutralBonded: z.boolean().optional(),
 });
 
 export const batterySchema = z.object({
@@ -196,6 +201,8 @@ export const batterySchema = z.object({
   largeScaleFireTested: z.boolean().default(false),
 });
 
+export const GENERATOR_INSTALLATIONS = ["portable", "stationary"] as const;
+
 export const generatorSchema = z.object({
   ...equipmentBase,
   kind: z.literal("generator"),
@@ -207,6 +214,18 @@ export const generatorSchema = z.object({
   fuel: z.enum(["gasoline", "diesel", "propane", "natural-gas", "other"]).optional(),
   hasOutputDisconnect: z.boolean().default(false),
   outputBreakerA: numberIn(1, 2000, "A").optional(),
+  /**
+   * Portable (cord-and-plug connected, listed to UL 2201) or stationary (permanently installed, UL 2200). Empty takes
+   * it from the listing.
+   */
+  installation: z.enum(GENERATOR_INSTALLATIONS).optional(),
+  /** A portable generator connects through a power inlet by cord and plug (the plug then disconnects it, 445.18(A)). */
+  connectedByInlet: z.boolean().optional(),
+  /**
+   * The unit bonds its AC neutral to its equipment ground (a bonding jumper, or a bonding relay, in place). The
+   * system has exactly one such bond (250.30, 250.6); unset when not known.
+   */
+  neutralBonded: z.boolean().optional(),
 });
 
 export const protectiveDeviceSchema = z.object({
@@ -223,6 +242,12 @@ export const protectiveDeviceSchema = z.object({
    * short-circuit current, read from the device's time-current curve; the storage disconnect label carries it.
    */
   clearingTimeMs: numberIn(0.1, 100000, "ms").optional(),
+  /** How a breaker mounts in its panel: plug-in breakers that are back-fed need a hold-down fastener (408.36(D)). */
+  breakerMounting: z.enum(["plug-in", "bolt-on"]).optional(),
+  /** Secured by an additional fastener that takes more than a pull to release (a listed hold-down kit). */
+  hasHoldDown: z.boolean().optional(),
+  /** The equipment the device stands at, within sight of it (a generator's own disconnect, 445.18). */
+  locatedAtTag: tagSchema.optional(),
   /** A device listed for PV ground-fault protection (690.41(B)), e.g. a ground-fault breaker on the PV circuits. */
   providesPvGroundFaultProtection: z.boolean().optional(),
 });
@@ -245,6 +270,8 @@ export const panelSchema = z.object({
   neutralBusRatingA: numberIn(1, 5000, "A").optional(),
   /** Sum of the ratings of all breakers on the bus, for the sum-of-breakers rule. */
   sumOfBreakersA: numberIn(0, 20000, "A").optional(),
+  /** The main bonding jumper joins neutral and ground in this panel. */
+  neutralBonded: z.boolean().optional(),
 });
 
 export const equipmentSchema = z.discriminatedUnion("kind", [
@@ -386,6 +413,13 @@ export const circuitSchema = z
     disconnectTags: z.array(tagSchema).default([]),
     egcSize: conductorSizeSchema.optional(),
     egcMaterial: z.enum(["cu", "al"]).default("cu"),
+    /**
+     * An AC circuit that leaves the structure its source stands in and enters another building (a generator shed's
+     * feeder to the house): that building needs its own disconnect where the feeder enters (225.31, 225.32).
+     */
+    feedsOtherBuilding: z.boolean().optional(),
+    /** The disconnect (or panel with its main) where the circuit enters the other building. */
+    buildingDisconnectTag: tagSchema.optional(),
   })
   .refine((c) => c.fromTag !== c.toTag, {
     message: "a circuit cannot run from a device to itself",
@@ -403,6 +437,7 @@ export const GROUNDING_ELECTRODE_KINDS = [
   "plate",
   "existing-building-system",
 ] as const;
+export type GroundingElectrodeKind = (typeof GROUNDING_ELECTRODE_KINDS)[number];
 
 /**
  * The grounding electrode system, its conductor, and where the one
@@ -422,6 +457,13 @@ export const loadSchema = z.object({
   watts: numberIn(0, 100000, "W"),
   quantity: integerIn(1, 1000).default(1),
   hoursPerDay: numberIn(0, 24, "h"),
+  /**
+   * Share of those hours it draws its rated power, for a load that cycles (a refrigerator's compressor runs
+   * about a third of the time); empty is 100 %.
+   */
+  dutyPct: numberIn(1, 100, "%").optional(),
+  /** Days a week it runs, for a load not used every day; the week's energy is averaged per day. Empty is 7. */
+  daysPerWeek: integerIn(1, 7, "days").optional(),
   surgeW: numberIn(0, 300000, "W").optional(),
   voltageV: z.union([z.literal(120), z.literal(240)]).default(120),
   /** Runs at the same time as the others (for the peak simultaneous power). */
@@ -492,6 +534,8 @@ const PV_CIRCUIT_KINDS: readonly string[] = ["pv-source", "pv-output"];
 const PV_FED_KINDS: readonly string[] = ["charge-controller", ...INVERTER_KINDS];
 const OCPD_KINDS: readonly string[] = ["fuse", "breaker"];
 const DISCONNECT_KINDS: readonly string[] = ["disconnect", "breaker", "fuse"];
+const BOND_KINDS: readonly string[] = [...INVERTER_KINDS, "generator", "ac-panel"];
+const BUILDING_DISCONNECT_KINDS: readonly string[] = ["disconnect", "breaker", "ac-panel"];
 
 /**
  * Refuses references that point at nothing or at the wrong kind of thing, so
@@ -607,9 +651,29 @@ function checkReferences(record: RecordShape, ctx: z.RefinementCtx): void {
   });
 
   const bondTag = record.grounding.neutralGroundBondTag;
-  if (bondTag !== undefined && !equipmentByTag.has(bondTag)) {
-    ctx.addIssue({ code: "custom", path: ["grounding", "neutralGroundBondTag"], message: `names no equipment: "${bondTag}"` });
+  if (bondTag !== undefined) {
+    const e = equipmentByTag.get(bondTag);
+    if (!e) ctx.addIssue({ code: "custom", path: ["grounding", "neutralGroundBondTag"], message: `names no equipment: "${bondTag}"` });
+    else if (!BOND_KINDS.includes(e.kind)) {
+      ctx.addIssue({ code: "custom", path: ["grounding", "neutralGroundBondTag"], message: `"${bondTag}" is a ${e.kind}; the bond is made in an inverter, generator or AC panel` });
+    }
   }
+  record.equipment.forEach((e, i) => {
+    if ((e.kind === "disconnect" || e.kind === "breaker" || e.kind === "fuse") && e.locatedAtTag !== undefined && !equipmentByTag.has(e.locatedAtTag)) {
+      ctx.addIssue({ code: "custom", path: ["equipment", i, "locatedAtTag"], message: `names no equipment: "${e.locatedAtTag}"` });
+    }
+  });
+  record.circuits.forEach((c, i) => {
+    if (c.buildingDisconnectTag === undefined) return;
+    const e = equipmentByTag.get(c.buildingDisconnectTag);
+    if (!e || !BUILDING_DISCONNECT_KINDS.includes(e.kind)) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["circuits", i, "buildingDisconnectTag"],
+        message: e ? `"${c.buildingDisconnectTag}" is a ${e.kind}, not a disconnect, breaker or AC panel` : `names no equipment: "${c.buildingDisconnectTag}"`,
+      });
+    }
+  });
 
   record.attachments.forEach((a, i) => {
     if (a.equipmentTag !== undefined && !equipmentByTag.has(a.equipmentTag)) {

@@ -11,6 +11,8 @@ export interface KindRule {
   accepts: readonly AcceptedMimeType[];
   /** Datasheets document one piece of project equipment; the submittal check counts them per tag. */
   equipment: "required" | "optional";
+  /** The equipment kinds it may be linked to, where only some make sense (a storage listing is a battery's). */
+  equipmentKinds?: readonly string[];
   hint: string;
 }
 
@@ -25,7 +27,7 @@ const PDF_OR_IMAGE = ["application/pdf", "image/png", "image/jpeg"] as const;
 export const KIND_RULES: Record<AttachmentKind, KindRule> = {
   datasheet: { label: "Datasheet", accepts: PDF, equipment: "required", hint: "Manufacturer's datasheet, PDF, for one equipment tag" },
   "site-plan": { label: "Site plan", accepts: PDF_OR_IMAGE, equipment: "optional", hint: "Drawing as PDF, or a PNG/JPEG image" },
-  "storage-listing": { label: "Storage listing", accepts: PDF, equipment: "optional", hint: "Listing or certificate for the batteries, PDF" },
+  "storage-listing": { label: "Storage listing", accepts: PDF, equipment: "required", equipmentKinds: ["battery"], hint: "Listing or certificate of one battery, PDF" },
   "structural-letter": { label: "Structural letter", accepts: PDF, equipment: "optional", hint: "Engineer's letter, PDF" },
   "attachment-detail": { label: "Footing or attachment detail", accepts: PDF, equipment: "optional", hint: "Footing, pier or roof attachment drawing, PDF" },
   photo: { label: "Photo", accepts: IMAGES, equipment: "optional", hint: "PNG or JPEG, e.g. a nameplate or a placed label" },
@@ -57,3 +59,4 @@ export function describeAccepted(kind: AttachmentKind): string {
   if (pdf && images) return "a PDF, PNG or JPEG file";
   return pdf ? "a PDF" : "a PNG or JPEG image";
 }
+

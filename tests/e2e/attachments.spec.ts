@@ -23,7 +23,9 @@ test("a designer attaches a datasheet for an equipment tag through the uploader,
   await expect(page).toHaveURL(new RegExp(`/projects/${id}/attachments$`));
 
   const checklist = page.getByRole("region", { name: /Documents .* asks for/ });
-  const batteryItem = checklist.getByRole("listitem").filter({ hasText: "BAT-1" });
+  const batteryItem = checklist.getByRole("listitem").filter({ hasText: "BAT-1" }).filter({ hasText: "Datasheet" });
+  // The storage listing is asked for per battery.
+  await expect(checklist.getByRole("listitem").filter({ hasText: "Storage listing" }).filter({ hasText: "BAT-1" })).toContainText("Missing");
   await expect(batteryItem).toContainText("Missing");
 
   await expect(page.getByLabel("Kind")).toHaveValue("datasheet");
@@ -43,6 +45,15 @@ test("a designer attaches a datasheet for an equipment tag through the uploader,
     await expect(row.getByRole("combobox", { name: `Equipment for ${fileName}` })).toHaveValue("BAT-1");
     await expect(row.getByRole("cell").nth(3)).toHaveText("3");
     await expect(batteryItem).toContainText("Attached");
+    // The equipment choice moves on to the next tag without a datasheet rather than keeping BAT-1.
+    const equipmentField = page.getByLabel("Equipment (required)");
+    await expect(equipmentField).not.toHaveValue("BAT-1");
+    await expect(equipmentField).not.toHaveValue("");
+    // A storage listing is linked to a battery: only batteries are offered, and the first is chosen.
+    await page.getByLabel("Kind").selectOption("storage-listing");
+    await expect(equipmentField).toHaveValue("BAT-1");
+    expect((await equipmentField.locator("option").allTextContents()).every((o) => o.startsWith("BAT-"))).toBe(true);
+    await page.getByLabel("Kind").selectOption("datasheet");
 
     const download = await page.request.get(downloadUrl!);
     expect(download.headers()["content-type"]).toBe("application/pdf");

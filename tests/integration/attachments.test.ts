@@ -96,11 +96,23 @@ describe("upload", () => {
 
   it("attaches the same bytes to another project as a new row sharing the stored file", async () => {
     const bytes = await makePdf(1, "Shared listing");
-    const a = await uploadAttachment(designer, { projectId: projectWithEquipment().id, kind: "storage-listing", fileName: "listing.pdf", bytes });
-    const b = await uploadAttachment(designer, { projectId: projectWithEquipment().id, kind: "storage-listing", fileName: "listing.pdf", bytes });
+    const a = await uploadAttachment(designer, { projectId: projectWithEquipment().id, kind: "storage-listing", equipmentTag: "BAT-1", fileName: "listing.pdf", bytes });
+    const b = await uploadAttachment(designer, { projectId: projectWithEquipment().id, kind: "storage-listing", equipmentTag: "BAT-1", fileName: "listing.pdf", bytes });
     expect(b.duplicate).toBe(false);
     expect(b.attachment.id).not.toBe(a.attachment.id);
     expect(b.attachment.sha256).toBe(a.attachment.sha256);
+  });
+
+  it("links a storage listing to a battery only, and refuses it unlinked or on other equipment, attaching nothing", async () => {
+    const project = projectWithEquipment();
+    const bytes = await makePdf(1, "Battery listing");
+    const unlinked = await caught(uploadAttachment(designer, { projectId: project.id, kind: "storage-listing", fileName: "l.pdf", bytes }));
+    expect(unlinked.issues).toEqual([{ path: "equipmentTag", message: "is required for a storage listing" }]);
+    const onInverter = await caught(uploadAttachment(designer, { projectId: project.id, kind: "storage-listing", equipmentTag: "INV-1", fileName: "l.pdf", bytes }));
+    expect(onInverter.message).toBe("A storage listing is linked to a battery; INV-1 is an inverter.");
+    expect(listProjectAttachments(designer, project.id)).toHaveLength(0);
+    const ok = await uploadAttachment(designer, { projectId: project.id, kind: "storage-listing", equipmentTag: "BAT-1", fileName: "l.pdf", bytes });
+    expect(ok.attachment.equipmentTag).toBe("BAT-1");
   });
 
   it("requires an equipment tag of the project for a datasheet", async () => {

@@ -48,8 +48,9 @@ describe("the documents a packet carries", () => {
     ]);
   });
 
-  it("counts a listing filed without a tag for every battery, and asks for nothing the jurisdiction does not require", () => {
-    const missing = missingDocuments(record, [doc("storage-listing", null), doc("datasheet", "INV-1")], ["equipment-datasheets", "storage-listing"]);
+  it("counts a listing only for the battery it is linked to, and asks for nothing the jurisdiction does not require", () => {
+    expect(missingDocuments(record, [doc("storage-listing", null)], ["storage-listing"])).toContain("no storage listing for BAT-1");
+    const missing = missingDocuments(record, [doc("storage-listing", "BAT-1"), doc("datasheet", "INV-1")], ["equipment-datasheets", "storage-listing"]);
     expect(missing).not.toContain("no storage listing for BAT-1");
     expect(missing).not.toContain("no datasheet for INV-1");
     expect(missing).not.toContain("no site plan");

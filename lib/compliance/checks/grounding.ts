@@ -4,7 +4,7 @@
  * (for an unprotected PV circuit, the device 690.9(B) would call for).
  */
 import { compareConductorSize, minimumEgcSize, nextStandardOcpdRatingA } from "../tables";
-import { isDcCircuit, isPvCircuit, sizeLabel, Trace, v, type CheckContext, isProtective } from "../context";
+import { isPvCircuit, sizeLabel, Trace, v, type CheckContext, isProtective } from "../context";
 import { circuitCurrent } from "../derive/circuit-current";
 import { remedy } from "../derive/remedy";
 import { refs } from "../refs";
@@ -80,17 +80,6 @@ export const grounding: CheckDefinition = {
           formula: `Table 250.122 at ${ocpdA} A, ${c.egcMaterial} → ${table}${required !== table ? `, limited to the circuit conductor ${required} (250.122(A))` : ""}`,
           inputs: t.inputs,
           codeRefs,
-        }),
-      );
-    }
-    if (ctx.circuits.some((c) => isDcCircuit(c.item))) {
-      out.push(
-        makeResult(this, {
-          subject: "dc-gec",
-          status: "attest",
-          message: "Size the DC grounding electrode conductor and its bonding to the AC system per 250.166 and confirm it on site.",
-          reason: "the grounding electrode system is not recorded, so a person confirms it",
-          codeRefs: refs(ed, "dc-gec"),
         }),
       );
     }

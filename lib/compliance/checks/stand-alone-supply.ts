@@ -8,6 +8,7 @@
 import { isInverter, round, Trace, v, type CheckContext, type EquipmentOf } from "../context";
 import { loadSummary } from "../load-summary";
 import { remedy } from "../derive/remedy";
+import { sourceRatings } from "../derive/sources";
 import { singleSupplyPanels } from "../derive/single-supply";
 import { refs } from "../refs";
 import { makeResult, needsInput, worst, type CheckDefinition } from "../result";
@@ -25,37 +26,6 @@ function feeds120240Panel(ctx: CheckContext, inverterTag: string): boolean {
     const other = ctx.equipment.get(c.item.fromTag === inverterTag ? c.item.toTag : c.item.fromTag)?.item;
     return other?.kind === "ac-panel" && other.voltage === "120/240";
   });
-}
-
-/**
- * Output rating of every stand-alone source landing on a panel: an inverter's maximum continuous output current
- * (else its continuous watts at 120 V), a generator's nameplate current; times the quantity. Undefined while a
- * rating is missing (named in the trace).
- */
-function sourceRatings(ctx: CheckContext, panelTag: string, t: Trace): { tag: string; currentA: number }[] | undefined {
-  const out: { tag: string; currentA: number }[] = [];
-  let complete = true;
-  for (const c of ctx.circuitsByEndpoint.get(panelTag) ?? []) {
-    if (c.item.kind !== "inverter-ac-output" && c.item.kind !== "generator-output") continue;
-    const src = ctx.equipment.get(c.item.fromTag === panelTag ? c.item.toTag : c.item.fromTag);
-    if (!src) continue;
-    const e = src.item;
-    if (isInverter(e)) {
-      const plate = t.read(`${src.path}.maxAcOutputCurrentA`, `Maximum AC output current of ${e.tag}`, e.maxAcOutputCurrentA, "A");
-      const w = plate === undefined ? t.read(`${src.path}.continuousW`, `Continuous output of ${e.tag}`, e.continuousW, "W") : undefined;
-      const currentA = plate ?? (w !== undefined ? w / 120 : undefined);
-      if (currentA === undefined) {
-        t.need(`${src.path}.maxAcOutputCurrentA`, `Maximum AC output current of ${e.tag}`, undefined, "A");
-        complete = false;
-      } else out.push({ tag: e.tag, currentA: currentA * e.quantity });
-    } else if (e.kind === "generator") {
-      const kw = t.need(`${src.path}.ratedKW`, `Rating of ${e.tag}`, e.ratedKW, "kW");
-      const volts = t.need(`${src.path}.voltageV`, `Voltage of ${e.tag}`, e.voltageV, "V");
-      if (kw === undefined || volts === undefined) complete = false;
-      else out.push({ tag: e.tag, currentA: ((kw * 1000) / volts) * e.quantity });
-    }
-  }
-  return complete ? out : undefined;
 }
 
 export const standAloneSupply: CheckDefinition = {

@@ -172,6 +172,8 @@ export const storageSiting: CheckDefinition = {
  */
 function outsideDwelling(def: CheckDefinition, ctx: CheckContext, t: Trace, bats: Indexed<Battery>[]): CheckResult {
   const thresholdRefs = FIRE_CODE_THRESHOLD_REFS[ctx.edition];
+  // Where the batteries stand is asked of every design with storage: the packet's site plan and the fire code's room limits start from it.
+  t.need("site.batteryLocation", "Battery location", ctx.record.site.batteryLocation);
   const byGroup = new Map<FireCodeChemistryGroup, number>();
   for (const b of bats) {
     const kwh = unitKWh(b, t);

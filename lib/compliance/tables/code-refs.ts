@@ -63,6 +63,20 @@ export type CodeTopic =
   | "string-fuse"
   | "ess-ocpd"
   | "pv-arc-fault"
+  | "ac-gec-table"
+  | "electrode-system"
+  | "pv-electrode"
+  | "system-bonding"
+  | "objectionable-current"
+  | "generator-bonding"
+  | "stand-alone-output"
+  | "feeder-conductors"
+  | "backfed-breaker"
+  | "backfed-holddown"
+  | "interactive-backfed"
+  | "generator-disconnect-means"
+  | "building-disconnect"
+  | "building-disconnect-location"
   | "pv-grounding-configuration"
   | "pv-ground-fault";
 
@@ -154,6 +168,34 @@ export const CODE_REFS: Readonly<Record<CodeTopic, ByEdition>> = {
   "ess-ocpd": { "2017": "706.21", "2020": "706.31", "2023": "706.31" },
   // 690.11 DC arc-fault circuit protection: the same number since 2011 (from memory).
   "pv-arc-fault": same("690.11"),
+  // GEC for AC systems by the largest supply conductor; the same table in all three editions (from memory).
+  "ac-gec-table": same("Table 250.66"),
+  // The grounding electrode system of a building: every electrode present bonded together (from memory).
+  "electrode-system": same("250.50"),
+  // Buildings supporting PV: a grounding electrode system per Part III of Article 250 (from memory, all three editions).
+  "pv-electrode": same("690.47"),
+  // System bonding jumper of a separately derived system: at one point, source to first disconnect (from memory).
+  "system-bonding": same("250.30(A)(1)"),
+  // Objectionable current on grounding paths from a second neutral-to-ground bond (from memory).
+  "objectionable-current": same("250.6"),
+  // Permanently installed generators' bonding (added in 2014; from memory, the same number since).
+  "generator-bonding": same("250.35"),
+  // Conductors between stand-alone sources and the building disconnect: the sum of the sources' output (from memory).
+  "stand-alone-output": same("710.15(B)"),
+  // Feeders: 125 % of the continuous load (from memory, all three editions).
+  "feeder-conductors": same("215.2(A)(1)"),
+  // Back-fed breakers on a stand-alone inverter's output: 690.10(E) until 2014, 710.15(E) from 2017 (from memory).
+  "backfed-breaker": same("710.15(E)"),
+  // Plug-in back-fed devices secured by an additional fastener (confirmed: the section's text as quoted in trade forums).
+  "backfed-holddown": same("408.36(D)"),
+  // Breakers back-fed from listed interactive inverters may omit the fastener: 705.12(D)(5) in 2017, 705.12(E) from 2020 (from memory).
+  "interactive-backfed": { "2017": "705.12(D)(5)", "2020": "705.12(E)", "2023": "705.12(E)" },
+  // A generator's disconnecting means: cord-and-plug-connected portable generators excepted (from memory).
+  "generator-disconnect-means": same("445.18(A)"),
+  // A building supplied by a feeder from another structure has its own disconnect; 2020 folded the location rule of
+  // 225.32 into 225.31(B) (from memory).
+  "building-disconnect": { "2017": "225.31", "2020": "225.31(A)", "2023": "225.31(A)" },
+  "building-disconnect-location": { "2017": "225.32", "2020": "225.31(B)", "2023": "225.31(B)" },
   // 690.41(A) system grounding configurations and 690.41(B) DC ground-fault protection: rewritten in 2017 and kept
   // under the same numbers in 2020 and 2023 (2017 text from a published change analysis; 2020/2023 from memory).
   "pv-grounding-configuration": same("690.41(A)"),

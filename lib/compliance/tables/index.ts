@@ -57,6 +57,7 @@ export {
   type ConductorProperties,
 } from "./conductor-properties";
 export { EGC_TABLE_250_122, minimumEgcSize, type EgcRow } from "./egc-250-122";
+export { GEC_TABLE_250_66, acGecSize, dcGecSize, equivalentCmil, gecCapFor } from "./gec";
 export { CODE_REFS, CODE_TOPICS, codeRef, type CodeTopic } from "./code-refs";
 export { CITATIONS, isMappedCitation, type CitationEntry } from "./citations";
 export {

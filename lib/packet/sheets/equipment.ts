@@ -1,4 +1,5 @@
 import { DATASHEET_KINDS as DATASHEET_KIND_LIST } from "../../compliance/documents";
+import { loadDailyWh } from "../../compliance/load-summary";
 import type { Equipment } from "../../schemas/project-record";
 import { dash, formatNumber } from "../format";
 import type { Block, Cell } from "../markup";
@@ -89,8 +90,8 @@ export function equipmentBlocks(input: PacketInput, datasheets: PacketDatasheet[
           l.name,
           `${formatNumber(l.watts)} W`,
           String(l.quantity),
-          `${formatNumber(l.hoursPerDay)} h`,
-          `${formatNumber(l.watts * l.quantity * l.hoursPerDay)} Wh`,
+          `${formatNumber(l.hoursPerDay)} h${l.dutyPct !== undefined && l.dutyPct !== 100 ? ` × ${formatNumber(l.dutyPct)} %` : ""}${l.daysPerWeek !== undefined && l.daysPerWeek !== 7 ? `, ${l.daysPerWeek} d/wk` : ""}`,
+          `${formatNumber(loadDailyWh(l))} Wh`,
           dash(l.surgeW, "W"),
           `${l.voltageV} V`,
           l.simultaneous ? "yes" : "no",

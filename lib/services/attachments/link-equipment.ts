@@ -1,4 +1,5 @@
 import "server-only";
+import { refuseWrongEquipmentKind } from "./equipment-kind";
 import { and, eq } from "drizzle-orm";
 import { attachments, projectEquipment } from "../../../db/schema";
 import { tagSchema } from "../../schemas/fields";
@@ -24,15 +25,16 @@ export function linkAttachmentToEquipment(ctx: ServiceContext, id: string, equip
     if (!parsed.success) throw invalid("The equipment tag is not valid.", [{ path: "equipmentTag", message: parsed.error.issues[0]?.message ?? "is not valid" }]);
     if (!row.projectId) throw invalid("Only a project's attachment can be linked to one of its equipment tags.");
     const equipment = ctx.db
-      .select({ tag: projectEquipment.tag, libraryItemId: projectEquipment.libraryItemId })
+      .select({ tag: projectEquipment.tag, kind: projectEquipment.kind, libraryItemId: projectEquipment.libraryItemId })
       .from(projectEquipment)
       .where(and(eq(projectEquipment.projectId, row.projectId), eq(projectEquipment.tag, parsed.data)))
       .get();
     if (!equipment) throw invalid(`This project has no equipment tagged ${parsed.data}.`, [{ path: "equipmentTag", message: "names no equipment of this project" }]);
+    refuseWrongEquipmentKind(row.kind, equipment);
     tag = equipment.tag;
     libraryItemId = equipment.libraryItemId;
   } else if (rule.equipment === "required") {
-    throw invalid(`A ${rule.label.toLowerCase()} documents one piece of equipment: it keeps a tag.`, [{ path: "equipmentTag", message: "is required for a datasheet" }]);
+    throw invalid(`A ${rule.label.toLowerCase()} documents one piece of equipment: it keeps a tag.`, [{ path: "equipmentTag", message: `is required for a ${rule.label.toLowerCase()}` }]);
   }
 
   const updated = ctx.db.transaction((tx) => {

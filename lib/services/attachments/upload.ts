@@ -9,6 +9,7 @@ import { formatIssues, tagSchema } from "../../schemas/fields";
 import { fileStore } from "../../storage";
 import { inspectUpload } from "../../uploads/inspect";
 import { KIND_RULES, kindsForRoles, type AttachmentKind } from "../../uploads/kinds";
+import { refuseWrongEquipmentKind } from "./equipment-kind";
 import { UploadRefusedError } from "../../uploads/refusal";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { forbidden, invalid } from "../errors";
@@ -119,13 +120,13 @@ function resolveEquipment(ctx: ServiceContext, projectId: string, kind: Attachme
   if (!equipmentTag) {
     if (rule.equipment === "required") {
       throw invalid(`A ${rule.label.toLowerCase()} documents one piece of equipment: choose its tag.`, [
-        { path: "equipmentTag", message: "is required for a datasheet" },
+        { path: "equipmentTag", message: `is required for a ${rule.label.toLowerCase()}` },
       ]);
     }
     return null;
   }
   const rows = ctx.db
-    .select({ tag: projectEquipment.tag, libraryItemId: projectEquipment.libraryItemId })
+    .select({ tag: projectEquipment.tag, kind: projectEquipment.kind, libraryItemId: projectEquipment.libraryItemId })
     .from(projectEquipment)
     .where(eq(projectEquipment.projectId, projectId))
     .all();
@@ -136,7 +137,8 @@ function resolveEquipment(ctx: ServiceContext, projectId: string, kind: Attachme
       { path: "equipmentTag", message: known ? `names no equipment of this project (it has ${known})` : "names no equipment: the project has none yet" },
     ]);
   }
-  return match;
+  refuseWrongEquipmentKind(kind, match);
+  return { tag: match.tag, libraryItemId: match.libraryItemId };
 }
 
 function findDuplicate(ctx: ServiceContext, projectId: string, sha256: string): Attachment | undefined {

@@ -111,6 +111,8 @@ export function rowsToRecord(rows: ProjectRows): ProjectRecordInput {
         watts: l.watts,
         quantity: l.quantity,
         hoursPerDay: l.hoursPerDay,
+        dutyPct: nullToUndefined(l.dutyPct),
+        daysPerWeek: nullToUndefined(l.daysPerWeek),
         surgeW: nullToUndefined(l.surgeW),
         voltageV: l.voltageV as 120 | 240,
         simultaneous: l.simultaneous,
@@ -136,7 +138,7 @@ type Parsed = {
   equipment: Array<{ tag: string; kind: string; quantity: number; libraryItemId?: string } & Record<string, unknown>>;
   arrays: Array<{ tag: string; moduleTag: string; modulesInSeries: number; stringsInParallel: number; feedsTag: string; mpptInputId?: string }>;
   circuits: Array<{ tag: string; fromTag: string; toTag: string; kind: string } & Record<string, unknown>>;
-  loads: Array<{ name: string; watts: number; quantity: number; hoursPerDay: number; surgeW?: number; voltageV: number; simultaneous: boolean }>;
+  loads: Array<{ name: string; watts: number; quantity: number; hoursPerDay: number; dutyPct?: number; daysPerWeek?: number; surgeW?: number; voltageV: number; simultaneous: boolean }>;
 } & Record<string, unknown>;
 
 /** Splits a validated record into the project columns and child rows (without ids). */
@@ -174,6 +176,6 @@ export function recordToRows(record: Parsed) {
       const { tag, fromTag, toTag, kind, ...data } = c;
       return { tag, fromTag, toTag, kind, position, data };
     }),
-    loads: record.loads.map((l, position) => ({ ...l, surgeW: l.surgeW ?? null, position })),
+    loads: record.loads.map((l, position) => ({ ...l, surgeW: l.surgeW ?? null, dutyPct: l.dutyPct ?? null, daysPerWeek: l.daysPerWeek ?? null, position })),
   };
 }

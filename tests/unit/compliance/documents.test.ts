@@ -37,10 +37,14 @@ describe("missing documents say the same in the check, the preflight and the pac
     expect(preflightMissing(ground, [], ["structural-letter"])).toEqual([]);
   });
 
-  it("names each battery without its listing, unless one untagged listing covers them all", () => {
+  it("names each battery without its listing; a listing counts only when linked to that battery", () => {
     const record = example("ferncliff-farmhouse.json");
     const batteries = record.equipment.filter((e) => e.kind === "battery").map((e) => `no storage listing for ${e.tag}`);
+    expect(batteries.length).toBeGreaterThan(0);
     expect(preflightMissing(record, [], ["storage-listing"])).toEqual(batteries);
-    expect(preflightMissing(record, [{ kind: "storage-listing", equipmentTag: null } as never], ["storage-listing"])).toEqual([]);
+    // Filed against nothing, or against the inverter, it shows no reviewer which battery is listed.
+    expect(preflightMissing(record, [{ kind: "storage-listing", equipmentTag: null } as never], ["storage-listing"])).toEqual(batteries);
+    expect(preflightMissing(record, [{ kind: "storage-listing", equipmentTag: "INV-1" } as never], ["storage-listing"])).toEqual(batteries);
+    expect(preflightMissing(record, [{ kind: "storage-listing", equipmentTag: "BAT-1" } as never], ["storage-listing"])).toEqual([]);
   });
 });

@@ -105,10 +105,12 @@ describe("the seeded hut packet is legible at print scale", () => {
     const sheet = pdf.sheetPages.find((s) => s.sheet === "E-007")!;
     expect(sheet.title).toBe("Grounding and bonding");
     const text = runs.filter((r) => r.page >= sheet.firstPage && r.page < sheet.firstPage + sheet.pageCount).map((r) => r.str).join(" ");
-    // The hut's record names no electrodes, GEC or bond location: the sheet names the field that clears each, as the form labels it.
-    expect(text).toContain("NOT GIVEN: Grounding electrodes (Grounding section of the design)");
-    expect(text).toContain("NOT GIVEN: Neutral-to-ground bond at (Grounding section of the design)");
-    expect(text).not.toMatch(/record field|grounding\.electrodes/);
+    // The hut's record names its rod, a 6 AWG copper GEC and the one bond in P-1; the sheet prints them in words.
+    expect(text).toContain("Ground rod");
+    expect(text).toContain("6 AWG Cu");
+    expect(text).toContain("at P-1");
+    expect(text).toContain("BONDED TO GROUND HERE");
+    expect(text).not.toMatch(/NOT GIVEN: (Grounding electrodes|Neutral-to-ground bond)|record field|grounding\.electrodes/);
     expect(text).toContain("THREE-LINE DETAIL: INV-1 (120 V) FEEDING P-1 (120/240 V)");
     expect(text).toContain("L1–L2 JUMPER");
     expect(text).toContain("EQUIPMENT GROUNDING CONDUCTORS");

@@ -11,7 +11,7 @@ import { RATING_FIELDS } from "../../../components/workspace/equipment-fields";
 import type { GridColumn } from "../../../components/workspace/editable-grid";
 import { formatValue, parseInput, type FieldType, type Option } from "../../../components/workspace/field-values";
 import { arrayColumns, circuitColumns, LOAD_COLUMNS } from "../../../components/workspace/row-sections";
-import { PROJECT_FIELDS, SITE_FIELDS } from "../../../components/workspace/site-section";
+import { GROUNDING_FIELDS, PROJECT_FIELDS, SITE_FIELDS } from "../../../components/workspace/site-section";
 import { tagLists, type Row } from "../../../components/workspace/use-record-tags";
 import { parseProjectFile, runChecks } from "../../../lib/compliance";
 import type { EquipmentKind, ProjectRecord } from "../../../lib/schemas/project-record";
@@ -62,6 +62,7 @@ function entered(record: ProjectRecord): unknown {
   return {
     ...project,
     site: rowThrough(record.site, site, "site"),
+    grounding: rowThrough(record.grounding, new Map(GROUNDING_FIELDS.map((f) => [f.path.replace(/^grounding\./, ""), f])), "grounding"),
     jurisdiction: record.jurisdiction,
     equipment: record.equipment.map((e, i) => {
       const controls = new Map<string, Control>([...byKey(EQUIPMENT_COLUMNS), ...RATING_FIELDS[e.kind as EquipmentKind].map((f) => [f.key, f] as const)]);

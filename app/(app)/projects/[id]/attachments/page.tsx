@@ -30,7 +30,11 @@ function checklist(record: ProjectRecord): ChecklistItem[] {
       if (DATASHEET_KINDS.includes(e.kind)) items.push({ label: "Datasheet", tag: e.tag, detail: equipmentDescription(e), attached: has("datasheet", e.tag) });
     }
   }
-  if (required.has("storage-listing") && record.equipment.some((e) => e.kind === "battery")) items.push({ label: "Storage listing", attached: has("storage-listing") });
+  if (required.has("storage-listing")) {
+    for (const e of record.equipment) {
+      if (e.kind === "battery") items.push({ label: "Storage listing", tag: e.tag, detail: equipmentDescription(e), attached: has("storage-listing", e.tag) });
+    }
+  }
   if (required.has("site-plan")) items.push({ label: "Site plan", attached: has("site-plan") });
   if (required.has("structural-letter") && record.site.mounting === "roof") items.push({ label: "Structural letter", detail: "roof mount", attached: has("structural-letter") });
   return items;
@@ -56,7 +60,8 @@ export default async function ProjectAttachmentsPage({ params }: { params: Promi
     equipment = record.equipment.map((e) => ({
       tag: e.tag,
       description: equipmentDescription(e, false),
-      hasDatasheet: record.attachments.some((a) => a.kind === "datasheet" && a.equipmentTag === e.tag),
+      kind: e.kind,
+      documented: record.attachments.filter((a) => a.equipmentTag === e.tag).map((a) => a.kind),
     }));
   } else {
     note = `The design record could not be read, so the required documents cannot be listed: ${loaded.message}`;
