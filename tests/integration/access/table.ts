@@ -95,7 +95,7 @@ const freshTemplate = (w: World) => ({ id: saveTemplateFromProject(w.ctx.designe
 const equipmentTag = (w: World) => w.record.equipment.find((e) => e.kind === "inverter")?.tag ?? w.record.equipment[0]!.tag;
 
 /** One comment of the AHJ's letter on a fresh submission, as the office records it. */
-async function freshCorrection(w: World): Promise<Record<string, string>> {
+export async function freshCorrection(w: World): Promise<Record<string, string>> {
   const { submissionId, eventId } = await freshSubmission(w);
   const row = w.db.select({ projectId: submissions.projectId }).from(submissions).where(eq(submissions.id, submissionId!)).get()!;
   const item = w.db
@@ -107,7 +107,7 @@ async function freshCorrection(w: World): Promise<Record<string, string>> {
 }
 
 /** A reviewer's note on a returned revision, which the designer and the reviewer answer. */
-async function freshReviewNote(w: World): Promise<Record<string, string>> {
+export async function freshReviewNote(w: World): Promise<Record<string, string>> {
   const revisionId = await w.fresh.inReviewRevision();
   const review = w.db.insert(reviews).values({ orgId: w.ownOrgId, revisionId, reviewerId: w.ctx.reviewer.user.id, decision: "returned", generalNotes: "See the note." }).returning().get();
   const note = w.db.insert(reviewNotes).values({ reviewId: review.id, targetKind: "general", text: "Label the battery disconnect." }).returning().get();
@@ -403,6 +403,13 @@ export const ENTRIES: Entry[] = [
     scoped: true,
     setup: freshSubmission,
     call: (_w, { submissionId, eventId }) => action(submissionActions.voidEventAction(null, form({ submissionId: submissionId!, eventId: eventId!, reason: "Entered twice." }))),
+  },
+  {
+    name: "sendDigestAction",
+    // The office's own digest of overdue permits, sent to its own people.
+    allowed: OFFICE,
+    scoped: false,
+    call: () => action(submissionActions.sendDigestAction()),
   },
   {
     name: "saveSheetTemplateAction",

@@ -6,7 +6,7 @@ import { SummaryCard } from "@/components/jurisdictions/summary-card";
 import { TemplateEditor } from "@/components/jurisdictions/template-editor";
 import { PageHeader, Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
-import { DEFAULT_VOLTAGE_DROP_LIMIT_PCT } from "@/lib/schemas/vocabulary";
+import { DEFAULT_VOLTAGE_DROP_LIMIT_PCT, REQUIRED_DOCUMENT_LABELS } from "@/lib/schemas/vocabulary";
 import { can } from "@/lib/auth/permissions";
 import { ServiceError } from "@/lib/services/errors";
 import type { JurisdictionEditInput } from "@/lib/schemas/jurisdiction";
@@ -16,13 +16,6 @@ import { jurisdictionSummary } from "@/lib/services/jurisdictions/summary";
 import { listSheetTemplates } from "@/lib/services/jurisdictions/templates";
 
 export const metadata: Metadata = { title: "Jurisdiction" };
-
-const DOCUMENT_LABELS: Record<string, string> = {
-  "equipment-datasheets": "Equipment datasheets",
-  "storage-listing": "Storage listing",
-  "site-plan": "Site plan",
-  "structural-letter": "Structural letter",
-};
 
 function Field({ label, children }: { label: string; children: React.ReactNode }) {
   return (
@@ -110,7 +103,7 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
               <span className="figure">{j.storageAggregateLimitKWh != null ? `${j.storageAggregateLimitKWh} kWh` : "per the code table"}</span>
             </Field>
             <Field label="Required documents">
-              {j.requiredDocuments.length ? j.requiredDocuments.map((d) => DOCUMENT_LABELS[d] ?? d).join(", ") : "none recorded"}
+              {j.requiredDocuments.length ? j.requiredDocuments.map((d) => (REQUIRED_DOCUMENT_LABELS as Record<string, string | undefined>)[d] ?? d).join(", ") : "none recorded"}
             </Field>
             <Field label="Label rules">
               {[labelRules.material, labelRules.reflective ? "reflective" : null, labelRules.minLetterHeightIn ? `letters ≥ ${labelRules.minLetterHeightIn} in` : null, labelRules.colours]
