@@ -22,7 +22,7 @@ export function StatusBadge({ status, compact = false }: { status: CheckStatus; 
   const look = { ...STATUS_LOOK[status], word: statusWord(status) };
   return (
     <span
-      className={`inline-flex items-center gap-1 whitespace-nowrap rounded-[2px] border font-semibold ${compact ? "px-1 text-[11px]" : "px-1.5 py-0.5 text-xs"} ${look.className}`}
+      className={`inline-flex items-center whitespace-nowrap rounded-[2px] border font-semibold ${compact ? "gap-0.5 px-1 text-[11px]" : "gap-1 px-1.5 py-0.5 text-xs"} ${look.className}`}
     >
       <span aria-hidden="true">{look.shape}</span>
       {look.word}

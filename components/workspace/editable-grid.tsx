@@ -357,7 +357,7 @@ export function EditableGrid({
                       </td>
                     );
                   })}
-                  {trailing ? <td className="whitespace-nowrap px-1 py-1">{trailing.cell(index)}</td> : null}
+                  {trailing ? <td className="whitespace-nowrap py-1 pl-1 pr-0.5">{trailing.cell(index)}</td> : null}
                 </tr>
               );
               if (!hasDetail || !open.has(row.id)) return main;

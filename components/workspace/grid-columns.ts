@@ -12,7 +12,7 @@ import type { RecordTags } from "./use-record-tags";
 export const PV_FED = ["charge-controller", "inverter", "inverter-charger", "hybrid-inverter"] as const;
 const SIZE_OPTIONS: Option[] = CONDUCTOR_SIZES.map((s) => ({ value: s, label: conductorSizeText(s) }));
 const KIND_OPTIONS: Option[] = CIRCUIT_KINDS.map((k) => ({ value: k, label: CIRCUIT_KIND_TITLES[k] }));
-const INSULATION_OPTIONS: Option[] = INSULATION_TYPES.map((t) => ({ value: t.code === "PV WIRE" ? "PV wire" : t.code, label: t.label }));
+const INSULATION_OPTIONS: Option[] = INSULATION_TYPES.map((t) => ({ value: t.code, label: t.label }));
 const RACEWAY_OPTIONS: Option[] = RACEWAY_TYPES.map((t) => ({ value: t.code, label: t.label }));
 const MATERIAL_OPTIONS: Option[] = [
   { value: "cu", label: "Cu" },
@@ -54,15 +54,19 @@ export function circuitColumns(tags: TagLists): GridColumn[] {
     { key: "material", header: "Material", type: "select", options: MATERIAL_OPTIONS, required: true, width: "w-16" },
     { key: "size", header: "Size", type: "select", options: SIZE_OPTIONS, width: "w-20" },
     { key: "parallelSets", header: "Sets", type: "integer", width: "w-12" },
-    { key: "insulation", header: "Insulation", type: "combo", options: INSULATION_OPTIONS, width: "w-28" },
+    { key: "insulation", header: "Insulation", type: "select", options: INSULATION_OPTIONS, width: "w-28" },
     { key: "insulationTempRatingC", header: "Insulation rating", type: "number-select", options: TEMP_OPTIONS, width: "w-20" },
     { key: "currentCarryingConductors", header: "CCCs in raceway", type: "integer", width: "w-14" },
-    { key: "racewayType", header: "Raceway", type: "combo", options: RACEWAY_OPTIONS, width: "w-28" },
+    { key: "racewayType", header: "Raceway", type: "select", options: RACEWAY_OPTIONS, width: "w-28" },
     { key: "racewaySize", header: "Raceway size", type: "text", width: "w-16" },
     { key: "lengthFt", header: "One-way length", unit: "ft", type: "number", width: "w-14" },
     { key: "ambientTempC", header: "Ambient", unit: "°C", type: "number", width: "w-16" },
     { key: "onRooftop", header: "Rooftop", type: "checkbox", width: "w-10" },
     { key: "entersBuilding", header: "Enters a building", type: "tri-state", width: "w-16" },
+    { key: "readilyAccessible", header: "Readily accessible", type: "tri-state", width: "w-16" },
+    { key: "guarded", header: "Guarded", type: "tri-state", width: "w-16" },
+    { key: "fineStranded", header: "Fine-stranded", type: "tri-state", width: "w-16" },
+    { key: "fineStrandTerminalsIdentified", header: "Terminals for fine strand", type: "tri-state", width: "w-16" },
     { key: "roofClearanceIn", header: "Roof clearance", unit: "in", type: "number", width: "w-16" },
     { key: "terminalTempRatingC", header: "Terminal rating", type: "number-select", options: TEMP_OPTIONS, width: "w-20" },
     { key: "ocpdTag", header: "Protected by", type: "select", options: tags.byKinds(["fuse", "breaker"]), width: "w-24" },

@@ -19,6 +19,7 @@ import { overcurrentProtection } from "./checks/overcurrent-protection";
 import { panelBusbar } from "./checks/panel-busbar";
 import { pvArcFault } from "./checks/pv-arc-fault";
 import { pvGrounding } from "./checks/pv-grounding";
+import { pvWiringMethods } from "./checks/pv-wiring-methods";
 import { rapidShutdown } from "./checks/rapid-shutdown";
 import { standAloneOutput } from "./checks/stand-alone-output";
 import { standAloneSizing } from "./checks/stand-alone-sizing";
@@ -26,6 +27,7 @@ import { standAloneSupply } from "./checks/stand-alone-supply";
 import { storageSiting } from "./checks/storage-siting";
 import { submittalCompleteness } from "./checks/submittal-completeness";
 import { voltageDrop } from "./checks/voltage-drop";
+import { wiringMethodLocation } from "./checks/wiring-method-location";
 import type { CheckDefinition } from "./result";
 
 export const CHECKS: readonly CheckDefinition[] = [
@@ -49,6 +51,8 @@ export const CHECKS: readonly CheckDefinition[] = [
   rapidShutdown,
   pvArcFault,
   pvGrounding,
+  pvWiringMethods,
+  wiringMethodLocation,
   deviceRatings,
   panelBusbar,
   submittalCompleteness,

@@ -9,6 +9,12 @@ export const EMAIL_TEMPLATES = [
   "submitted",
   "corrections-requested",
   "permit-issued",
+  "ready-to-submit",
+  "plan-review-started",
+  "inspection-result",
+  "submission-cancelled",
+  "checklist-complete",
+  "overdue-digest",
 ] as const;
 export type EmailTemplate = (typeof EMAIL_TEMPLATES)[number];
 

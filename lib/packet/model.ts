@@ -1,12 +1,13 @@
 import { missingDocuments as missingOnFileDocuments } from "../compliance/documents";
 import { templateContext } from "./context";
+import { packetDraftReasons } from "./draft";
 import { isoDate } from "./format";
 import type { Block } from "./markup";
 import { AHJ_FOOTER, REVIEW_MARKING, SHEET_PLAN, type PacketDatasheet, type PacketModel, type Sheet } from "./plan";
 import { conductorBlocks } from "./sheets/conductors";
 import { equipmentBlocks } from "./sheets/equipment";
 import { panelScheduleBlocks } from "./sheets/panel-schedule";
-import { racewayFillBlocks, racewayFillRows } from "./sheets/raceway-fill";
+import { racewayFillBlocks } from "./sheets/raceway-fill";
 import { groundingBlocks } from "./sheets/grounding";
 import { reviewBlocks } from "./sheets/review-record";
 import { sitePlanBlocks } from "./sheets/site-plan";
@@ -33,23 +34,6 @@ export function missingDocuments(input: PacketInput): string[] {
   return missingOnFileDocuments(record, onFile, record.jurisdiction.requiredDocuments);
 }
 
-function draftReasons(input: PacketInput, missingDocs: string[]): string[] {
-  const reasons: string[] = [];
-  const { counts, results } = input.run;
-  if (counts.fail > 0) reasons.push(`${counts.fail} check${counts.fail === 1 ? "" : "s"} fail`);
-  if (counts["needs-input"] > 0) reasons.push(`${counts["needs-input"]} check${counts["needs-input"] === 1 ? " needs" : "s need"} input`);
-  const labelGaps = results.filter((r) => r.checkId.includes("label") && (r.status === "fail" || r.status === "needs-input"));
-  for (const r of labelGaps) reasons.push(`required label missing or incomplete: ${r.subject ?? r.title}`);
-  for (const l of input.labels) {
-    if (l.lines.length === 0) reasons.push(`required label ${l.id} has no wording`);
-    else if (l.missing?.length) reasons.push(`label ${l.id} incomplete: ${l.missing.join(", ")} missing`);
-  }
-  const overfilled = racewayFillRows(input.record).filter((r) => r.status === "fail").map((r) => r.circuit);
-  if (overfilled.length) reasons.push(`raceway fill over the Chapter 9 limit: ${overfilled.join(", ")}`);
-  reasons.push(...missingDocs);
-  return reasons;
-}
-
 export interface BuildOptions {
   /** Packet page ranges per sheet code, for the sheet index (known after a first layout pass). */
   sheetPages?: Map<string, string>;
@@ -67,7 +51,7 @@ export function buildPacketModel(input: PacketInput, options: BuildOptions = {})
     bytes: d.bytes,
   }));
   const missingDocs = missingDocuments(input);
-  const reasons = draftReasons(input, missingDocs);
+  const reasons = packetDraftReasons(input.record, input.run, input.labels, missingDocs);
   const draft = { isDraft: reasons.length > 0, reasons };
 
   const sheets: Sheet[] = SHEET_PLAN.map((plan) => {

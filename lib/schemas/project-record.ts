@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { integerIn, numberIn, requiredText, tagSchema, text } from "./fields";
+import { insulationCodeSchema, racewayCodeSchema } from "./wiring-codes";
 
 /**
  * Sundocket's project file: the whole design record the check engine reads.
@@ -385,10 +386,12 @@ export const circuitSchema = z
     material: z.enum(["cu", "al"], { error: "must be cu or al" }).default("cu"),
     size: conductorSizeSchema.optional(),
     parallelSets: integerIn(1, 8).default(1),
-    insulation: text(20).default(""),
+    /** One of the insulation codes (lib/schemas/wiring-codes.ts); common spellings are read as the code. */
+    insulation: insulationCodeSchema.default(""),
     insulationTempRatingC: tempRatingSchema.optional(),
     currentCarryingConductors: integerIn(1, 60).optional(),
-    racewayType: text(40).default(""),
+    /** One of the wiring-method codes (raceway, cable, cable tray, free air, direct burial). */
+    racewayType: racewayCodeSchema.default(""),
     racewaySize: text(20).default(""),
     lengthFt: numberIn(0, 5000, "ft").optional(),
     /** Ambient where the conductor runs; defaults to the site's design high temperature. */
@@ -398,6 +401,20 @@ export const circuitSchema = z
      * Empty on a ground-mounted array is read as entering one, the stricter case.
      */
     entersBuilding: z.boolean().optional(),
+    /**
+     * Runs where people can reach it without a ladder or tools (Article 100 "readily accessible"); a PV circuit over
+     * 30 V there is guarded or in raceway or MC cable (690.31(A)).
+     */
+    readilyAccessible: z.boolean().optional(),
+    /** Guarded against contact where readily accessible (a fence, cover or enclosure), in place of raceway. */
+    guarded: z.boolean().optional(),
+    /**
+     * Stranding finer than Class B or C (Chapter 9, Table 10), e.g. flexible battery cable: terminals must be
+     * identified for it (110.14). Cords and welding cable are fine-stranded whatever this says.
+     */
+    fineStranded: z.boolean().optional(),
+    /** The lugs and terminals at both ends are identified for the fine-stranded conductor class (110.14). */
+    fineStrandTerminalsIdentified: z.boolean().optional(),
     /** Raceway or cable exposed to sunlight on or above a roof. */
     onRooftop: z.boolean().default(false),
     roofClearanceIn: numberIn(0, 120, "in").optional(),

@@ -153,13 +153,15 @@ export interface DraftFacts {
   counts: Readonly<Record<CheckStatus, number>>;
   /** Required labels that cannot be printed as they stand ("label X (Title) lacks …"). */
   labelGaps: readonly string[];
+  /** What a sheet finds wrong beyond the checks ("raceway fill over the Chapter 9 limit: C-3"). */
+  sheetGaps: readonly string[];
   /** Required documents not on file ("no datasheet for INV-1"). */
   missingDocuments: readonly string[];
 }
 
 /**
  * Why a packet is a draft; empty when it is not. A packet is a draft while any check fails or needs
- * input, a required label cannot be printed, or a required document is missing. The preflight shows
+ * input, a required label cannot be printed, a sheet finds a gap, or a required document is missing. The preflight shows
  * these lines to the designer and the cover prints them, so both say the same.
  */
 export function draftReasons(f: DraftFacts): string[] {
@@ -168,7 +170,7 @@ export function draftReasons(f: DraftFacts): string[] {
   const needs = f.counts["needs-input"];
   if (fail > 0) reasons.push(`${plural(fail, "check")} ${fail === 1 ? "fails" : "fail"}`);
   if (needs > 0) reasons.push(`${plural(needs, "check")} ${needs === 1 ? "needs" : "need"} input`);
-  reasons.push(...f.labelGaps, ...f.missingDocuments);
+  reasons.push(...f.labelGaps, ...f.sheetGaps, ...f.missingDocuments);
   return reasons;
 }
 

@@ -162,7 +162,7 @@ test("a designer enters the cabin system in at most 60 field entries and gets th
     await select(page.getByLabel(`To, circuit row ${row}`), to);
     await fill(page.getByLabel(`One-way length (ft), circuit row ${row}`), length);
     await page.getByRole("button", { name: `Details of circuit row ${row}` }).click();
-    await fill(page.getByLabel(`Insulation, circuit row ${row}`), "THWN-2");
+    await select(page.getByLabel(`Insulation, circuit row ${row}`), "THWN-2");
     await fill(page.getByLabel(`CCCs in raceway, circuit row ${row}`), "2");
     const line = grid.locator("tr", { has: page.getByLabel(`From, circuit row ${row}`) });
     const detail = page.getByRole("group", { name: `Details of circuit row ${row}` });

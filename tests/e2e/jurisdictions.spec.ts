@@ -70,3 +70,22 @@ test("the office edits a jurisdiction, sees the knock-on on open projects, keeps
   await expect(designer.getByRole("list", { name: "Notes" })).toContainText(note);
   await expect(designer.getByLabel("What this AHJ expects that no code says")).toHaveCount(0);
 });
+
+test("the office reads a jurisdiction's figures and mails the overdue digest", async ({ page }) => {
+  await signInAs(page, "office");
+  await page.goto("/jurisdictions");
+  await page.getByRole("link", { name: "City of Kestrel Falls" }).click();
+  const figures = page.getByRole("region", { name: /Submissions here/ });
+  // The seeded stall was permitted (11 calendar days, 2026-11-02 → 11-13); other specs may add applications, so the form is checked here
+  // and the arithmetic in tests/unit/workflow/jurisdiction-summary.test.ts.
+  await expect(figures.getByRole("definition").first()).toHaveText(/^\d+(\.\d)? d$/);
+  await expect(figures).toContainText(/\d+ %/);
+  await expect(figures.getByRole("figure", { name: "Open submissions by status" })).toBeVisible();
+  await page.screenshot({ path: path.join(ARTIFACTS, "jurisdiction-summary-1440.png"), fullPage: true });
+
+  await page.goto("/submissions");
+  await page.getByRole("button", { name: "Mail the overdue digest" }).click();
+  await expect(page.getByRole("status").filter({ hasText: /^Digest for \d{4}-\d{2}-\d{2} sent to 1 person/ })).toBeVisible();
+  await page.goto("/outbox");
+  await expect(page.locator("main")).toContainText("Permit office digest for");
+});

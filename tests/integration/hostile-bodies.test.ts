@@ -60,6 +60,8 @@ const routes = {
   verify: await import("../../app/api/verify/route"),
   templates: await optional(import("../../app/api/templates/route")),
   template: await optional(import("../../app/api/templates/[id]/route")),
+  correction: await optional(import("../../app/api/corrections/[itemId]/route")),
+  reviewNote: await optional(import("../../app/api/review-notes/[noteId]/route")),
 };
 const reviewsRoute = await import("../../app/api/reviews/route");
 const labelsRoute = await import("../../app/api/install/[revisionId]/labels/route");
@@ -78,6 +80,9 @@ const draftRevisionId = await world.fresh.draftRevision();
 const retiredItemId = world.fresh.libraryItem(true);
 const { saveTemplateFromProject } = await import("../../lib/services/templates/save");
 const templateId = saveTemplateFromProject(world.ctx.designer, world.projectId, { name: "Hut kit" }).id;
+const { freshCorrection, freshReviewNote } = await import("./access/table");
+const { itemId: correctionId } = await freshCorrection(world);
+const { noteId } = await freshReviewNote(world);
 afterAll(() => fs.rmSync(dirs.root, { recursive: true, force: true }));
 
 const actorFor = (role: Role) => world.actors.find((a) => a.kind === "user" && a.org === "own" && a.role === role)!;
@@ -147,6 +152,13 @@ const JSON_TARGETS: JsonTarget[] = [
   { name: "POST /api/library/[id]/restore", role: "designer", keys: ["version"], send: json(routes.libraryRestore.POST, "POST", `/api/library/${retiredItemId}/restore`, { id: retiredItemId }) },
   { name: "POST /api/templates", role: "designer", keys: ["projectId", "name", "description", "replaceTemplateId", "expectedVersion"], send: json(routes.templates?.POST, "POST", "/api/templates") },
   { name: "PATCH /api/templates/[id]", role: "designer", keys: ["version", "name", "description"], send: json(routes.template?.PATCH, "PATCH", `/api/templates/${templateId}`, { id: templateId }) },
+  {
+    name: "POST /api/corrections/[itemId]",
+    role: "designer",
+    keys: ["action", "response", "assigneeId", "version", "text"],
+    send: json(routes.correction?.POST, "POST", `/api/corrections/${correctionId}`, { itemId: correctionId! }),
+  },
+  { name: "POST /api/review-notes/[noteId]", role: "designer", keys: ["action", "body", "seen"], send: json(routes.reviewNote?.POST, "POST", `/api/review-notes/${noteId}`, { noteId: noteId! }) },
   { name: "POST /api/revisions/[id]/send", role: "designer", keys: ["message"], send: json(routes.send?.POST, "POST", `/api/revisions/${draftRevisionId}/send`, { id: draftRevisionId }) },
   { name: "POST /api/submissions", role: "office", keys: ["revisionId", "method", "referenceNumber", "occurredOn", "note"], send: json(routes.submissions?.POST, "POST", "/api/submissions") },
   {
@@ -197,6 +209,9 @@ const OBJECT_ACTIONS: ActionTarget[] = [
   { name: "saveSheetTemplateAction", role: "office", keys: ["jurisdictionId", "name", "source", "version"], call: (i) => action(actions.templates.saveSheetTemplateAction(i as never)) },
   { name: "previewSheetTemplateAction", role: "office", keys: ["jurisdictionId", "name", "source"], call: (i) => action(actions.templates.previewSheetTemplateAction(i as never)) },
   { name: "attachPhotoAction", role: "installer", keys: ["revisionId", "itemKind", "itemId", "photoAttachmentId"], call: (i) => action(actions.install.attachPhotoAction(i as never)) },
+  { name: "saveJurisdictionAction", role: "office", keys: ["version", "name", "necEdition", "typicalReviewDays", "amendments", "contact", "region"], call: (i) => action(actions.templates.saveJurisdictionAction(world.jurisdictionId, i)) },
+  { name: "previewJurisdictionAction", role: "office", keys: ["version", "necEdition", "voltageDropLimitPct"], call: (i) => action(actions.templates.previewJurisdictionAction(world.jurisdictionId, i)) },
+  { name: "addJurisdictionNoteAction", role: "office", keys: ["jurisdictionId", "text"], call: (i) => action(actions.templates.addJurisdictionNoteAction(i as never)) },
   { name: "renderStampedPacketAgainAction", role: "reviewer", keys: [], call: (i) => action(actions.reviews.renderStampedPacketAgainAction(i as never)) },
   { name: "signPacketAction", role: "reviewer", keys: [], call: (i) => action(actions.reviews.signPacketAction(i as never, i as never)) },
 ];

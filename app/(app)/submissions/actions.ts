@@ -2,6 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { runAction, type ActionResult } from "@/lib/auth/action";
+import { sendOverdueDigest, type DigestSent } from "@/lib/services/submissions/digest";
 import { createSubmission, recordSubmissionEvent, voidSubmissionEvent, type CreatedSubmission, type RecordedEvent, type VoidedEvent } from "@/lib/services/submissions";
 
 function reader(formData: FormData) {
@@ -66,5 +67,11 @@ export async function voidEventAction(_prev: ActionResult<VoidedEvent> | null, f
     revalidatePath(`/submissions/${submissionId}`);
     revalidatePath("/submissions");
   }
+  return result.ok ? { ...result, message: result.data?.message } : result;
+}
+
+/** The permit office's digest of overdue submissions and expiring permits, sent now rather than at the scheduled hour. */
+export async function sendDigestAction(): Promise<ActionResult<DigestSent>> {
+  const result = await runAction((ctx) => sendOverdueDigest(ctx));
   return result.ok ? { ...result, message: result.data?.message } : result;
 }

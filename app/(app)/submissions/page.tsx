@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { DigestButton } from "@/components/submissions/digest-button";
 import { PrintButton } from "@/components/submissions/print-button";
 import { EmptyState, PageHeader, Refusal } from "@/components/ui/page-header";
 import { QueueTable } from "@/components/submissions/queue-table";
@@ -17,6 +18,7 @@ export default async function SubmissionsPage() {
   return (
     <>
       <PageHeader title="Submissions" sheet="Permit applications by jurisdiction">
+        {can(ctx.roles, "submission:record-event") ? <DigestButton /> : null}
         {rows.length ? <PrintButton /> : null}
         {can(ctx.roles, "submission:create") ? (
           <Link href="/submissions/new" className="btn no-print">

@@ -17,6 +17,8 @@ export interface CitationEntry {
 
 const SAME = "from memory: same number in NEC 2017, 2020 and 2023";
 
+const WIRING = "from memory: same number in NEC 2017, 2020 and 2023";
+
 const GROUNDING_690_41 =
   "NEC 2017 690.41 text as quoted in a published 2017 change analysis; same numbers in 2020 and 2023 from memory";
 
@@ -55,6 +57,12 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["225.32", "from memory"],
     ["690.41(A)", GROUNDING_690_41],
     ["690.41(B)", GROUNDING_690_41],
+    ["690.31(A)", WIRING],
+    ["310.10(C)", WIRING],
+    ["400.12", WIRING],
+    ["110.8", WIRING],
+    ["392.10(B)(1)", WIRING],
+    ["110.14", WIRING],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
@@ -84,6 +92,8 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["480.7(A)", "from memory: 2017 706.1 covers storage over 60 V DC; lower-voltage batteries fall under Article 480"],
     ["480.7(F)", "from memory: Article 480 marking for a 60 V or lower battery under NEC 2017"],
     ["690.31(G)(3)", "from memory"],
+    ["690.31(G)", "from memory: 2017 kept DC circuits in buildings under 690.31(G)"],
+    ["Table 310.104(A)", "from memory: the 2017 insulation table"],
     ["690.53", "from memory"],
     ["690.56(A)", "from memory: 2017 Article 710 has no 710.10; the stand-alone plaque is 690.56(A)"],
     ["690.56(C)", "from memory"],
@@ -129,6 +139,12 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["225.31(B)", "from memory: 2020 folded 225.32 into 225.31(B)"],
     ["690.41(A)", GROUNDING_690_41],
     ["690.41(B)", GROUNDING_690_41],
+    ["690.31(A)", WIRING],
+    ["310.10(C)", WIRING],
+    ["400.12", WIRING],
+    ["110.8", WIRING],
+    ["392.10(B)(1)", WIRING],
+    ["110.14", WIRING],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
@@ -156,6 +172,9 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["310.10(G)", "from memory"],
     ["310.15(B)(2)", "from memory"],
     ["690.31(D)(2)", "from memory"],
+    ["690.31(D)", "from memory: 2020 regrouped DC circuits in buildings under 690.31(D)"],
+    ["690.31(C)(1)", "from memory: single-conductor PV wire and USE-2 in outdoor cable tray"],
+    ["Table 310.4(A)", "from memory: 2020 renumbered the insulation table 310.104(A) to 310.4(A)"],
     ["690.53", "from memory"],
     ["690.56(C)", "from memory"],
     ["705.12(B)(3)", "from memory"],
@@ -201,6 +220,12 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["225.31(B)", "from memory"],
     ["690.41(A)", GROUNDING_690_41],
     ["690.41(B)", GROUNDING_690_41],
+    ["690.31(A)", WIRING],
+    ["310.10(C)", WIRING],
+    ["400.12", WIRING],
+    ["110.8", WIRING],
+    ["392.10(B)(1)", WIRING],
+    ["110.14", WIRING],
     ["690.12", SAME],
     ["690.12(B)(2)", SAME],
     ["690.12 Exception", SAME],
@@ -228,6 +253,9 @@ export const CITATIONS: Readonly<Record<NecEdition, readonly CitationEntry[]>> =
     ["310.15(B)(2)", "from memory"],
     ["690.12(D)", "from memory: 2023 moved the building rapid-shutdown label from 690.56(C) into 690.12(D)"],
     ["690.31(D)(2)", "from memory"],
+    ["690.31(D)", "from memory: 2020 regrouped DC circuits in buildings under 690.31(D)"],
+    ["690.31(C)(1)", "from memory: single-conductor PV wire and USE-2 in outdoor cable tray"],
+    ["Table 310.4(A)", "from memory: 2020 renumbered the insulation table 310.104(A) to 310.4(A)"],
     ["690.7(D)", "from memory: 2023 moved the DC source label from 690.53 into 690.7(D)"],
     ["705.12(B)(3)", "from memory"],
     ["705.12(B)(3)(2)", "from memory"],

@@ -78,7 +78,16 @@ export type CodeTopic =
   | "building-disconnect"
   | "building-disconnect-location"
   | "pv-grounding-configuration"
-  | "pv-ground-fault";
+  | "pv-ground-fault"
+  | "pv-wiring-accessible"
+  | "pv-wiring-in-building"
+  | "pv-single-conductor-tray"
+  | "insulation-table"
+  | "wet-location-conductors"
+  | "flexible-cord-uses-not-permitted"
+  | "wiring-methods-recognised"
+  | "cable-tray-single-conductors"
+  | "fine-strand-terminals";
 
 type ByEdition = Readonly<Record<NecEdition, string>>;
 
@@ -200,6 +209,27 @@ export const CODE_REFS: Readonly<Record<CodeTopic, ByEdition>> = {
   // under the same numbers in 2020 and 2023 (2017 text from a published change analysis; 2020/2023 from memory).
   "pv-grounding-configuration": same("690.41(A)"),
   "pv-ground-fault": same("690.41(B)"),
+  // PV source and output circuits over 30 V in readily accessible places: guarded, or in MC cable or raceway
+  // (690.31(A) in all three editions, from memory).
+  "pv-wiring-accessible": same("690.31(A)"),
+  // PV DC circuits inside a building in metal raceway, MC cable or metal enclosures: 2017 690.31(G) (to the first
+  // readily accessible disconnect), regrouped as 690.31(D) in 2020 with a 30 V / 8 A threshold (from memory).
+  "pv-wiring-in-building": { "2017": "690.31(G)", "2020": "690.31(D)", "2023": "690.31(D)" },
+  // Single-conductor PV wire and USE-2 in outdoor cable tray with close support (2020 690.31(C)(1), from memory).
+  "pv-single-conductor-tray": { "2017": "392.10(B)(1)", "2020": "690.31(C)(1)", "2023": "690.31(C)(1)" },
+  // Conductor insulation types and their ratings: 2017 Table 310.104(A); 2020 moved it to Table 310.4(A) (from memory).
+  "insulation-table": { "2017": "Table 310.104(A)", "2020": "Table 310.4(A)", "2023": "Table 310.4(A)" },
+  // Conductors in wet locations (underground, raceways exposed outdoors) are of a wet-rated type (from memory).
+  "wet-location-conductors": same("310.10(C)"),
+  // Flexible cords are not a substitute for fixed wiring (from memory, all three editions).
+  "flexible-cord-uses-not-permitted": same("400.12"),
+  // Only wiring methods the Code recognises are permitted; welding cable is for welder secondary circuits (630.42).
+  "wiring-methods-recognised": same("110.8"),
+  // Single conductors in cable tray: 1/0 and larger, marked for tray use, in industrial establishments (from memory).
+  "cable-tray-single-conductors": same("392.10(B)(1)"),
+  // Terminals for conductors finer than Class B and C stranding are identified for the class (110.14 first
+  // paragraph, added in 2017; from memory).
+  "fine-strand-terminals": same("110.14"),
 };
 
 export const CODE_TOPICS = Object.keys(CODE_REFS) as readonly CodeTopic[];

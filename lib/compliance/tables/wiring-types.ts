@@ -12,11 +12,13 @@
  * the adopted edition.
  */
 
+import { normalizeInsulation, normalizeRaceway, type InsulationCode, type RacewayCode } from "../../schemas/wiring-codes";
+
 export type ConductorClass = "building-wire" | "cable" | "flexible-cord" | "welding-cable";
 
 export interface InsulationType {
   /** As printed on the conductor, e.g. "THWN-2". */
-  code: string;
+  code: InsulationCode;
   /** Temperature rating in dry locations. */
   dryRatingC: 60 | 75 | 90;
   /** Temperature rating in wet locations; absent where the type is not for wet locations. */
@@ -53,14 +55,14 @@ export const INSULATION_TYPES: readonly InsulationType[] = [
 /** Case- and spacing-insensitive lookup ("thwn-2", "PV Wire", "pv-wire"). */
 export function insulationType(code: string | undefined): InsulationType | undefined {
   if (code === undefined) return undefined;
-  const key = code.trim().toUpperCase().replace(/[\s_]+/g, " ").replace(/^PV-WIRE$/, "PV WIRE");
+  const key = normalizeInsulation(code);
   if (key === "") return undefined;
   return INSULATION_TYPES.find((t) => t.code === key);
 }
 
 export interface RacewayType {
   /** Short trade name, e.g. "EMT". */
-  code: string;
+  code: RacewayCode;
   label: string;
   /** NEC article of the wiring method (same number in 2017, 2020 and 2023). */
   article: string;
@@ -82,23 +84,15 @@ export const RACEWAY_TYPES: readonly RacewayType[] = [
   { code: "LFNC", label: "LFNC, liquidtight flexible non-metallic conduit", article: "356", metallic: false, isRaceway: true },
   { code: "ENT", label: "ENT, electrical non-metallic tubing", article: "362", metallic: false, isRaceway: true },
   { code: "MC", label: "MC cable (metal-clad)", article: "330", metallic: true, isRaceway: false },
-  { code: "CABLE-TRAY", label: "Cable tray", article: "392", metallic: true, isRaceway: false },
+  // A metal tray is a support system, not a raceway: 690.31 does not count it as a metal enclosure of the conductors.
+  { code: "CABLE-TRAY", label: "Cable tray", article: "392", metallic: false, isRaceway: false },
   { code: "FREE-AIR", label: "Exposed, in free air (module leads, array wiring)", article: "690.31", metallic: false, isRaceway: false },
   { code: "DIRECT-BURIAL", label: "Direct burial", article: "300.5", metallic: false, isRaceway: false },
 ];
 
-/** Spellings designers write for the same method. */
-const RACEWAY_ALIASES: Readonly<Record<string, string>> = {
-  "PVC-SCHEDULE-40": "PVC-40",
-  "PVC-SCH-40": "PVC-40",
-  "PVC-SCHEDULE-80": "PVC-80",
-  "PVC-SCH-80": "PVC-80",
-  "MC-CABLE": "MC",
-};
-
 export function racewayType(code: string | undefined): RacewayType | undefined {
   if (code === undefined) return undefined;
-  const key = code.trim().toUpperCase().replace(/\s+/g, "-");
+  const key = normalizeRaceway(code);
   if (key === "") return undefined;
-  return RACEWAY_TYPES.find((t) => t.code === (RACEWAY_ALIASES[key] ?? key));
+  return RACEWAY_TYPES.find((t) => t.code === key);
 }

@@ -1,11 +1,14 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
-import { attachments, packetRevisions, projects, reviews, siteConfirmations } from "../../../db/schema";
+import { attachments, packetRevisions, projects, reviews, siteConfirmations, users } from "../../../db/schema";
+import { queueEmail } from "../../email/outbox";
+import { deliverLater } from "../../jobs";
 import { requiredLabels, type LabelRequirement } from "../../compliance/labels";
 import { projectRecordSchema, type ProjectRecord } from "../../schemas/project-record";
 import { audit, requirePermission, type ServiceContext } from "../context";
 import { invalid, notFound } from "../errors";
 import { moveProjectStatus } from "../projects/status";
+import { activeWithRole, deliverAfterCommit } from "../submissions/shared";
 
 export interface ApprovedSet {
   revisionId: string;
@@ -99,6 +102,7 @@ export function confirmOnSite(
     if (!photo) throw invalid("That photo is not a photo of this project.", [{ path: "photoAttachmentId", message: "not a photo of this project" }]);
   }
   const photoAttachmentId = input.photoAttachmentId ?? null;
+  let mailed = 0;
   ctx.db.transaction((tx) => {
     const insert = tx.insert(siteConfirmations).values({
       orgId: ctx.orgId,
@@ -126,9 +130,37 @@ export function confirmOnSite(
         .all()
         .map((c) => `${c.itemKind}:${c.itemId}`),
     );
-    const complete = set.labels.every((l) => done.has(`label:${l.id}`)) && set.record.equipment.every((e) => done.has(`equipment:${e.tag}`));
+    const isComplete = (has: (key: string) => boolean) => set.labels.every((l) => has(`label:${l.id}`)) && set.record.equipment.every((e) => has(`equipment:${e.tag}`));
+    const complete = isComplete((k) => done.has(k));
     if (complete) moveProjectStatus(tx, ctx, set.projectId, "installed", { reason: "site.confirmed", ifAllowed: true });
+    // The item that completes the checklist tells the office and the designer, once.
+    const before = new Set(set.confirmations.map((c) => `${c.itemKind}:${c.itemId}`));
+    if (complete && !isComplete((k) => before.has(k))) {
+      const to = new Map<string, string>();
+      for (const u of [...activeWithRole(tx, ctx.orgId, "office"), ...designerOf(tx, ctx.orgId, input.revisionId)]) to.set(u.email, u.name);
+      for (const email of to.keys()) {
+        queueEmail(tx, ctx.orgId, email, "checklist-complete", {
+          installerName: ctx.user.name,
+          projectName: set.projectName,
+          revisionNumber: set.revisionNumber,
+          revisionId: set.revisionId,
+          itemCount: set.labels.length + set.record.equipment.length,
+        });
+      }
+      mailed = to.size;
+    }
   });
+  if (mailed > 0) void deliverAfterCommit(deliverLater, ctx.db, ctx.orgId);
+}
+
+function designerOf(tx: Pick<ServiceContext["db"], "select">, orgId: string, revisionId: string): { name: string; email: string }[] {
+  const row = tx
+    .select({ name: users.name, email: users.email, active: users.active })
+    .from(packetRevisions)
+    .innerJoin(users, eq(users.id, packetRevisions.createdBy))
+    .where(and(eq(packetRevisions.id, revisionId), eq(packetRevisions.orgId, orgId)))
+    .get();
+  return row?.active ? [{ name: row.name, email: row.email }] : [];
 }
 
 export function unconfirmOnSite(ctx: ServiceContext, input: { revisionId: string; itemKind: "label" | "equipment" | "clearance"; itemId: string }): void {

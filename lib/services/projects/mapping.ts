@@ -9,6 +9,7 @@ import type {
   PvArrayRow,
 } from "../../../db/schema";
 import type { ProjectRecordInput } from "../../schemas/project-record";
+import { withKnownWiringCodes } from "../../schemas/wiring-codes";
 
 /** Site and project fields held in columns; anything else of the record lands in `extra`. */
 const SITE_COLUMNS = [
@@ -103,7 +104,7 @@ export function rowsToRecord(rows: ProjectRows): ProjectRecordInput {
       })),
     circuits: [...rows.circuits]
       .sort((a, b) => a.position - b.position)
-      .map((c) => ({ ...c.data, tag: c.tag, fromTag: c.fromTag, toTag: c.toTag, kind: c.kind }) as never),
+      .map((c) => ({ ...withKnownWiringCodes(c.data), tag: c.tag, fromTag: c.fromTag, toTag: c.toTag, kind: c.kind }) as never),
     loads: [...rows.loads]
       .sort((a, b) => a.position - b.position)
       .map((l) => ({

@@ -1,8 +1,9 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import type { Db } from "../../../db/client";
-import { packetRevisions, reviewNotes, reviews, users, type AttestDispositionRecord, type LicenceSnapshot } from "../../../db/schema";
+import { jurisdictions, packetRevisions, reviewNotes, reviews, users, type AttestDispositionRecord, type LicenceSnapshot } from "../../../db/schema";
 import { queueEmail } from "../../email/outbox";
+import { activeWithRole } from "../submissions/shared";
 import { formatIssues } from "../../schemas/fields";
 import { reviewDecisionSchema, type ReviewNoteInput } from "../../schemas/review";
 import { audit, requirePermission, type ServiceContext } from "../context";
@@ -171,6 +172,17 @@ export async function decideReview(ctx: ServiceContext, input: unknown, options:
     }
     // Only a project in review moves (the table allows nothing else); a decision on an older revision leaves a later stage alone.
     moveProjectStatus(tx, ctx, project.id, decision, { reason: `review.${decision}`, ifAllowed: true, now });
+    if (decision === "approved") {
+      // The office submits approved sets: it hears of one as soon as it is stamped.
+      for (const office of activeWithRole(tx, ctx.orgId, "office")) {
+        queueEmail(tx, ctx.orgId, office.email, "ready-to-submit", {
+          reviewerName: ctx.user.name,
+          revisionNumber: row.number,
+          projectName: project.name,
+          jurisdictionName: jurisdictionNameOf(tx, project.jurisdictionId),
+        });
+      }
+    }
     if (designer?.active) {
       if (decision === "approved") {
         queueEmail(tx, ctx.orgId, designer.email, "approved", {
@@ -239,4 +251,9 @@ function notesForEmail(generalNotes: string, notes: ReviewNoteInput[], run: Retu
   if (generalNotes) lines.push(generalNotes, "");
   for (const n of notes) lines.push(`- ${noteTargetLabel(n.targetKind, n.targetId, run)}: ${n.text}`);
   return lines.join("\n").trim() || "(no notes)";
+}
+
+function jurisdictionNameOf(tx: Pick<ServiceContext["db"], "select">, jurisdictionId: string | null): string {
+  if (!jurisdictionId) return "its jurisdiction";
+  return tx.select({ name: jurisdictions.name }).from(jurisdictions).where(eq(jurisdictions.id, jurisdictionId)).get()?.name ?? "its jurisdiction";
 }

@@ -1,6 +1,7 @@
 import "server-only";
 import { missingDocuments as missingOnFile } from "../../compliance/documents";
 import type { ProjectRecord } from "../../schemas/project-record";
+import type { RequiredDocument } from "../../schemas/vocabulary";
 
 /** The attachment fields the packet's document selection reads. */
 export interface DocumentRef {
@@ -11,18 +12,6 @@ export interface DocumentRef {
   mimeType: string;
   createdAt: string;
 }
-
-export type RequiredDocument = ProjectRecord["jurisdiction"]["requiredDocuments"][number];
-
-/** What a permit office asks for when the project has no jurisdiction record yet. */
-export const DEFAULT_REQUIRED_DOCUMENTS: readonly RequiredDocument[] = ["equipment-datasheets", "storage-listing", "site-plan"];
-
-export const REQUIRED_DOCUMENT_LABELS: Record<RequiredDocument, string> = {
-  "equipment-datasheets": "Datasheet for each major piece of equipment",
-  "storage-listing": "Listing of the energy storage units",
-  "site-plan": "Site plan",
-  "structural-letter": "Structural letter (roof mounts)",
-};
 
 export interface PacketDocuments {
   sitePlan: DocumentRef | null;

@@ -1,19 +1,12 @@
 import "server-only";
 import { runChecks, type CheckRun, type CheckStatus } from "../../compliance";
 import { requiredLabels } from "../../compliance/labels";
-import type { ProjectRecord } from "../../schemas/project-record";
+import { packetDraftReasons } from "../../packet/draft";
+import { DEFAULT_REQUIRED_DOCUMENTS, labelGap, REQUIRED_DOCUMENT_LABELS, type RequiredDocument } from "../../schemas/vocabulary";
 import { listProjectAttachments } from "../attachments";
 import { requirePermission, type ServiceContext } from "../context";
 import { getProjectRecord, type StoredProjectRecord } from "../projects/get-record";
-import {
-  DEFAULT_REQUIRED_DOCUMENTS,
-  REQUIRED_DOCUMENT_LABELS,
-  missingDocuments,
-  selectPacketDocuments,
-  type DocumentRef,
-  type PacketDocuments,
-  type RequiredDocument,
-} from "./documents";
+import { missingDocuments, selectPacketDocuments, type DocumentRef, type PacketDocuments } from "./documents";
 
 export interface PreflightCheck {
   id: string;
@@ -53,16 +46,6 @@ export interface PreflightParts {
   preflight: Preflight;
 }
 
-function missingLabelLines(record: ProjectRecord, run: CheckRun): string[] {
-  const lines: string[] = [];
-  for (const label of requiredLabels(record, run.edition)) {
-    const gaps = label.missing ?? [];
-    if (label.lines.length === 0) lines.push(`label ${label.id} (${label.title}) has no wording`);
-    else if (gaps.length) lines.push(`label ${label.id} (${label.title}) lacks ${gaps.join(", ")}`);
-  }
-  return lines;
-}
-
 /** The same reading the generation starts from, so the designer's list and the packet's cover agree. */
 export function buildPreflight(ctx: ServiceContext, projectId: string): PreflightParts {
   const stored = getProjectRecord(ctx, projectId);
@@ -75,12 +58,9 @@ export function buildPreflight(ctx: ServiceContext, projectId: string): Prefligh
   const failingChecks = run.results
     .filter((r) => r.status === "fail" || r.status === "needs-input")
     .map((r) => ({ id: r.id, checkId: r.checkId, title: r.title, subject: r.subject ?? null, status: r.status, message: r.message }));
-  const missingLabels = missingLabelLines(record, run);
-  const reasons: string[] = [];
-  if (run.counts.fail > 0) reasons.push(`${run.counts.fail} check${run.counts.fail === 1 ? " fails" : "s fail"}`);
-  if (run.counts["needs-input"] > 0) reasons.push(`${run.counts["needs-input"]} check${run.counts["needs-input"] === 1 ? " needs" : "s need"} input`);
-  if (missingLabels.length) reasons.push(`${missingLabels.length} required label${missingLabels.length === 1 ? " is" : "s are"} incomplete`);
-  if (missingDocs.length) reasons.push(`${missingDocs.length} required document${missingDocs.length === 1 ? " is" : "s are"} missing`);
+  const labels = requiredLabels(record, run.edition);
+  const missingLabels = labels.map(labelGap).filter((g): g is string => g !== undefined);
+  const reasons = packetDraftReasons(record, run, labels, missingDocs);
   const preflight: Preflight = {
     projectId: stored.projectId,
     projectName: record.name,

@@ -12,6 +12,7 @@ import { conflict, invalid } from "../errors";
 import { insertCorrectionItems } from "../corrections/record";
 import { assignableUsers, checkedAssignee, standingItems } from "../corrections/shared";
 import { liveRecord, revisionMatchesLive } from "../projects/approval";
+import { mailHandOff, permitNumberOf } from "./hand-off-mail";
 import { effectiveEvents, loadEventRows, moveProjectForEvents, standingOf, type EffectiveEvent } from "./events";
 import { activeInstallers, addDays, deliverAfterCommit, findSubmissionInOrg, isoDay, revisionDesigner } from "./shared";
 
@@ -121,6 +122,18 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
         note: [note, ...(corrections ?? []).map((c, i) => `${i + 1}. ${c.comment}`)].filter(Boolean).join("\n") || "(no details recorded; ask the permit office)",
       });
     }
+    const told = mailHandOff(tx, ctx, kind, {
+      designer,
+      submissionId: submission.id,
+      jurisdictionName: jurisdiction.name,
+      typicalReviewDays: jurisdiction.typicalReviewDays,
+      projectName: project.name,
+      referenceNumber: reference,
+      occurredOn,
+      note: note ?? "",
+      inspectionKind,
+      permitNumber: permitNumberOf(events),
+    });
     if (kind === "permit-issued") {
       const to = new Map<string, string>();
       if (designer) to.set(designer.email, designer.name);
@@ -135,10 +148,10 @@ export async function recordSubmissionEvent(ctx: ServiceContext, input: unknown,
       }
     }
     audit(tx, ctx, "submission.event", "submission", submission.id, { eventId: event.id, kind, occurredOn, data, ...(corrections?.length ? { comments: corrections.length } : {}) });
-    return { eventId: event.id, version: submission.version + 1 };
+    return { eventId: event.id, version: submission.version + 1, told };
   });
 
-  if (kind === "corrections-requested" || kind === "permit-issued") await deliverAfterCommit(options.deliver ?? deliverLater, ctx.db, ctx.orgId);
+  if (kind === "corrections-requested" || kind === "permit-issued" || result.told > 0) await deliverAfterCommit(options.deliver ?? deliverLater, ctx.db, ctx.orgId);
   return {
     eventId: result.eventId,
     submissionId: submission.id,

@@ -42,10 +42,15 @@ export function revisionDesigner(db: Db | Tx, orgId: string, userId: string | nu
 }
 
 export function activeInstallers(db: Db | Tx, orgId: string): { name: string; email: string }[] {
+  return activeWithRole(db, orgId, "installer");
+}
+
+/** Active users of the organisation holding a role, by name: who a hand-off mail goes to. */
+export function activeWithRole(db: Db | Tx, orgId: string, role: "installer" | "office" | "designer" | "reviewer"): { name: string; email: string }[] {
   return db
     .select({ name: users.name, email: users.email })
     .from(users)
-    .innerJoin(userRoles, and(eq(userRoles.userId, users.id), eq(userRoles.role, "installer")))
+    .innerJoin(userRoles, and(eq(userRoles.userId, users.id), eq(userRoles.role, role)))
     .where(and(eq(users.orgId, orgId), eq(users.active, true)))
     .orderBy(users.name)
     .all();

@@ -35,10 +35,15 @@ import * as eventsRoute from "../../../app/api/submissions/[id]/events/route";
 import * as submissionRoute from "../../../app/api/submissions/[id]/route";
 import * as submissionsRoute from "../../../app/api/submissions/route";
 import * as templateRoute from "../../../app/api/templates/[id]/route";
+import * as archiveRoute from "../../../app/api/projects/[id]/archive/route";
+import * as correctionRoute from "../../../app/api/corrections/[itemId]/route";
+import * as reviewNoteRoute from "../../../app/api/review-notes/[noteId]/route";
+import * as responseSheetRoute from "../../../app/api/submissions/[id]/response-sheet/route";
 import * as templatesRoute from "../../../app/api/templates/route";
 import * as uploadsRoute from "../../../app/api/uploads/route";
 import * as verifyRoute from "../../../app/api/verify/route";
-import { equipmentLibrary, jurisdictions, projectTemplates, submissionEvents, users } from "../../../db/schema";
+import { correctionItems, equipmentLibrary, jurisdictions, projectTemplates, reviewNotes, reviews, submissionEvents, submissions, users } from "../../../db/schema";
+import { archiveProject } from "../../../lib/services/projects/archive";
 import type { Role } from "../../../lib/auth/roles";
 import { getProjectRecord } from "../../../lib/services/projects/get-record";
 import { createSubmission } from "../../../lib/services/submissions";
@@ -88,6 +93,26 @@ const libraryCsv = () => fs.readFileSync("examples/equipment-library.csv", "utf8
 const templateVersion = (w: World, id: string) => w.db.select({ v: projectTemplates.version }).from(projectTemplates).where(eq(projectTemplates.id, id)).get()!.v;
 const freshTemplate = (w: World) => ({ id: saveTemplateFromProject(w.ctx.designer, w.projectId, { name: `Cabin kit ${++unique}` }).id });
 const equipmentTag = (w: World) => w.record.equipment.find((e) => e.kind === "inverter")?.tag ?? w.record.equipment[0]!.tag;
+
+/** One comment of the AHJ's letter on a fresh submission, as the office records it. */
+export async function freshCorrection(w: World): Promise<Record<string, string>> {
+  const { submissionId, eventId } = await freshSubmission(w);
+  const row = w.db.select({ projectId: submissions.projectId }).from(submissions).where(eq(submissions.id, submissionId!)).get()!;
+  const item = w.db
+    .insert(correctionItems)
+    .values({ orgId: w.ownOrgId, projectId: row.projectId, submissionId: submissionId!, eventId: eventId!, number: 1, comment: "Show the grounding electrode conductor size." })
+    .returning()
+    .get();
+  return { itemId: item.id };
+}
+
+/** A reviewer's note on a returned revision, which the designer and the reviewer answer. */
+export async function freshReviewNote(w: World): Promise<Record<string, string>> {
+  const revisionId = await w.fresh.inReviewRevision();
+  const review = w.db.insert(reviews).values({ orgId: w.ownOrgId, revisionId, reviewerId: w.ctx.reviewer.user.id, decision: "returned", generalNotes: "See the note." }).returning().get();
+  const note = w.db.insert(reviewNotes).values({ reviewId: review.id, targetKind: "general", text: "Label the battery disconnect." }).returning().get();
+  return { noteId: note.id };
+}
 
 async function freshSubmission(w: World): Promise<Record<string, string>> {
   const revisionId = await w.fresh.approvedRevision();
@@ -160,6 +185,55 @@ export const ENTRIES: Entry[] = [
     scoped: true,
     setup: freshTemplate,
     call: (_w, { id }) => http(templateRoute.DELETE, "DELETE", `/api/templates/${id}`, { params: { id: id! } }),
+  },
+
+  // Archive, corrections, review-note conversations
+  {
+    name: "POST /api/projects/[id]/archive",
+    allowed: DESIGNER,
+    scoped: true,
+    setup: (w) => ({ id: w.fresh.project() }),
+    call: (_w, { id }) => http(archiveRoute.POST, "POST", `/api/projects/${id}/archive`, { params: { id: id! } }),
+  },
+  {
+    name: "DELETE /api/projects/[id]/archive",
+    allowed: DESIGNER,
+    scoped: true,
+    setup: (w) => {
+      const id = w.fresh.project();
+      archiveProject(w.ctx.designer, id);
+      return { id };
+    },
+    call: (_w, { id }) => http(archiveRoute.DELETE, "DELETE", `/api/projects/${id}/archive`, { params: { id: id! } }),
+  },
+  {
+    name: "GET /api/submissions/[id]/response-sheet",
+    allowed: PROJECT_READERS,
+    scoped: true,
+    setup: async (w) => {
+      const { itemId } = await freshCorrection(w);
+      return { id: w.db.select().from(correctionItems).where(eq(correctionItems.id, itemId!)).get()!.submissionId };
+    },
+    call: (_w, { id }) => http(responseSheetRoute.GET, "GET", `/api/submissions/${id}/response-sheet`, { params: { id: id! } }),
+  },
+  {
+    name: "POST /api/corrections/[itemId]",
+    // Whoever carries a comment forward may hand it to someone: the designer, the reviewer and the office.
+    allowed: ["designer", "reviewer", "office"],
+    scoped: true,
+    setup: freshCorrection,
+    call: (w, { itemId }) => {
+      const version = w.db.select({ v: correctionItems.version }).from(correctionItems).where(eq(correctionItems.id, itemId!)).get()!.v;
+      return http(correctionRoute.POST, "POST", `/api/corrections/${itemId}`, { params: { itemId: itemId! }, json: { action: "assign", assigneeId: w.ctx.designer.user.id, version } });
+    },
+  },
+  {
+    name: "POST /api/review-notes/[noteId]",
+    // A review note is a conversation between the designer and the reviewer.
+    allowed: ["designer", "reviewer"],
+    scoped: true,
+    setup: freshReviewNote,
+    call: (_w, { noteId }) => http(reviewNoteRoute.POST, "POST", `/api/review-notes/${noteId}`, { params: { noteId: noteId! }, json: { action: "reply", body: "Added on E-004." } }),
   },
 
   // Files
@@ -331,6 +405,13 @@ export const ENTRIES: Entry[] = [
     call: (_w, { submissionId, eventId }) => action(submissionActions.voidEventAction(null, form({ submissionId: submissionId!, eventId: eventId!, reason: "Entered twice." }))),
   },
   {
+    name: "sendDigestAction",
+    // The office's own digest of overdue permits, sent to its own people.
+    allowed: OFFICE,
+    scoped: false,
+    call: () => action(submissionActions.sendDigestAction()),
+  },
+  {
     name: "saveSheetTemplateAction",
     allowed: OFFICE,
     scoped: true,
@@ -341,6 +422,25 @@ export const ENTRIES: Entry[] = [
     allowed: OFFICE,
     scoped: true,
     call: (w) => action(templateActions.previewSheetTemplateAction({ jurisdictionId: w.jurisdictionId, name: "general-notes", source: "{{#each" })),
+  },
+
+  {
+    name: "saveJurisdictionAction",
+    allowed: OFFICE,
+    scoped: true,
+    call: (w) => action(templateActions.saveJurisdictionAction(w.jurisdictionId, { version: jurisdictionVersion(w), typicalReviewDays: 12 })),
+  },
+  {
+    name: "previewJurisdictionAction",
+    allowed: OFFICE,
+    scoped: true,
+    call: (w) => action(templateActions.previewJurisdictionAction(w.jurisdictionId, { version: jurisdictionVersion(w), necEdition: "2020" })),
+  },
+  {
+    name: "addJurisdictionNoteAction",
+    allowed: OFFICE,
+    scoped: true,
+    call: (w) => action(templateActions.addJurisdictionNoteAction({ jurisdictionId: w.jurisdictionId, text: "The counter wants two printed sets." })),
   },
 
   // Server actions: reviewers

@@ -1,7 +1,9 @@
 import fs from "node:fs";
 import { describe, expect, it } from "vitest";
 import { parseProjectFile, runChecks } from "../../../lib/compliance";
+import { documentChecklist } from "../../../lib/compliance/documents";
 import { requiredLabels } from "../../../lib/compliance/labels";
+import { packetDraftReasons } from "../../../lib/packet/draft";
 import { missingDocuments as packetMissing } from "../../../lib/packet/model";
 import { missingDocuments as preflightMissing } from "../../../lib/services/revisions/documents";
 
@@ -46,5 +48,33 @@ describe("missing documents say the same in the check, the preflight and the pac
     expect(preflightMissing(record, [{ kind: "storage-listing", equipmentTag: null } as never], ["storage-listing"])).toEqual(batteries);
     expect(preflightMissing(record, [{ kind: "storage-listing", equipmentTag: "INV-1" } as never], ["storage-listing"])).toEqual(batteries);
     expect(preflightMissing(record, [{ kind: "storage-listing", equipmentTag: "BAT-1" } as never], ["storage-listing"])).toEqual([]);
+  });
+
+  it("lists on the attachments page exactly the items the check counts: a listing filed for one battery leaves the other's open", () => {
+    const record = example("ferncliff-farmhouse.json");
+    const batteries = record.equipment.filter((e) => e.kind === "battery");
+    const [first] = batteries;
+    const docs = [{ kind: "storage-listing", equipmentTag: first!.tag }];
+    const items = documentChecklist(record, docs, ["storage-listing"]);
+    expect(items.map((i) => i.tag)).toEqual(batteries.map((b) => b.tag));
+    expect(items.filter((i) => !i.attached).map((i) => i.missing)).toEqual(preflightMissing(record, docs as never, ["storage-listing"]));
+    if (batteries.length > 1) expect(items.filter((i) => !i.attached).length).toBe(batteries.length - 1);
+  });
+});
+
+describe("the draft verdict is one rule for the preflight and the packet cover", () => {
+  it("is a draft while a check fails or needs input, a label cannot print or a document is missing, and says so in counted words", () => {
+    const record = { ...example("tamarack-hut.json"), attachments: [] };
+    const run = runChecks(record);
+    const labels = requiredLabels(record);
+    const missing = preflightMissing(record, [], record.jurisdiction.requiredDocuments);
+    const reasons = packetDraftReasons(record, run, labels, missing);
+    if (run.counts.fail) expect(reasons).toContain(`${run.counts.fail} check${run.counts.fail === 1 ? " fails" : "s fail"}`);
+    for (const m of missing) expect(reasons).toContain(m);
+    const clean = { ...run, counts: { ...run.counts, fail: 0, "needs-input": 0 } };
+    const printable = labels.map((l) => ({ ...l, missing: [] }));
+    expect(packetDraftReasons(record, clean, printable, [])).toEqual([]);
+    expect(packetDraftReasons(record, { counts: { ...clean.counts, "needs-input": 2 } }, printable, [])).toEqual(["2 checks need input"]);
+    expect(packetDraftReasons(record, clean, [{ ...printable[0]!, lines: [] }], [])).toEqual([`label ${printable[0]!.id} (${printable[0]!.title}) has no wording`]);
   });
 });

@@ -43,11 +43,11 @@ export const standAloneInput: ProjectRecordInput = {
   ],
   arrays: [{ tag: "PV-1", moduleTag: "PV-M1", modulesInSeries: 3, stringsInParallel: 2, feedsTag: "CC-1" }],
   circuits: [
-    { tag: "C-1", fromTag: "PV-1", toTag: "CC-1", kind: "pv-output", arrayTag: "PV-1", material: "cu", size: "10", insulation: "PV WIRE", insulationTempRatingC: 90, racewayType: "PVC", racewaySize: "3/4", lengthFt: 60, egcSize: "10", disconnectTags: ["DC-PV"] },
+    { tag: "C-1", fromTag: "PV-1", toTag: "CC-1", kind: "pv-output", arrayTag: "PV-1", material: "cu", size: "10", insulation: "PV WIRE", insulationTempRatingC: 90, racewayType: "PVC-40", racewaySize: "3/4", lengthFt: 60, egcSize: "10", disconnectTags: ["DC-PV"] },
     { tag: "C-2", fromTag: "CC-1", toTag: "BUS-1", kind: "battery", size: "6", insulation: "THWN-2", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "3/4", lengthFt: 6, egcSize: "8", ocpdTag: "CB-CC" },
     { tag: "C-3", fromTag: "BUS-1", toTag: "BAT-1", kind: "battery", size: "4/0", insulation: "THHN", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "1-1/4", lengthFt: 4, egcSize: "4", ocpdTag: "F-BAT" },
     { tag: "C-4", fromTag: "BUS-1", toTag: "INV-1", kind: "inverter-dc-input", size: "2/0", insulation: "THHN", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "1-1/4", lengthFt: 5, egcSize: "6", ocpdTag: "CB-INV", disconnectTags: ["CB-INV"] },
-    { tag: "C-5", fromTag: "GEN-1", toTag: "INV-1", kind: "generator-output", size: "10", insulation: "THWN-2", insulationTempRatingC: 90, racewayType: "PVC", racewaySize: "3/4", lengthFt: 40, egcSize: "10", disconnectTags: ["DS-GEN"] },
+    { tag: "C-5", fromTag: "GEN-1", toTag: "INV-1", kind: "generator-output", size: "10", insulation: "THWN-2", insulationTempRatingC: 90, racewayType: "PVC-40", racewaySize: "3/4", lengthFt: 40, egcSize: "10", disconnectTags: ["DS-GEN"] },
     { tag: "C-6", fromTag: "INV-1", toTag: "PNL-1", kind: "inverter-ac-output", size: "6", insulation: "THWN-2", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "1", lengthFt: 12, egcSize: "10" },
   ],
   loads: [{ name: "Well pump", watts: 750, hoursPerDay: 1.5, surgeW: 2200 }],
@@ -83,7 +83,7 @@ export const hybridInput: ProjectRecordInput = {
     { tag: "S-B", fromTag: "PV-M2", toTag: "HINV-1", kind: "pv-source", arrayTag: "PV-B", size: "10", insulation: "PV WIRE", insulationTempRatingC: 90, onRooftop: true, racewayType: "EMT", racewaySize: "3/4", currentCarryingConductors: 4, egcSize: "10" },
     { tag: "B-1", fromTag: "BAT-1", toTag: "HINV-1", kind: "battery", insulation: "THHN" },
     { tag: "AC-1", fromTag: "HINV-1", toTag: "MSP", kind: "inverter-ac-output", size: "8", insulation: "THWN-2", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "3/4", egcSize: "10", ocpdTag: "CB-PV" },
-    { tag: "AC-2", fromTag: "MSP", toTag: "SUBP-1", kind: "ac-branch", size: "6", material: "al", insulation: "XHHW-2", racewayType: "PVC", racewaySize: "1", egcSize: "8", egcMaterial: "al" },
+    { tag: "AC-2", fromTag: "MSP", toTag: "SUBP-1", kind: "ac-branch", size: "6", material: "al", insulation: "XHHW-2", racewayType: "PVC-40", racewaySize: "1", egcSize: "8", egcMaterial: "al" },
   ],
 };
 
@@ -131,8 +131,8 @@ export const largeInput: ProjectRecordInput = {
   ],
   circuits: [
     ...(standAloneInput.circuits ?? []),
-    { tag: "S-1", fromTag: "PV-2", toTag: "CC-2", kind: "pv-source", arrayTag: "PV-2", size: "10", insulation: "PV WIRE", insulationTempRatingC: 90, racewayType: "PVC", racewaySize: "1", currentCarryingConductors: 4, lengthFt: 80, egcSize: "10", ocpdTag: "F-S1" },
-    { tag: "S-2", fromTag: "PV-2", toTag: "CC-2", kind: "pv-source", arrayTag: "PV-2", size: "10", insulation: "PV WIRE", insulationTempRatingC: 90, racewayType: "PVC", racewaySize: "1", currentCarryingConductors: 4, lengthFt: 80, egcSize: "10", ocpdTag: "F-S2" },
+    { tag: "S-1", fromTag: "PV-2", toTag: "CC-2", kind: "pv-source", arrayTag: "PV-2", size: "10", insulation: "PV WIRE", insulationTempRatingC: 90, racewayType: "PVC-40", racewaySize: "1", currentCarryingConductors: 4, lengthFt: 80, egcSize: "10", ocpdTag: "F-S1" },
+    { tag: "S-2", fromTag: "PV-2", toTag: "CC-2", kind: "pv-source", arrayTag: "PV-2", size: "10", insulation: "PV WIRE", insulationTempRatingC: 90, racewayType: "PVC-40", racewaySize: "1", currentCarryingConductors: 4, lengthFt: 80, egcSize: "10", ocpdTag: "F-S2" },
     { tag: "C-7", fromTag: "CC-2", toTag: "BUS-1", kind: "battery", size: "2", insulation: "THWN-2", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "1", lengthFt: 6, egcSize: "6", ocpdTag: "CB-CC2" },
     { tag: "C-8", fromTag: "BUS-1", toTag: "BAT-2", kind: "battery", size: "4/0", insulation: "THHN", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "1-1/4", lengthFt: 4, egcSize: "4", ocpdTag: "F-BAT2" },
     { tag: "C-9", fromTag: "PNL-1", toTag: "SUB-1", kind: "ac-branch", size: "8", insulation: "THWN-2", insulationTempRatingC: 90, racewayType: "EMT", racewaySize: "3/4", lengthFt: 70, egcSize: "10", ocpdTag: "CB-SUB" },

@@ -87,7 +87,7 @@ describe("one-line layout", () => {
   it("puts size, material, insulation, EGC and raceway in each callout", async () => {
     const layout = await layoutOneLine(standAlone());
     const c1 = layout.edges.find((e) => e.circuitTag === "C-1")!;
-    expect(c1.callout).toEqual(["2 #10 AWG Cu PV WIRE 90 °C", "1 #10 EGC", "3/4 in PVC, 60 ft"]);
+    expect(c1.callout).toEqual(["2 #10 AWG Cu PV WIRE 90 °C", "1 #10 EGC", "3/4 in PVC-40, 60 ft"]);
     const c3 = layout.edges.find((e) => e.circuitTag === "C-3")!;
     expect(c3.callout[0]).toBe("2 4/0 AWG Cu THHN 90 °C");
     // 120/240 V single-phase: two lines and a neutral.
@@ -95,7 +95,7 @@ describe("one-line layout", () => {
     expect(c6.callout[0]).toBe("3 #6 AWG Cu THWN-2 90 °C");
     expect(c6.callout[1]).toBe("1 #10 EGC");
     const ac2 = (await layoutOneLine(hybrid())).edges.find((e) => e.circuitTag === "AC-2")!;
-    expect(ac2.callout).toEqual(["3 #6 AWG Al XHHW-2", "1 #8 Al EGC", "1 in PVC"]);
+    expect(ac2.callout).toEqual(["3 #6 AWG Al XHHW-2", "1 #8 Al EGC", "1 in PVC-40"]);
     for (const e of layout.edges) {
       expect(e.callout.join(" ")).toMatch(/AWG|kcmil/);
       expect(e.callout.join(" ")).toMatch(/Cu|Al/);

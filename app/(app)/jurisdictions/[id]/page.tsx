@@ -2,25 +2,20 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { JurisdictionForm } from "@/components/jurisdictions/jurisdiction-form";
 import { NotesLog } from "@/components/jurisdictions/notes-log";
+import { SummaryCard } from "@/components/jurisdictions/summary-card";
 import { TemplateEditor } from "@/components/jurisdictions/template-editor";
 import { PageHeader, Refusal } from "@/components/ui/page-header";
 import { pageContext } from "@/lib/auth/page-context";
-import { DEFAULT_VOLTAGE_DROP_LIMIT_PCT } from "@/lib/schemas/vocabulary";
+import { DEFAULT_VOLTAGE_DROP_LIMIT_PCT, REQUIRED_DOCUMENT_LABELS } from "@/lib/schemas/vocabulary";
 import { can } from "@/lib/auth/permissions";
 import { ServiceError } from "@/lib/services/errors";
 import type { JurisdictionEditInput } from "@/lib/schemas/jurisdiction";
 import { getJurisdiction } from "@/lib/services/jurisdictions/get";
 import { listJurisdictionNotes } from "@/lib/services/jurisdictions/notes";
+import { jurisdictionSummary } from "@/lib/services/jurisdictions/summary";
 import { listSheetTemplates } from "@/lib/services/jurisdictions/templates";
 
 export const metadata: Metadata = { title: "Jurisdiction" };
-
-const DOCUMENT_LABELS: Record<string, string> = {
-  "equipment-datasheets": "Equipment datasheets",
-  "storage-listing": "Storage listing",
-  "site-plan": "Site plan",
-  "structural-letter": "Structural letter",
-};
 
 function Field({ label, children }: { label: string; children: React.ReactNode }) {
   return (
@@ -56,6 +51,7 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
   const labelRules = j.labelRules ?? {};
   const canEdit = can(ctx.roles, "jurisdiction:edit");
   const notes = listJurisdictionNotes(ctx, id);
+  const summary = can(ctx.roles, "submission:read") ? jurisdictionSummary(ctx, id) : null;
   return (
     <>
       <PageHeader title={j.name} sheet={`Jurisdiction · ${j.region || "region not recorded"}`}>
@@ -84,7 +80,10 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
               version: j.version,
             }}
           />
-          <NotesLog jurisdictionId={j.id} notes={notes} canWrite />
+          <div className="space-y-4">
+            {summary ? <SummaryCard summary={summary} /> : null}
+            <NotesLog jurisdictionId={j.id} notes={notes} canWrite />
+          </div>
         </div>
       ) : null}
       <div className={canEdit ? "" : "grid gap-4 lg:grid-cols-[20rem_1fr]"}>
@@ -104,7 +103,7 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
               <span className="figure">{j.storageAggregateLimitKWh != null ? `${j.storageAggregateLimitKWh} kWh` : "per the code table"}</span>
             </Field>
             <Field label="Required documents">
-              {j.requiredDocuments.length ? j.requiredDocuments.map((d) => DOCUMENT_LABELS[d] ?? d).join(", ") : "none recorded"}
+              {j.requiredDocuments.length ? j.requiredDocuments.map((d) => (REQUIRED_DOCUMENT_LABELS as Record<string, string | undefined>)[d] ?? d).join(", ") : "none recorded"}
             </Field>
             <Field label="Label rules">
               {[labelRules.material, labelRules.reflective ? "reflective" : null, labelRules.minLetterHeightIn ? `letters ≥ ${labelRules.minLetterHeightIn} in` : null, labelRules.colours]
@@ -125,6 +124,7 @@ export default async function JurisdictionPage({ params }: { params: Promise<{ i
             </Field>
           </dl>
         </section>
+        {summary ? <SummaryCard summary={summary} /> : null}
         <NotesLog jurisdictionId={j.id} notes={notes} canWrite={false} />
         </div>
         )}

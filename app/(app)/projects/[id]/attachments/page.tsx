@@ -4,7 +4,7 @@ import { AttachmentUploader, type EquipmentOption } from "@/components/attachmen
 import { SubmittalChecklist, type ChecklistItem } from "@/components/attachments/submittal-checklist";
 import { pageContext } from "@/lib/auth/page-context";
 import { can } from "@/lib/auth/permissions";
-import { DATASHEET_KINDS } from "@/lib/compliance/documents";
+import { documentChecklist } from "@/lib/compliance/documents";
 import { env } from "@/lib/env";
 import type { ProjectRecord } from "@/lib/schemas/project-record";
 import { listProjectAttachments } from "@/lib/services/attachments";
@@ -20,24 +20,14 @@ function equipmentDescription(e: ProjectRecord["equipment"][number], withKind = 
   return withKind ? `${model} (${kind})` : model;
 }
 
-/** The jurisdiction's required documents, item by item, with the same rules the submittal-completeness check applies. */
+/** The jurisdiction's required documents, item by item: the list the submittal check, the preflight and the packet read. */
 function checklist(record: ProjectRecord): ChecklistItem[] {
-  const has = (kind: string, tag?: string) => record.attachments.some((a) => a.kind === kind && (tag === undefined || a.equipmentTag === tag));
-  const required = new Set(record.jurisdiction.requiredDocuments);
-  const items: ChecklistItem[] = [];
-  if (required.has("equipment-datasheets")) {
-    for (const e of record.equipment) {
-      if (DATASHEET_KINDS.includes(e.kind)) items.push({ label: "Datasheet", tag: e.tag, detail: equipmentDescription(e), attached: has("datasheet", e.tag) });
-    }
-  }
-  if (required.has("storage-listing")) {
-    for (const e of record.equipment) {
-      if (e.kind === "battery") items.push({ label: "Storage listing", tag: e.tag, detail: equipmentDescription(e), attached: has("storage-listing", e.tag) });
-    }
-  }
-  if (required.has("site-plan")) items.push({ label: "Site plan", attached: has("site-plan") });
-  if (required.has("structural-letter") && record.site.mounting === "roof") items.push({ label: "Structural letter", detail: "roof mount", attached: has("structural-letter") });
-  return items;
+  const byTag = new Map(record.equipment.map((e) => [e.tag, e]));
+  return documentChecklist(record, record.attachments, record.jurisdiction.requiredDocuments).map((item) => {
+    const e = item.tag ? byTag.get(item.tag) : undefined;
+    const detail = e ? equipmentDescription(e) : item.document === "structural-letter" ? "roof mount" : undefined;
+    return { label: item.label, attached: item.attached, ...(item.tag ? { tag: item.tag } : {}), ...(detail ? { detail } : {}) };
+  });
 }
 
 export default async function ProjectAttachmentsPage({ params }: { params: Promise<{ id: string }> }) {
