@@ -64,6 +64,13 @@ const protectiveFields: RatingField[] = [
   { key: "currentType", label: "Current", type: "select", options: [{ value: "ac", label: "AC" }, { value: "dc", label: "DC" }, { value: "ac-dc", label: "AC and DC" }] },
   { key: "interruptingRatingA", label: "Interrupting rating", unit: "A", type: "number" },
   { key: "distanceFromBatteryFt", label: "Distance from battery", unit: "ft", type: "number", help: "For a device protecting a battery circuit." },
+  {
+    key: "clearingTimeMs",
+    label: "Clearing time at the battery's fault current",
+    unit: "ms",
+    type: "number",
+    help: "From the fuse's or breaker's time-current curve at the battery's short-circuit current; the storage disconnect label carries it (706.15(C)).",
+  },
   { key: "breakerMounting", label: "Breaker mounting", type: "select", options: opts("plug-in", "bolt-on"), help: "A back-fed plug-in breaker needs a hold-down (408.36(D))." },
   { key: "hasHoldDown", label: "Hold-down fastener", type: "tri-state" },
   { key: "locatedAtTag", label: "Stands at (tag)", type: "text", help: "The equipment it stands beside, e.g. the generator it disconnects (445.18)." },

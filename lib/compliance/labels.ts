@@ -39,11 +39,19 @@ function fmt(value: number, digits = 1): string {
   return value.toFixed(digits).replace(/\.0+$/, "");
 }
 
-export function requiredLabels(record: ProjectRecord, edition: NecEdition = record.jurisdiction.necEdition): LabelRequirement[] {
-  return labelsFor(buildContext(record, edition));
+export interface LabelOptions {
+  /**
+   * The date the label values were calculated (YYYY-MM-DD): the revision's date. The storage disconnect label
+   * carries it; the engine reads no clock, so the caller supplies it.
+   */
+  calculatedOn?: string;
 }
 
-export function labelsFor(ctx: CheckContext): LabelRequirement[] {
+export function requiredLabels(record: ProjectRecord, edition: NecEdition = record.jurisdiction.necEdition, options: LabelOptions = {}): LabelRequirement[] {
+  return labelsFor(buildContext(record, edition), options);
+}
+
+export function labelsFor(ctx: CheckContext, options: LabelOptions = {}): LabelRequirement[] {
   const ed = ctx.edition;
   const r = ctx.record;
   const out: LabelRequirement[] = [];
@@ -148,6 +156,22 @@ export function labelsFor(ctx: CheckContext): LabelRequirement[] {
     const nominal = t.need(`${b.path}.nominalVoltageV`, "Nominal voltage", b.item.nominalVoltageV, "V");
     const sc = t.need(`${b.path}.shortCircuitCurrentA`, "Available short-circuit current", b.item.shortCircuitCurrentA, "A");
     const maxV = batteryMaxVoltage(b, t);
+    // The battery's main fuse or breaker (the largest on its circuits) clears a fault the bank feeds; its
+    // time-current curve gives the clearing time at the bank's available fault current.
+    const batteryCircuits = circuitsNear(ctx, b.item.tag);
+    const rating = (e: ReturnType<typeof ctx.equipment.get>) =>
+      e && "ratingA" in e.item && e.item.ratingA !== undefined ? e.item.ratingA : 0;
+    const ocpd = batteryCircuits
+      .map((c) => (c.item.ocpdTag ? ctx.equipment.get(c.item.ocpdTag) : undefined))
+      .filter((e) => e && (e.item.kind === "fuse" || e.item.kind === "breaker"))
+      .sort((x, y) => rating(y) - rating(x))[0];
+    let clearing = `${BLANK} ms`;
+    if (ocpd && (ocpd.item.kind === "fuse" || ocpd.item.kind === "breaker")) {
+      const ms = t.need(`${ocpd.path}.clearingTimeMs`, "Clearing time", ocpd.item.clearingTimeMs, "ms");
+      if (ms !== undefined) clearing = `${fmt(ms)} ms (${ocpd.item.tag})`;
+    } else if (batteryCircuits[0]) {
+      t.need(`${batteryCircuits[0].path}.ocpdTag`, "Overcurrent device", undefined, "");
+    }
     out.push({
       id: `ess-disconnect:${b.item.tag}`,
       codeRef: storageRefs(ctx, "ess-label")[0]!,
@@ -157,8 +181,8 @@ export function labelsFor(ctx: CheckContext): LabelRequirement[] {
         `NOMINAL VOLTAGE: ${nominal !== undefined ? `${fmt(nominal)} V DC` : `${BLANK} V DC`}`,
         ...(maxV !== undefined ? [`MAXIMUM VOLTAGE: ${fmt(maxV)} V DC`] : []),
         `MAXIMUM AVAILABLE SHORT-CIRCUIT CURRENT: ${sc !== undefined ? `${fmt(sc * b.item.quantity, 0)} A` : `${BLANK} A`}`,
-        `ASSOCIATED CLEARING TIME OR ARC DURATION: ${BLANK} (from the protecting device's time-current curve)`,
-        `DATE CALCULATED: ${BLANK}`,
+        `ASSOCIATED CLEARING TIME: ${clearing}`,
+        `DATE CALCULATED: ${options.calculatedOn ?? BLANK}`,
         "TERMINALS ON THE LINE AND LOAD SIDES MAY BE ENERGIZED IN THE OPEN POSITION",
       ],
       location: devices.length ? `On battery disconnect ${devices.join(", ")} of ${b.item.tag}` : `At the disconnect of ${b.item.tag}`,

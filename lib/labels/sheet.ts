@@ -2,7 +2,7 @@ import { PDFDocument, rgb, type PDFPage } from "pdf-lib";
 import { embedPacketFonts, type PdfFonts } from "../packet/fonts";
 import { wrapText } from "../packet/text";
 import { labelArtwork, type ArtworkOptions } from "./artwork";
-import { drawLabelLayout, fitLabel } from "./draw";
+import { drawLabelLayout, fitLabel, type LabelFonts } from "./draw";
 import type { LabelRequirement } from "./types";
 
 /**
@@ -82,6 +82,17 @@ function drawBelowMinimumNote(page: PDFPage, fonts: PdfFonts, stock: LabelStock,
   shown.forEach((line, i) => {
     page.drawText(line, { x, y: bottomMarginPt - 4 - NOTE_PT - i * NOTE_LH, size: NOTE_PT, font: fonts.bold, color: rgb(0, 0, 0) });
   });
+}
+
+/** The stocks a label prints on at its full minimum letter heights, smallest label first, as the label sheets lay it out. */
+export function stocksThatFit(req: LabelRequirement, fonts: LabelFonts): { name: LabelStockName; stock: LabelStock }[] {
+  return (Object.entries(LABEL_STOCKS) as [LabelStockName, LabelStock][])
+    .filter(([, stock]) => {
+      const art = labelArtwork(req, { widthIn: stock.labelWidthIn });
+      return fitLabel(art, fonts, (stock.labelWidthIn - 2 * BLEED_IN) * IN, (stock.labelHeightIn - 2 * BLEED_IN) * IN).letterScale >= 1;
+    })
+    .sort(([, a], [, b]) => a.labelWidthIn * a.labelHeightIn - b.labelWidthIn * b.labelHeightIn)
+    .map(([name, stock]) => ({ name, stock }));
 }
 
 export async function renderLabelSheet(labels: LabelRequirement[], options: LabelSheetOptions): Promise<LabelSheetResult> {

@@ -20,6 +20,7 @@ import {
 } from "docx";
 import type { CheckResult, CheckStatus } from "../compliance/types";
 import { labelArtwork, type Rgb } from "../labels/artwork";
+import { docxFigures, type DocxFigures, type DocxImage } from "./docx-figures";
 import { STATUS_SHAPE, STATUS_WORD, formatCheckValue } from "./format";
 import type { Block, Cell } from "./markup";
 import { buildPacketModel, type PacketModel } from "./model";
@@ -163,7 +164,18 @@ export function imageSize(bytes: Uint8Array, type: "png" | "jpeg"): { width: num
   return null;
 }
 
-function blockChildren(block: Block, input: PacketInput): FileChild[] {
+/** A drawing at the width of the page's text (9 in of a landscape letter page, at the 96 px per inch docx measures in), within 5.5 in of height. */
+function imageRun(image: DocxImage, name: string, description: string): ImageRun {
+  const scale = Math.min((9 * 96) / image.width, (5.5 * 96) / image.height);
+  return new ImageRun({
+    type: "png",
+    data: image.png,
+    transformation: { width: Math.round(image.width * scale), height: Math.round(image.height * scale) },
+    altText: { name, description, title: name },
+  });
+}
+
+function blockChildren(block: Block, input: PacketInput, figures: DocxFigures): FileChild[] {
   switch (block.kind) {
     case "heading":
       return [new Paragraph({ heading: block.level === 1 ? HeadingLevel.HEADING_2 : HeadingLevel.HEADING_3, children: [run(block.text, { bold: true, size: block.level === 1 ? 24 : 20 })] })];
@@ -213,9 +225,17 @@ function blockChildren(block: Block, input: PacketInput): FileChild[] {
       }
       if (block.figure === "split-phase") {
         const [inverter, panel] = block.caption.split("|");
+        const image = figures.threeLine.get(block.caption);
+        if (image) return [new Paragraph({ children: [imageRun(image, "Three-line detail", `Three-line detail: ${inverter} (120 V) feeding ${panel} (120/240 V), L1–L2 jumper, neutral and EGC`)] })];
         return [new Paragraph({ children: [run(`Three-line detail (${inverter} to ${panel}, L1–L2 jumper and neutral) is drawn on sheet E-007 of the PDF packet.`)] })];
       }
-      return [new Paragraph({ children: [run("The one-line diagram is drawn on sheet E-001 of the PDF packet; its circuits are listed on the conductor schedule (E-004).")] })];
+      if (figures.oneLine) {
+        return [
+          new Paragraph({ children: [imageRun(figures.oneLine, "One-line diagram", `One-line diagram of ${input.record.name}, drawn from the design record`)] }),
+          new Paragraph({ children: [run("Circuit tags refer to the conductor schedule (E-004); equipment tags to the equipment schedule (E-005).", { size: 16 })] }),
+        ];
+      }
+      return [new Paragraph({ children: [run("No circuits or equipment are entered, so there is no one-line diagram yet.")] })];
     }
     case "labels":
       return block.labels.length ? block.labels.flatMap(labelTable) : [new Paragraph({ children: [run("No labels are required for this system.")] })];
@@ -239,6 +259,7 @@ export async function renderPacketDocx(input: PacketInput, options: DocxOptions 
     (options.sheetPages ?? []).map((s) => [s.sheet, s.pageCount > 1 ? `${s.firstPage}–${s.firstPage + s.pageCount - 1}` : String(s.firstPage)]),
   );
   const model = buildPacketModel(input, { sheetPages: pages });
+  const figures = await docxFigures(input, model);
   const t = model.titleBlock;
   const children: FileChild[] = [];
   model.sheets.forEach((sheet, i) => {
@@ -249,7 +270,7 @@ export async function renderPacketDocx(input: PacketInput, options: DocxOptions 
         children: [run(`${sheet.code}  ${sheet.title}`, { bold: true, size: 30 })],
       }),
     );
-    for (const block of sheet.blocks) children.push(...blockChildren(block, input));
+    for (const block of sheet.blocks) children.push(...blockChildren(block, input, figures));
   });
   if (model.datasheets.length) {
     children.push(new Paragraph({ heading: HeadingLevel.HEADING_1, pageBreakBefore: true, children: [run("Attached datasheets", { bold: true, size: 30 })] }));

@@ -7,6 +7,7 @@
 import type { CheckRun, LabelRequirement } from "../compliance";
 import type { ProjectRecord } from "../schemas/project-record";
 import { draftReasons, labelGap } from "../schemas/vocabulary";
+import { fieldName } from "./record-words";
 import { racewayFillRows } from "./sheets/raceway-fill";
 
 export function packetDraftReasons(
@@ -18,7 +19,10 @@ export function packetDraftReasons(
   const overfilled = racewayFillRows(record).filter((r) => r.status === "fail").map((r) => r.circuit);
   return draftReasons({
     counts: run.counts,
-    labelGaps: labels.map(labelGap).filter((g): g is string => g !== undefined),
+    // A label's missing values are named by the form's field labels, as everywhere else a designer reads them.
+    labelGaps: labels
+      .map((l) => labelGap(l.missing ? { ...l, missing: l.missing.map((p) => fieldName(record, p)) } : l))
+      .filter((g): g is string => g !== undefined),
     sheetGaps: overfilled.length ? [`raceway fill over the Chapter 9 limit: ${overfilled.join(", ")}`] : [],
     missingDocuments,
   });

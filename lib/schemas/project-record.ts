@@ -238,6 +238,11 @@ export const protectiveDeviceSchema = z.object({
   interruptingRatingA: numberIn(100, 300000, "A").optional(),
   /** Distance from the battery terminals, for devices protecting a battery circuit. */
   distanceFromBatteryFt: numberIn(0, 1000, "ft").optional(),
+  /**
+   * For a fuse or breaker protecting a battery circuit: its clearing time at the battery's available
+   * short-circuit current, read from the device's time-current curve; the storage disconnect label carries it.
+   */
+  clearingTimeMs: numberIn(0.1, 100000, "ms").optional(),
   /** How a breaker mounts in its panel: plug-in breakers that are back-fed need a hold-down fastener (408.36(D)). */
   breakerMounting: z.enum(["plug-in", "bolt-on"]).optional(),
   /** Secured by an additional fastener that takes more than a pull to release (a listed hold-down kit). */

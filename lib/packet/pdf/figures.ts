@@ -1,6 +1,7 @@
 import { type Color, type PDFFont } from "pdf-lib";
 import { drawLabel, layoutLabel } from "../../labels/draw";
 import { labelArtwork } from "../../labels/artwork";
+import { stocksThatFit, type LabelStock } from "../../labels/sheet";
 import { drawText } from "../text-layer";
 import { textWidth, wrapText } from "../text";
 import type { PacketInput } from "../types";
@@ -56,6 +57,15 @@ export function labelRowItem(ctx: Ctx, labels: PacketInput["labels"], w: number)
     push(fonts.condensed, l.location);
     if (l.equipmentTag) push(fonts.condensed, `Equipment: ${l.equipmentTag}`);
     push(fonts.condensed, `Print ${art.widthIn} × ${(layout.heightPt / 72).toFixed(2)} in; letters ≥ ${art.minLetterHeightIn.signalWord} in / ${art.minLetterHeightIn.text} in`, MUTED);
+    // The smallest stock the label prints on at full letter height, so the installer orders the right labels.
+    const fits = stocksThatFit(l, fonts);
+    const size = (s: LabelStock) => `${s.labelWidthIn} × ${Math.round(s.labelHeightIn * 100) / 100} in`;
+    push(
+      fonts.condensedBold,
+      fits[0]
+        ? `Stock: ${size(fits[0].stock)} label (${fits.filter((f) => size(f.stock) === size(fits[0]!.stock)).map((f) => f.stock.description.split(",")[0]).join(" or ")})`
+        : "Stock: larger than every listed stock: print on a custom label",
+    );
     push(fonts.condensed, scale < 1 ? `Shown at ${Math.round(scale * 100)} %` : "Shown full size", MUTED);
     return { label: l, artH, text };
   });

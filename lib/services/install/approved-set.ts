@@ -59,7 +59,7 @@ export function getApprovedSet(ctx: ServiceContext, revisionId: string): Approve
     projectName: row.project.name,
     address: row.project.address,
     record,
-    labels: requiredLabels(record),
+    labels: requiredLabels(record, record.jurisdiction.necEdition, { calculatedOn: row.revision.createdAt.slice(0, 10) }),
     approvedBy: review?.licenceSnapshot?.reviewerName ?? null,
     licenceNumber: review?.licenceSnapshot?.licenceNumber ?? null,
     approvedAt: review?.createdAt ?? null,

@@ -141,7 +141,7 @@ export async function previewSheetTemplate(ctx: ServiceContext, jurisdictionId: 
     pdf = await renderPacketPdf({
       record,
       run,
-      labels: requiredLabels(record, run.edition),
+      labels: requiredLabels(record, run.edition, { calculatedOn: new Date().toISOString().slice(0, 10) }),
       revision: { number: 0, createdAt: new Date().toISOString(), preparedBy: ctx.user.name, organisation: currentOrganisation(ctx)?.name ?? "" },
       datasheets: [],
       templateOverrides: { ...overridesOf(row), [name]: normalised },

@@ -157,7 +157,7 @@ export async function generateRevisionArtifacts(db: Db, revisionId: string, opti
     at("checks");
     const run = row.resultsSnapshot as CheckRun;
     if (!run || !Array.isArray(run.results) || !run.counts) throw new StepError("the check results snapshot is missing");
-    const labels = requiredLabels(record, run.edition);
+    const labels = requiredLabels(record, run.edition, { calculatedOn: row.createdAt.slice(0, 10) });
     const { approval, stampAttachmentId, notes } = approvalFor(db, row);
     const org = db.select().from(organisations).where(eq(organisations.id, row.orgId)).get();
     const author = db.select({ name: users.name }).from(users).where(eq(users.id, row.createdBy)).get();

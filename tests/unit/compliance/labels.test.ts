@@ -22,6 +22,22 @@ describe("required labels", () => {
     expect(dc.location).toContain("DS-1");
   });
 
+  it("prints the storage disconnect's clearing time and the date calculated, or asks for the clearing time (706.15(C))", () => {
+    // NEC 2020 706.15(C): nominal voltage, available fault current with its clearing time, and the date calculated.
+    const labels = requiredLabels(parse(exampleJson("tamarack-hut")), "2020", { calculatedOn: "2026-11-30" });
+    const ess = byId(labels, "ess-disconnect:BAT-1");
+    expect(ess.lines).toContain("ASSOCIATED CLEARING TIME: 8 ms (F-1)");
+    expect(ess.lines).toContain("DATE CALCULATED: 2026-11-30");
+    expect(ess.lines.join(" ")).not.toContain("____");
+    expect(ess.missing).toBeUndefined();
+    // Without the fuse's clearing time the label asks for it by the field that clears it, never printing a guess.
+    const j = exampleJson("tamarack-hut");
+    delete equipment(j, "F-1").clearingTimeMs;
+    const blank = byId(requiredLabels(parse(j), "2020", { calculatedOn: "2026-11-30" }), "ess-disconnect:BAT-1");
+    const f1 = (j.equipment as { tag: string }[]).findIndex((e) => e.tag === "F-1");
+    expect(blank.missing).toEqual([`equipment.${f1}.clearingTimeMs`]);
+  });
+
   it("carries only the maximum DC voltage in 2023 (690.7(D))", () => {
     const labels = requiredLabels(parse(exampleJson("ferncliff-farmhouse")));
     const dc = byId(labels, "dc-source:PV-1");

@@ -2,6 +2,7 @@ import { PDFDocument } from "pdf-lib";
 import { describe, expect, it } from "vitest";
 import { DEJAVU_CAP_HEIGHT, embedPacketFonts } from "@/lib/packet/fonts";
 import { HEADER_STYLES, LABEL_STOCKS, SAFETY_COLOURS, drawLabel, labelArtwork, renderLabelSheet } from "@/lib/labels";
+import { stocksThatFit } from "@/lib/labels/sheet";
 import type { LabelRequirement } from "@/lib/labels/types";
 import { fixtureLabels } from "../packet/fixtures";
 import { readPdfText } from "../packet/pdf-text";
@@ -77,6 +78,18 @@ describe("renderLabelSheet", () => {
     expect(body.size * DEJAVU_CAP_HEIGHT).toBeGreaterThanOrEqual(9 - 0.01);
     const roomy = await renderLabelSheet([rapidShutdown], { stock: "single-4x6" });
     expect(roomy.belowMinimum).toEqual([]);
+  });
+
+  it("names the smallest stock each label prints on at full letter height, agreeing with the sheets it renders", async () => {
+    const doc = await PDFDocument.create();
+    const fonts = await embedPacketFonts(doc);
+    const small = stocksThatFit(fixtureLabels[0]!, fonts);
+    expect(small[0]!.stock.labelHeightIn).toBe(2);
+    // The rapid-shutdown sign's 3/8 in title and 3/16 in text (NEC 2020 690.56(C)(1)) do not fit 4 × 2 in.
+    const big = stocksThatFit(rapidShutdown, fonts);
+    expect(big.every((f) => f.stock.labelHeightIn > 2)).toBe(true);
+    const first = big[0]!.name;
+    expect((await renderLabelSheet([rapidShutdown], { stock: first })).belowMinimum).toEqual([]);
   });
 
   it("names a label set below the minimum in the sheet's bottom margin, at 8 pt, below the stock", async () => {

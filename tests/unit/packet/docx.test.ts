@@ -1,4 +1,7 @@
+import fs from "node:fs";
+import sharp from "sharp";
 import { beforeAll, describe, expect, it } from "vitest";
+import { parseProjectFile, runChecks } from "@/lib/compliance/index";
 import { imageSize, renderPacketDocx } from "@/lib/packet/docx";
 import { formatNumber } from "@/lib/packet/format";
 import { AHJ_FOOTER, REVIEW_MARKING, SHEET_PLAN } from "@/lib/packet/model";
@@ -21,7 +24,8 @@ describe("permit packet DOCX", () => {
     zip = readZip(bytes);
     documentXml = zip.get("word/document.xml")!.toString("utf8");
     rows = wordTableRows(documentXml);
-  });
+    // The one-line is laid out and drawn as a picture: seconds on a loaded machine.
+  }, 60_000);
 
   it("is a Word document with every sheet as a heading, in order", () => {
     expect(zip.has("[Content_Types].xml")).toBe(true);
@@ -92,7 +96,7 @@ describe("permit packet DOCX", () => {
     expect(header).toContain("PE-E 40417");
     expect(footer).toContain(AHJ_FOOTER);
     expect(header + footer + body).not.toContain(REVIEW_MARKING);
-  });
+  }, 60_000);
 
   it("embeds a site photo at its own proportions", async () => {
     expect(imageSize(makePng(300, 120, [10, 20, 30]), "png")).toEqual({ width: 300, height: 120 });
@@ -102,5 +106,40 @@ describe("permit packet DOCX", () => {
     const extent = /<wp:extent cx="(\d+)" cy="(\d+)"/.exec(z.get("word/document.xml")!.toString("utf8"));
     expect(extent).not.toBeNull();
     expect(Number(extent![1]) / Number(extent![2])).toBeCloseTo(2.5, 2);
-  });
+  }, 60_000);
+});
+
+describe("the DOCX carries the drawings", () => {
+  it("embeds the hut's one-line as a picture, with its failing battery circuit marked in red", async () => {
+    const parsed = parseProjectFile(JSON.parse(fs.readFileSync("examples/tamarack-hut.json", "utf8")));
+    if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
+    const bytes = await renderPacketDocx(fixtureInput({ record: parsed.record, run: runChecks(parsed.record), labels: [] }));
+    const z = readZip(bytes);
+    const xml = z.get("word/document.xml")!.toString("utf8");
+    expect(xml).toContain('descr="One-line diagram of Tamarack backcountry hut');
+    // The hut's 120 V inverter feeds a 120/240 V panel, so E-007 carries the three-line detail as a second picture.
+    expect(xml).toContain('descr="Three-line detail: INV-1 (120 V) feeding P-1 (120/240 V)');
+    const media = [...z].filter(([name]) => /^word\/media\/.+\.png$/.test(name)).map(([, b]) => b);
+    expect(media.length).toBe(2);
+    // The one-line is the taller picture; the three-line detail is a wide strip.
+    const heights = await Promise.all(media.map(async (b) => (await sharp(b).metadata()).height!));
+    const png = media[heights.indexOf(Math.max(...heights))]!;
+    const meta = await sharp(png).metadata();
+    // Drawn at 200 dpi: the layout is several hundred points wide, so well over 1,000 pixels.
+    expect(meta.width).toBeGreaterThan(1000);
+    // The drawing is there, not a blank page: dark linework and text, and the signal red of the FAIL marks on C-2.
+    const { data, info } = await sharp(png).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+    let dark = 0;
+    let red = 0;
+    for (let i = 0; i < data.length; i += info.channels) {
+      const [r, g, b] = [data[i]!, data[i + 1]!, data[i + 2]!];
+      if (r < 80 && g < 80 && b < 80) dark += 1;
+      if (r > 150 && g < 80 && b < 80) red += 1;
+    }
+    expect(dark).toBeGreaterThan(5000);
+    expect(red).toBeGreaterThan(500);
+    // The picture sits at the text width of the page: 9 in = 8,229,600 EMU.
+    const extent = [...xml.matchAll(/<wp:extent cx="(\d+)" cy="(\d+)"/g)].map((m) => [Number(m[1]), Number(m[2])]);
+    expect(extent.some(([cx, cy]) => cx! <= 9 * 914400 + 9525 && cy! <= 5.5 * 914400 + 9525 && (cx! > 8 * 914400 || cy! > 5 * 914400))).toBe(true);
+  }, 60_000);
 });
