@@ -22,11 +22,12 @@ export function CheckResultCard({ result, children }: { result: ReviewCheck; chi
       <p className="mt-1.5 max-w-prose text-sm leading-relaxed">{result.message}</p>
       {result.reason && !result.message.includes(result.reason) ? <p className="mt-1 max-w-prose text-sm leading-relaxed text-ink-soft">{result.reason}</p> : null}
       {result.values.length ? (
-        <dl className="mt-2 grid grid-cols-[minmax(0,1fr)_auto] gap-x-6 gap-y-0.5 text-sm sm:max-w-md">
+        // The name column keeps a width of its own, so a long value (a label's wording) wraps beside it instead of running over it.
+        <dl className="mt-2 grid grid-cols-[minmax(9rem,2fr)_minmax(0,3fr)] gap-x-6 gap-y-0.5 text-sm sm:max-w-xl">
           {result.values.map((v) => (
             <div key={v.key} className="contents">
               <dt className="text-ink-soft">{v.label}</dt>
-              <dd className="figure text-right">
+              <dd className={typeof v.value === "string" && v.value.length > 16 ? "break-words" : "figure text-right"}>
                 {formatValue(v.value)}
                 {v.unit ? <span className="ml-1 text-ink-faint">{v.unit}</span> : null}
               </dd>

@@ -127,6 +127,9 @@ test("the whole loop: designer sends, reviewer approves, office submits, the AHJ
 
   // 3. The office submits it, and the AHJ's plan review comes back with three comments.
   const office = await as(browser, "office");
+  // The office heard of the approval by mail.
+  await office.goto("/outbox");
+  await expect(office.locator("main")).toContainText(`Ready to submit: ${PROJECT} — revision ${rev1.number}`);
   await office.goto("/submissions/new");
   const submitForm = office.getByRole("form", { name: `Submit ${PROJECT}, revision ${rev1.number}` });
   await submitForm.getByLabel("Reference number").fill(REFERENCE);
