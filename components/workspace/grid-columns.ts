@@ -48,7 +48,7 @@ export function circuitColumns(tags: TagLists): GridColumn[] {
     { key: "tag", header: "Tag", type: "text", width: "w-14" },
     { key: "fromTag", header: "From", type: "select", options: tags.equipmentAndArrays, required: true, width: "w-36" },
     { key: "toTag", header: "To", type: "select", options: tags.equipmentAndArrays, required: true, width: "w-36" },
-    { key: "kind", header: "Kind", type: "select", options: KIND_OPTIONS, required: true, width: "w-32" },
+    { key: "kind", header: "Kind", type: "select", options: KIND_OPTIONS, required: true, width: "w-28" },
     { key: "arrayTag", header: "Array", type: "select", options: tags.arrayOptions, width: "w-24" },
     { key: "stringsCarried", header: "Strings", type: "integer", width: "w-14" },
     { key: "material", header: "Material", type: "select", options: MATERIAL_OPTIONS, required: true, width: "w-16" },

@@ -5,7 +5,7 @@
  * for line by a reviewer.
  */
 import type { Circuit, Equipment, ProjectRecord, PvArray } from "../schemas/project-record";
-import { CIRCUIT_KIND_WORDS, isInverter, isKcmilSize } from "../schemas/vocabulary";
+import { CIRCUIT_KIND_WORDS, isInverter, isKcmilSize, PHASE_WORDS } from "../schemas/vocabulary";
 
 export const CIRCUIT_KIND_LABELS: Record<Circuit["kind"], string> = CIRCUIT_KIND_WORDS;
 
@@ -101,7 +101,7 @@ export function equipmentLines(e: Equipment): string[] {
         join([
           e.nominalBatteryVoltageV !== undefined && `${fmt(e.nominalBatteryVoltageV)} V DC in`,
           e.acOutput !== undefined
-            ? `${e.acOutput} V AC${e.acOutputPhases > 1 ? ` ${e.acOutputPhases}-ph` : ""} out`
+            ? `${e.acOutput} V AC${e.acOutputPhases > 1 ? ` ${PHASE_WORDS[e.acOutputPhases]}` : ""} out`
             : e.acOutputVoltageV !== undefined && `${fmt(e.acOutputVoltageV)} V AC out`,
         ], ", "),
       );
@@ -215,6 +215,8 @@ export function conductorsPerSet(c: Circuit, record: ProjectRecord): number | un
       spec = e.voltage as VoltageSpec;
     }
   }
+  // Split phase: L1, L2 and the neutral, whatever single voltage was recorded.
+  if (phases === 2) return 3;
   switch (spec) {
     case "120":
       return 2; // line and neutral

@@ -20,7 +20,8 @@ export const systemKindSchema = z.enum(SYSTEM_KINDS, {
 });
 
 /** Phases of an AC supply or circuit: 1 for single or split phase (120, 240, 120/240), 3 for three phase. */
-export const phaseCountSchema = z.union([z.literal(1), z.literal(3)], { error: "must be 1 (single or split phase) or 3" });
+/** 1 single phase, 2 split phase (120/240 V, two lines and a neutral), 3 three phase. */
+export const phaseCountSchema = z.union([z.literal(1), z.literal(2), z.literal(3)], { error: "must be 1 (single phase), 2 (split phase, 120/240 V) or 3 (three phase)" });
 
 export const OCCUPANCIES = ["one-two-family-dwelling", "other-building"] as const;
 export const MOUNTINGS = ["ground", "roof"] as const;
@@ -165,7 +166,7 @@ export const inverterSchema = z.object({
   maxDcInputCurrentA: numberIn(1, 2000, "A").optional(),
   acOutputVoltageV: numberIn(100, 480, "V").optional(),
   acOutput: z.enum(["120", "240", "120/240", "208", "277/480"]).optional(),
-  acOutputPhases: integerIn(1, 3).default(1),
+  acOutputPhases: phaseCountSchema.default(1),
   maxAcOutputCurrentA: numberIn(0.1, 1000, "A").optional(),
   acInputCurrentLimitA: numberIn(1, 400, "A").optional(),
   idleW: numberIn(0, 500, "W").optional(),
@@ -210,7 +211,7 @@ export const generatorSchema = z.object({
   ratedKW: numberIn(0.1, 2000, "kW").optional(),
   voltageV: numberIn(100, 480, "V").optional(),
   output: z.enum(["120", "240", "120/240", "208", "277/480"]).optional(),
-  /** 3 for a three-phase set; its voltageV is then line to line. */
+  /** 2 for a split-phase (120/240 V) set, 3 for a three-phase set; its voltageV is then line to line. */
   phases: phaseCountSchema.default(1),
   fuel: z.enum(["gasoline", "diesel", "propane", "natural-gas", "other"]).optional(),
   hasOutputDisconnect: z.boolean().default(false),
@@ -384,7 +385,7 @@ export const circuitSchema = z
     /** Nominal voltage of the circuit where no equipment at its ends sets it (e.g. an AC branch circuit), for voltage drop and device ratings. */
     nominalVoltageV: numberIn(12, 600, "V").optional(),
     /**
-     * For an AC circuit: 1 (single or split phase) or 3. Empty takes the phases of the inverter or
+     * For an AC circuit: 1 (single phase), 2 (split phase, 120/240 V) or 3. Empty takes the phases of the inverter or
      * generator at its ends, else single phase (the larger current and drop for the same power).
      */
     phases: phaseCountSchema.optional(),

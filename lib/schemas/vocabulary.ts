@@ -106,6 +106,22 @@ export function batteryKWh(e: Extract<Equipment, { kind: "battery" }>): number |
   return undefined;
 }
 
+/* ------------------------------------------------------------------ phases */
+
+/** How an AC output or circuit is recorded: 1 single phase, 2 split phase (120/240 V), 3 three phase. */
+export type PhaseCount = 1 | 2 | 3;
+
+export const PHASE_WORDS: Record<PhaseCount, string> = { 1: "single phase", 2: "split phase", 3: "three phase" };
+
+/**
+ * The voltage a circuit's power divides by. A split-phase (120/240 V) output carries its power between its two
+ * lines, so the current is single phase at the line-to-line voltage: a figure of 130 V or less recorded for it is
+ * line to neutral and doubles (120 → 240 V). Other voltages are taken as recorded.
+ */
+export function lineToLineV(voltageV: number, phases: PhaseCount): number {
+  return phases === 2 && voltageV <= 130 ? voltageV * 2 : voltageV;
+}
+
 /* -------------------------------------------------------------- conductors */
 
 /**
@@ -122,13 +138,6 @@ export function isKcmilSize(size: string): boolean {
 /** "10 AWG", "3/0 AWG", "250 kcmil", with "Cu" or "Al" when the material is given, as a conductor schedule writes it. */
 export function conductorSizeText(size: string, material?: "cu" | "al"): string {
   return `${size} ${isKcmilSize(size) ? "kcmil" : "AWG"}${material ? (material === "cu" ? " Cu" : " Al") : ""}`;
-}
-
-/** A device rating with its unit ("40 A"), or a dash while it is not recorded. */
-export function ratingText(value: number | undefined | null, unit: string): string {
-  if (value === undefined || value === null || !Number.isFinite(value)) return "—";
-  const rounded = Math.round(value * 1000) / 1000;
-  return `${Object.is(rounded, -0) ? 0 : rounded} ${unit}`;
 }
 
 /* --------------------------------------------------------------- documents */

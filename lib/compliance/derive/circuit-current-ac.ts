@@ -4,6 +4,7 @@
  * line)); a larger design current wins.
  */
 import type { Circuit } from "../../schemas/project-record";
+import { lineToLineV, type PhaseCount } from "../../schemas/vocabulary";
 import { endpoint, isInverter, kindIs, v, type CheckContext, type Indexed, type Trace } from "../context";
 import { localRef } from "../refs";
 import { cannotDerive, derived, type CurrentComputation, type Inverter } from "./circuit-current-kind";
@@ -16,19 +17,29 @@ function acVoltage(inv: Inverter): number | undefined {
 }
 
 /**
- * Phases of an AC circuit: its own field, else the inverter's or generator's at its ends, else single
+ * Phases of an AC circuit as recorded: its own field, else the source's at its ends (the generator's on a
+ * generator output, which may land on an inverter-charger's AC input; the inverter's otherwise), else single
  * phase (for the same power, single phase gives the larger current and drop, so the guess errs safe).
  */
-export function circuitPhases(ctx: CheckContext, ci: Indexed<Circuit>, t: Trace): 1 | 3 {
+export function recordedPhases(ctx: CheckContext, ci: Indexed<Circuit>, t: Trace): PhaseCount {
   const own = t.read(`${ci.path}.phases`, "Phases", ci.item.phases);
   if (own !== undefined) return own;
-  const inverter = endpoint(ctx, ci.item, isInverter) as Indexed<Inverter> | undefined;
-  if (inverter) {
-    return t.read(`${inverter.path}.acOutputPhases`, `AC output phases of ${inverter.item.tag}`, inverter.item.acOutputPhases) === 3 ? 3 : 1;
-  }
   const gen = endpoint(ctx, ci.item, kindIs("generator"));
-  if (gen) return t.read(`${gen.path}.phases`, `Phases of ${gen.item.tag}`, gen.item.phases) === 3 ? 3 : 1;
+  const inverter = endpoint(ctx, ci.item, isInverter) as Indexed<Inverter> | undefined;
+  if (inverter && !(gen && ci.item.kind === "generator-output")) {
+    return t.read(`${inverter.path}.acOutputPhases`, `AC output phases of ${inverter.item.tag}`, inverter.item.acOutputPhases) ?? 1;
+  }
+  if (gen) return t.read(`${gen.path}.phases`, `Phases of ${gen.item.tag}`, gen.item.phases) ?? 1;
   return 1;
+}
+
+/**
+ * Phases for the current and drop formulas, and the voltage they divide by: split phase is single phase at the
+ * line-to-line voltage (P ÷ 240 V, 2 × I × R × L), three phase is √3 with the line-to-line voltage.
+ */
+function acSystem(ctx: CheckContext, ci: Indexed<Circuit>, t: Trace): { phases: 1 | 3; voltage: (v: number | undefined) => number | undefined } {
+  const recorded = recordedPhases(ctx, ci, t);
+  return { phases: recorded === 3 ? 3 : 1, voltage: (v) => (v === undefined ? undefined : lineToLineV(v, recorded)) };
 }
 
 /** Line current from power: P ÷ V single phase, P ÷ (√3 × V line to line) three phase. */
@@ -54,10 +65,11 @@ export const inverterOutputCurrent: CurrentComputation = (ctx, ci, t) => {
   let currentA = design;
   let formula = design !== undefined ? `design current ${design} A` : "";
   let voltage: number | undefined;
-  const phases = circuitPhases(ctx, ci, t);
+  const ac = acSystem(ctx, ci, t);
+  const phases = ac.phases;
   if (inverter) {
     const e = inverter.item;
-    voltage = acVoltage(e);
+    voltage = ac.voltage(acVoltage(e));
     t.read(`${inverter.path}.acOutputVoltageV`, `AC output voltage of ${e.tag}`, voltage, "V");
     const plate = t.read(`${inverter.path}.maxAcOutputCurrentA`, `Maximum AC output current of ${e.tag}`, e.maxAcOutputCurrentA, "A");
     const w = t.read(`${inverter.path}.continuousW`, `Continuous output of ${e.tag}`, e.continuousW, "W");
@@ -97,10 +109,11 @@ export const generatorOutputCurrent: CurrentComputation = (ctx, ci, t) => {
   let currentA = design;
   let formula = design !== undefined ? `design current ${design} A` : "";
   let voltage: number | undefined;
-  const phases = circuitPhases(ctx, ci, t);
+  const ac = acSystem(ctx, ci, t);
+  const phases = ac.phases;
   if (gen) {
     const kw = t.need(`${gen.path}.ratedKW`, `Rating of ${gen.item.tag}`, gen.item.ratedKW, "kW");
-    voltage = t.need(`${gen.path}.voltageV`, `Voltage of ${gen.item.tag}`, gen.item.voltageV, "V");
+    voltage = ac.voltage(t.need(`${gen.path}.voltageV`, `Voltage of ${gen.item.tag}`, gen.item.voltageV, "V"));
     if (kw !== undefined && voltage !== undefined) {
       const fromPlate = currentFromPowerA(kw * 1000, voltage, phases);
       if (currentA === undefined || fromPlate > currentA) {
@@ -140,9 +153,11 @@ export const branchCurrent: CurrentComputation = (ctx, ci, t) => {
     return cannotDerive("an AC branch circuit needs its load current", t);
   }
   const inverter = endpoint(ctx, c, isInverter) as Indexed<Inverter> | undefined;
-  const phases = circuitPhases(ctx, ci, t);
-  const voltage =
-    t.read(`${ci.path}.nominalVoltageV`, "Nominal voltage", c.nominalVoltageV, "V") ?? (inverter ? acVoltage(inverter.item) : undefined);
+  const ac = acSystem(ctx, ci, t);
+  const phases = ac.phases;
+  const voltage = ac.voltage(
+    t.read(`${ci.path}.nominalVoltageV`, "Nominal voltage", c.nominalVoltageV, "V") ?? (inverter ? acVoltage(inverter.item) : undefined),
+  );
   return derived(
     {
       currentA,

@@ -10,6 +10,8 @@ type Panel = EquipmentOf<"ac-panel">;
 type Inverter = EquipmentOf<"inverter" | "inverter-charger" | "hybrid-inverter">;
 
 export function is120Only(inv: Inverter): boolean {
+  // A split-phase output carries both legs of a 120/240 V panel, whatever single voltage was recorded for it.
+  if (inv.acOutputPhases === 2) return false;
   if (inv.acOutput !== undefined) return inv.acOutput === "120";
   return inv.acOutputVoltageV !== undefined && inv.acOutputVoltageV <= 130;
 }

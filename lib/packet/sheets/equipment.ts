@@ -5,7 +5,7 @@ import { dash, formatNumber } from "../format";
 import type { Block, Cell } from "../markup";
 import type { PacketDatasheet } from "../plan";
 import type { PacketInput } from "../types";
-import { batteryKWh } from "../../schemas/vocabulary";
+import { batteryKWh, PHASE_WORDS } from "../../schemas/vocabulary";
 import { KIND_LABEL, describe, equipmentByTag, resultsFor, statusCell, table } from "./shared";
 
 /** Equipment whose datasheet a permit office asks for (the submittal check's list). */
@@ -20,7 +20,7 @@ function keyRatings(e: Equipment): string {
     case "inverter":
     case "inverter-charger":
     case "hybrid-inverter":
-      return [`${dash(e.continuousW, "W")} continuous`, `${dash(e.surgeW, "W")} surge`, `battery ${dash(e.nominalBatteryVoltageV, "V")}`, `AC ${e.acOutput ?? dash(e.acOutputVoltageV, "V")} ${e.acOutputPhases}φ`, `listed ${e.listedMode ?? "—"}`].join(", ");
+      return [`${dash(e.continuousW, "W")} continuous`, `${dash(e.surgeW, "W")} surge`, `battery ${dash(e.nominalBatteryVoltageV, "V")}`, `AC ${e.acOutput ?? dash(e.acOutputVoltageV, "V")} ${PHASE_WORDS[e.acOutputPhases]}`, `listed ${e.listedMode ?? "—"}`].join(", ");
     case "battery":
       return [e.chemistry?.toUpperCase() ?? "chemistry —", dash(e.nominalVoltageV, "V"), dash(e.capacityAh, "Ah"), dash(batteryKWh(e) !== undefined ? formatNumber(batteryKWh(e)!) : undefined, "kWh"), `max discharge ${dash(e.maxContinuousDischargeA, "A")}`, `short-circuit ${dash(e.shortCircuitCurrentA, "A")}`].join(", ");
     case "generator":

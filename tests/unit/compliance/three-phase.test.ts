@@ -83,9 +83,11 @@ describe("three-phase branch circuit", () => {
     expect(r.inputs.map((i) => i.path)).toContain(`circuits.${5}.phases`);
   });
 
-  it("refuses a phase count other than 1 or 3", () => {
+  it("refuses a phase count other than 1, 2 (split phase) or 3", () => {
     const j = withBranch();
-    circuit(j, "C-9").phases = 2;
+    circuit(j, "C-9").phases = 4;
     expect(() => run(j)).toThrow(/phases/);
+    circuit(j, "C-9").phases = 2;
+    expect(() => run(j)).not.toThrow();
   });
 });
