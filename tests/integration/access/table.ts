@@ -37,7 +37,6 @@ import * as sendRoute from "../../../app/api/revisions/[id]/send/route";
 import * as submissionRoute from "../../../app/api/submissions/[id]/route";
 import * as submissionsRoute from "../../../app/api/submissions/route";
 import * as templateRoute from "../../../app/api/templates/[id]/route";
-import * as archiveRoute from "../../../app/api/projects/[id]/archive/route";
 import * as correctionRoute from "../../../app/api/corrections/[itemId]/route";
 import * as reviewNoteRoute from "../../../app/api/review-notes/[noteId]/route";
 import * as responseSheetRoute from "../../../app/api/submissions/[id]/response-sheet/route";
@@ -45,7 +44,6 @@ import * as templatesRoute from "../../../app/api/templates/route";
 import * as uploadsRoute from "../../../app/api/uploads/route";
 import * as verifyRoute from "../../../app/api/verify/route";
 import { correctionItems, equipmentLibrary, jurisdictions, projectTemplates, reviewNotes, reviews, submissionEvents, submissions, users } from "../../../db/schema";
-import { archiveProject } from "../../../lib/services/projects/archive";
 import type { Role } from "../../../lib/auth/roles";
 import { getProjectRecord } from "../../../lib/services/projects/get-record";
 import { createSubmission } from "../../../lib/services/submissions";
@@ -204,24 +202,6 @@ export const ENTRIES: Entry[] = [
   },
 
   // Archive, corrections, review-note conversations
-  {
-    name: "POST /api/projects/[id]/archive",
-    allowed: DESIGNER,
-    scoped: true,
-    setup: (w) => ({ id: w.fresh.project() }),
-    call: (_w, { id }) => http(archiveRoute.POST, "POST", `/api/projects/${id}/archive`, { params: { id: id! } }),
-  },
-  {
-    name: "DELETE /api/projects/[id]/archive",
-    allowed: DESIGNER,
-    scoped: true,
-    setup: (w) => {
-      const id = w.fresh.project();
-      archiveProject(w.ctx.designer, id);
-      return { id };
-    },
-    call: (_w, { id }) => http(archiveRoute.DELETE, "DELETE", `/api/projects/${id}/archive`, { params: { id: id! } }),
-  },
   {
     name: "GET /api/submissions/[id]/response-sheet",
     allowed: PROJECT_READERS,
