@@ -258,7 +258,7 @@ export const MPPT_INPUT_FIELDS: { name: "id" | "maxVoltageV" | "maxCurrentA" | "
 const IDENTITY_FIELDS = new Set(["kind", "manufacturer", "model"]);
 
 interface ZodLike {
-  _zod: { def: { type: string; innerType?: ZodLike; element?: ZodLike } };
+  _zod: { def: { type: string; innerType?: ZodLike; element?: ZodLike; options?: ZodLike[]; values?: unknown[] } };
   options?: readonly string[];
   isInt?: boolean;
   safeParse(v: unknown): { success: boolean; error?: { issues: { message: string }[] } };
@@ -278,6 +278,8 @@ function describeField(name: string, schema: ZodLike): RatingField {
   if (def.type === "number") type = t.isInt ? "integer" : "number";
   else if (def.type === "boolean") type = "boolean";
   else if (def.type === "enum") type = "enum";
+  // A choice of whole numbers (phases: 1, 2 or 3) reads as a whole number; the schema still refuses any other.
+  else if (def.type === "union" && def.options?.every((o) => o._zod.def.type === "literal" && o._zod.def.values?.every((v) => Number.isInteger(v)))) type = "integer";
   else if (def.type === "array") type = def.element?._zod.def.type === "object" ? "mppt-inputs" : "number-list";
   else type = "text";
   let range: string | undefined;

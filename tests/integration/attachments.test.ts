@@ -122,7 +122,7 @@ describe("upload", () => {
     expect(missing.code).toBe("invalid");
     expect(missing.issues[0]?.path).toBe("equipmentTag");
     const unknown = await caught(uploadAttachment(designer, { projectId: project.id, kind: "datasheet", equipmentTag: "CC-9", fileName: "x.pdf", bytes }));
-    expect(unknown.message).toContain("no equipment tagged CC-9");
+    expect(unknown.message).toContain("no equipment tagged “CC-9”");
     expect(unknown.issues[0]?.message).toContain("INV-1, BAT-1");
   });
 

@@ -29,7 +29,7 @@ export function linkAttachmentToEquipment(ctx: ServiceContext, id: string, equip
       .from(projectEquipment)
       .where(and(eq(projectEquipment.projectId, row.projectId), eq(projectEquipment.tag, parsed.data)))
       .get();
-    if (!equipment) throw invalid(`This project has no equipment tagged ${parsed.data}.`, [{ path: "equipmentTag", message: "names no equipment of this project" }]);
+    if (!equipment) throw invalid(`This project has no equipment tagged “${parsed.data}”.`, [{ path: "equipmentTag", message: "names no equipment of this project" }]);
     refuseWrongEquipmentKind(row.kind, equipment);
     tag = equipment.tag;
     libraryItemId = equipment.libraryItemId;

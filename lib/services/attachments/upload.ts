@@ -133,7 +133,7 @@ function resolveEquipment(ctx: ServiceContext, projectId: string, kind: Attachme
   const match = rows.find((r) => r.tag === equipmentTag);
   if (!match) {
     const known = rows.map((r) => r.tag).join(", ");
-    throw invalid(`This project has no equipment tagged ${equipmentTag}.`, [
+    throw invalid(`This project has no equipment tagged “${equipmentTag}”.`, [
       { path: "equipmentTag", message: known ? `names no equipment of this project (it has ${known})` : "names no equipment: the project has none yet" },
     ]);
   }
