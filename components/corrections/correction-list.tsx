@@ -3,24 +3,9 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { fetchJson, RequestError } from "@/lib/fetch-json";
-import { CORRECTION_RESPONSE_MIN_CHARS } from "@/lib/schemas/corrections";
+import { CORRECTION_RESPONSE_MIN_CHARS, type CorrectionView } from "@/lib/schemas/corrections";
 
-export interface CorrectionRow {
-  id: string;
-  submissionId: string;
-  letterOn: string;
-  number: number;
-  comment: string;
-  citation: string;
-  sheet: string;
-  assigneeId: string | null;
-  assigneeName: string | null;
-  response: string;
-  resolvedByName: string | null;
-  resolvedAt: string | null;
-  open: boolean;
-  version: number;
-}
+type CorrectionRow = CorrectionView;
 
 interface Props {
   items: CorrectionRow[];

@@ -101,3 +101,22 @@ export function splitCorrections(text: string): CorrectionItem[] {
       sheet: sheetOf(comment.replace(CITATION, "")),
     }));
 }
+
+/** One correction item as the office, designer and reviewer read it: the service builds it, the list draws it. */
+export interface CorrectionView {
+  id: string;
+  submissionId: string;
+  /** The date of the letter, from its "corrections requested" event. */
+  letterOn: string;
+  number: number;
+  comment: string;
+  citation: string;
+  sheet: string;
+  assigneeId: string | null;
+  assigneeName: string | null;
+  response: string;
+  resolvedByName: string | null;
+  resolvedAt: string | null;
+  open: boolean;
+  version: number;
+}

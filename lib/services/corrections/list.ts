@@ -5,25 +5,10 @@ import { can } from "../../auth/permissions";
 import { requirePermission, type ServiceContext } from "../context";
 import { findProjectInOrg } from "../projects/load";
 import { findSubmissionInOrg } from "../submissions/shared";
+import type { CorrectionView } from "../../schemas/corrections";
 import { assignableUsers, voidedEventIds, type Assignee } from "./shared";
 
-export interface CorrectionView {
-  id: string;
-  submissionId: string;
-  /** The date of the letter, from its "corrections requested" event. */
-  letterOn: string;
-  number: number;
-  comment: string;
-  citation: string;
-  sheet: string;
-  assigneeId: string | null;
-  assigneeName: string | null;
-  response: string;
-  resolvedByName: string | null;
-  resolvedAt: string | null;
-  open: boolean;
-  version: number;
-}
+export type { CorrectionView };
 
 export interface CorrectionsView {
   items: CorrectionView[];
