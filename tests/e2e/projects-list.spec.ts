@@ -54,14 +54,14 @@ test("a designer finds a project by search and filters, archives it and brings i
   await page.getByRole("searchbox").fill(name);
   await page.getByRole("button", { name: "Search" }).click();
   await expect(page.getByText("No projects match. Clear a filter to see more.")).toBeVisible();
-  await page.getByLabel("Archived projects").click();
-  await expect(page.getByLabel("Archived projects")).toBeChecked();
+  await page.getByRole("checkbox", { name: "Archived projects" }).click();
+  await expect(page.getByRole("checkbox", { name: "Archived projects" })).toBeChecked();
   const archived = page.getByRole("table", { name: "Archived projects" });
   await expect(archived.getByRole("link", { name })).toBeVisible();
   await archived.getByRole("button", { name: `Bring back ${name}` }).click();
   await expect(page.getByText("No archived projects match.")).toBeVisible();
-  await page.getByLabel("Archived projects").click();
-  await expect(page.getByLabel("Archived projects")).not.toBeChecked();
+  await page.getByRole("checkbox", { name: "Archived projects" }).click();
+  await expect(page.getByRole("checkbox", { name: "Archived projects" })).not.toBeChecked();
   await expect(table.getByRole("link", { name })).toBeVisible();
 
   // A status that does not exist, typed into the address, is refused with a message and shows nothing.
