@@ -47,12 +47,12 @@ test("a reviewer keeps a signing certificate: a wrong password is refused, the r
   await signInAs(page, "reviewer");
   await page.goto("/reviews/licence");
   const form = page.getByRole("form", { name: "Signing certificate" });
-  await form.getByLabel(/Certificate file/).setInputFiles({ name: "seal.p12", mimeType: "application/x-pkcs12", buffer: Buffer.from(cert.p12) });
+  await form.getByLabel(/Certificate file|Replace the certificate/).setInputFiles({ name: "seal.p12", mimeType: "application/x-pkcs12", buffer: Buffer.from(cert.p12) });
   await form.getByLabel("Certificate password").fill("not the password");
   await form.getByRole("button", { name: "Save certificate" }).click();
   await expect(form.getByRole("alert")).toContainText("password is not right");
 
-  await form.getByLabel(/Certificate file/).setInputFiles({ name: "seal.p12", mimeType: "application/x-pkcs12", buffer: Buffer.from(cert.p12) });
+  await form.getByLabel(/Certificate file|Replace the certificate/).setInputFiles({ name: "seal.p12", mimeType: "application/x-pkcs12", buffer: Buffer.from(cert.p12) });
   await form.getByLabel("Certificate password").fill(cert.password);
   await form.getByRole("button", { name: "Save certificate" }).click();
   await expect(form.getByRole("status")).toContainText("Signing certificate saved");

@@ -1,7 +1,8 @@
 import { expect, test, type Browser, type Page } from "@playwright/test";
 import { PDFDocument, StandardFonts } from "pdf-lib";
 import path from "node:path";
-import { signInAs } from "./helpers";
+import { makeThrowawayCertificate, type ThrowawayCertificate } from "../unit/signing/throwaway-ca";
+import { demoUser, signInAs } from "./helpers";
 
 const ARTIFACTS = path.join(__dirname, "artifacts");
 /** The seeded market stall is a complete design; the loop runs on a copy of it so the seeded rows stay as other specs expect. */
@@ -55,8 +56,25 @@ async function sendForReview(page: Page, projectId: string, number: number) {
   void row;
 }
 
+/**
+ * The reviewer stamps with a signing certificate of their own, kept on the licence page first: whether one is already on
+ * file depends on which other specs ran, so the loop brings its own and always signs.
+ */
+let certificate: ThrowawayCertificate | undefined;
+async function keepCertificate(page: Page): Promise<ThrowawayCertificate> {
+  certificate ??= makeThrowawayCertificate({ subjectName: demoUser("reviewer").name });
+  await page.goto("/reviews/licence");
+  const form = page.getByRole("form", { name: "Signing certificate" });
+  await form.getByLabel(/Certificate file|Replace the certificate/).setInputFiles({ name: "loop-seal.p12", mimeType: "application/x-pkcs12", buffer: Buffer.from(certificate.p12) });
+  await form.getByLabel("Certificate password").fill(certificate.password);
+  await form.getByRole("button", { name: "Save certificate" }).click();
+  await expect(form.getByRole("status")).toContainText("Signing certificate saved");
+  return certificate;
+}
+
 async function approve(browser: Browser, revisionId: string, number: number) {
   const page = await as(browser, "reviewer");
+  const seal = await keepCertificate(page);
   await page.goto("/reviews");
   await page.getByRole("table", { name: "Awaiting review" }).getByRole("link", { name: new RegExp(`^${PROJECT}`) }).click();
   await expect(page.getByRole("heading", { level: 1, name: new RegExp(`^${PROJECT}`) })).toBeVisible();
@@ -68,6 +86,7 @@ async function approve(browser: Browser, revisionId: string, number: number) {
   await page.getByRole("button", { name: "Approve and stamp", exact: true }).click();
   const dialog = page.getByRole("dialog");
   await dialog.getByRole("checkbox").check();
+  await dialog.getByLabel(/signing certificate/i).fill(seal.password);
   await dialog.getByRole("button", { name: `Approve and stamp revision ${number}` }).click();
   await expect(page.getByRole("status").filter({ hasText: /approved|stamped/i })).toBeVisible({ timeout: 60_000 });
   // The stamped set is rendered again after approval; until it is ready it is not offered for submission.
